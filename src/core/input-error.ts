@@ -1,0 +1,19 @@
+/**
+ * An error in the user's input (a value out of range, an unknown name, mu >= delta).
+ * The CLI prints its message on one line and exits with code 2; the page shows it
+ * beside the field named by `field`.
+ */
+export class InputError extends Error {
+  constructor(message: string, readonly field?: string) {
+    super(message);
+    this.name = 'InputError';
+  }
+}
+
+/** Throw an InputError unless `x` is a finite number. */
+export function requireFinite(x: number, field: string): number {
+  if (typeof x !== 'number' || !Number.isFinite(x)) {
+    throw new InputError(`${field} must be a finite number, got ${String(x)}`, field);
+  }
+  return x;
+}

@@ -1,0 +1,93 @@
+/**
+ * Emitter-emitter interaction shapes V(r), r in units of the lattice spacing, energies in g.
+ *
+ *   nn:       V1 at r = 1, V2 at the next-nearest distance, zero beyond
+ *   vdw:      V(r) = V1 / r^6,  V(Rb) = 2 (the vacuum Rabi splitting)  =>  V1 = 2 Rb^6
+ *   dipolar:  V(r) = V1 / r^3,  V(Rb) = 2                              =>  V1 = 2 Rb^3
+ *   softcore: V(r) = V0 / (1 + (r/Rc)^6)
+ *
+ * An optional range rmax drops every pair with r > rmax.
+ */
+import { InputError, requireFinite } from '../input-error.ts';
+import type { Lattice } from '../lattice/geometry.ts';
+
+export type InteractionShape = 'nn' | 'vdw' | 'dipolar' | 'softcore';
+export const INTERACTION_SHAPES: readonly InteractionShape[] = ['nn', 'vdw', 'dipolar', 'softcore'];
+
+/** The user's description of the interaction (plain data). */
+export interface InteractionSpec {
+  shape: InteractionShape;
+  /** Strength at r = 1 (nn, vdw, dipolar); for vdw/dipolar give either V1 or Rb. */
+  V1?: number;
+  /** Next-nearest strength of the nn shape (default 0). */
+  V2?: number;
+  /** Blockade radius with V(Rb) = 2 (vdw, dipolar). */
+  Rb?: number;
+  /** Plateau height and core radius of the softcore shape. */
+  V0?: number;
+  Rc?: number;
+  /** Pairs with r > rmax are dropped; undefined or Infinity: full converged lattice sum. */
+  rmax?: number;
+}
+
+/** A resolved interaction: V(r) and what the lattice sums need to know of it. */
+export interface Potential {
+  readonly shape: InteractionShape;
+  /** V(r) without the range cut. */
+  readonly V: (r: number) => number;
+  /** Range cut (Infinity for none). */
+  readonly rmax: number;
+  /** V = C / r^s for the power laws. */
+  readonly powerLaw?: { C: number; s: number };
+  /** Parameters of the softcore shape. */
+  readonly softcore?: { V0: number; Rc: number };
+  /** Finite-range shells (nn shape): distances and values. */
+  readonly shells?: { r: number; V: number }[];
+}
+
+const NO_RANGE = Infinity;
+
+/** Resolve a spec on a lattice into a Potential, refusing incomplete or bad input. */
+export function resolvePotential(spec: InteractionSpec, l: Lattice): Potential {
+  const rmax = spec.rmax === undefined ? NO_RANGE : spec.rmax;
+  if (!(rmax > 0) || Number.isNaN(rmax)) throw new InputError(`range must be > 0, got ${rmax}`, 'range');
+  switch (spec.shape) {
+    case 'nn': {
+      const V1 = requireFinite(spec.V1 ?? NaN, 'v1');
+      const V2 = requireFinite(spec.V2 ?? 0, 'v2');
+      const shells = [{ r: 1, V: V1 }, { r: l.nextNearest, V: V2 }].filter((s) => s.r <= rmax + 1e-9);
+      const V = (r: number) => (Math.abs(r - 1) < 1e-9 ? V1 : Math.abs(r - l.nextNearest) < 1e-9 ? V2 : 0);
+      return { shape: 'nn', V, rmax: Math.min(rmax, l.nextNearest), shells };
+    }
+    case 'vdw':
+    case 'dipolar': {
+      const s = spec.shape === 'vdw' ? 6 : 3;
+      let C: number;
+      if (spec.V1 !== undefined && spec.Rb !== undefined) {
+        throw new InputError('give either the blockade radius rb or the strength v1, not both', 'rb');
+      } else if (spec.Rb !== undefined) {
+        const Rb = requireFinite(spec.Rb, 'rb');
+        if (!(Rb > 0)) throw new InputError(`blockade radius rb must be > 0, got ${Rb}`, 'rb');
+        C = 2 * Math.pow(Rb, s);
+      } else if (spec.V1 !== undefined) {
+        C = requireFinite(spec.V1, 'v1');
+      } else {
+        throw new InputError(`the ${spec.shape} shape needs rb or v1`, 'rb');
+      }
+      return { shape: spec.shape, V: (r) => C / Math.pow(r, s), rmax, powerLaw: { C, s } };
+    }
+    case 'softcore': {
+      const V0 = requireFinite(spec.V0 ?? NaN, 'v0');
+      const Rc = requireFinite(spec.Rc ?? NaN, 'rc');
+      if (!(Rc > 0)) throw new InputError(`core radius rc must be > 0, got ${Rc}`, 'rc');
+      return { shape: 'softcore', V: (r) => V0 / (1 + Math.pow(r / Rc, 6)), rmax, softcore: { V0, Rc } };
+    }
+    default:
+      throw new InputError(`unknown interaction ${String((spec as InteractionSpec).shape)} (use ${INTERACTION_SHAPES.join(', ')})`, 'interaction');
+  }
+}
+
+/** V(r) with the range cut applied. */
+export function pairValue(p: Potential, r: number): number {
+  return r > p.rmax + 1e-9 ? 0 : p.V(r);
+}
