@@ -31,3 +31,13 @@ export interface MeanFieldState {
   delta: number;
   T: number;
 }
+
+/**
+ * Phase separation at fixed density inside a first-order jump of rho(mu): the two phases
+ * at the transition mu and their lever-rule fractions x_low + x_high = 1,
+ * x_low rho_low + x_high rho_high = rho.
+ */
+export interface Coexistence {
+  phases: [MeanFieldState, MeanFieldState];
+  fractions: [number, number];
+}

@@ -1,0 +1,115 @@
+/**
+ * Fixed-mu search over supercells and starts (DESIGN.md: lowest Omega over all supercells
+ * up to Mmax, never stopping at a metastable solution). Every cell with M <= Mmax (or
+ * exactly M = cell) is solved from each of its starts (starts.ts) plus the continuation
+ * guess where it fits; among converged solutions the lowest Omega per site wins. Ties
+ * within 1e-12 relative keep the first found (smaller cells come first), so the result is
+ * fixed by the inputs and the seed. The winner is reported on its primitive cell.
+ */
+import { type Lattice, lattice } from '../lattice/geometry.ts';
+import { type Supercell, supercell, supercellsOfSize, supercellsUpTo } from '../lattice/supercells.ts';
+import { type Potential, resolvePotential } from '../interaction/potential.ts';
+import type { ModelParams } from '../model.ts';
+import { cellCouplings } from './coupling-cache.ts';
+import { type CellSolution, solveCell } from './sublattice.ts';
+import { type Start, cellStarts } from './starts.ts';
+import { classifyPhase, type PhaseTolerances } from './phase.ts';
+import { reduceToPrimitive } from './pattern.ts';
+import type { MeanFieldState } from './state.ts';
+
+export interface SearchOptions {
+  /** Seed of the random starts (default 1). */
+  seed?: number;
+  /** Continuation from a neighbouring scan point: one more start, never the only one. */
+  guess?: MeanFieldState;
+  /** Random starts per cell with M > 1 (default 1). */
+  randomStarts?: number;
+  /** Phase-label tolerances. */
+  tolerances?: Partial<PhaseTolerances>;
+}
+
+/** The resolved model: lattice, potential and the cells searched. */
+export interface Context {
+  l: Lattice;
+  pot: Potential;
+  p: ModelParams;
+  cells: Supercell[];
+}
+
+/** Resolve lattice, interaction and the cells of p (p.cell: exactly that size, else <= maxCell). */
+export function context(p: ModelParams): Context {
+  const l = lattice(p.lattice);
+  const pot = resolvePotential(p.interaction, l);
+  const cells = p.cell !== undefined ? supercellsOfSize(l.dim, p.cell) : supercellsUpTo(l.dim, p.maxCell);
+  return { l, pot, p, cells };
+}
+
+/** A converged solution with its cell and the start it came from. */
+export interface Candidate {
+  cell: Supercell;
+  start: Start['kind'];
+  sol: CellSolution;
+}
+
+function better(x: CellSolution, best: CellSolution | null): boolean {
+  return !best || x.omega < best.omega - 1e-12 * Math.max(1, Math.abs(best.omega));
+}
+
+/** J_st(0) of `cell` for the context's interaction (cached). */
+export function cellJ(ctx: Context, cell: Supercell): Float64Array {
+  return cellCouplings(ctx.l, ctx.p.interaction, ctx.pot, cell);
+}
+
+/** Every converged start of one cell at chemical potential mu (the guess included if given). */
+export function cellCandidates(ctx: Context, cell: Supercell, mu: number, o: SearchOptions = {}): Candidate[] {
+  const J = cellJ(ctx, cell);
+  const prob = { M: cell.M, J, mu, delta: ctx.p.delta, T: ctx.p.T };
+  const starts = cellStarts(cell, J, { dim: ctx.l.dim, seed: o.seed ?? 1, randomStarts: o.randomStarts });
+  const g = o.guess;
+  if (g && g.cell.a === cell.a && g.cell.b === cell.b && g.cell.c === cell.c && g.sublatticeDensities.length === cell.M) {
+    starts.unshift({ kind: 'guess', m: Float64Array.from(g.sublatticeDensities) });
+  }
+  const out: Candidate[] = [];
+  for (const s of starts) {
+    const sol = solveCell(prob, s.m);
+    if (sol.converged) out.push({ cell, start: s.kind, sol });
+  }
+  return out;
+}
+
+/** Lowest-Omega converged solution in one given cell, or null if no start converged. */
+export function solveInCell(p: ModelParams, cell: Supercell | { a: number; b: number; c: number }, o: SearchOptions = {}): Candidate | null {
+  const ctx = context(p);
+  const sc = 'sites' in cell ? cell : supercell(cell.a, cell.b, cell.c);
+  let best: Candidate | null = null;
+  for (const c of cellCandidates(ctx, sc, p.mu as number, o)) if (better(c.sol, best?.sol ?? null)) best = c;
+  return best;
+}
+
+/** Lowest-Omega candidate over all cells of the context at chemical potential mu. */
+export function searchCells(ctx: Context, mu: number, o: SearchOptions = {}): Candidate {
+  let best: Candidate | null = null;
+  for (const cell of ctx.cells) {
+    for (const c of cellCandidates(ctx, cell, mu, o)) if (better(c.sol, best?.sol ?? null)) best = c;
+  }
+  if (!best) throw new Error(`mean-field: no start converged at mu = ${mu}`);
+  return best;
+}
+
+/** The plain-data state of a candidate, reduced to its primitive cell and labelled. */
+export function toState(ctx: Context, c: Candidate, mu: number, tol: Partial<PhaseTolerances> = {}): MeanFieldState {
+  const modTol = tol.modulation ?? 1e-4;
+  const red = reduceToPrimitive(c.cell, [c.sol.m, c.sol.sx], Math.min(modTol, 1e-8));
+  const [m, sx] = red.arrays;
+  const a = c.sol.alpha * c.sol.alpha;
+  const mean = m.reduce((x, y) => x + y, 0) / m.length;
+  const { phase, fraction } = classifyPhase(m, a, tol);
+  return {
+    phase, fraction,
+    cellSize: red.cell.M,
+    cell: { a: red.cell.a, b: red.cell.b, c: red.cell.c },
+    sublatticeDensities: m, sublatticeCoherences: sx,
+    alpha: c.sol.alpha, emitterDensity: mean, photonDensity: a, excitationDensity: a + mean,
+    grandPotential: c.sol.omega, mu, delta: ctx.p.delta, T: ctx.p.T,
+  };
+}

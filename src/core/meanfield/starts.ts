@@ -1,0 +1,66 @@
+/**
+ * Starting states of the self-consistency in one supercell (DESIGN.md: the solver must not
+ * stop at a metastable solution). For a cell of M sublattices:
+ *   - M = 1: the uniform states m = 0 (empty), 1/2 and 1 (filled);
+ *   - M > 1: the classical ground state of each filling p/M whose pattern has no smaller
+ *     period (patterns of a smaller period are starts of that smaller cell): by brute force
+ *     over all 2^M patterns with J_st(0) for M <= 12 (classical.ts), and in 1D also the
+ *     generalised Wigner lattice of every p/M with gcd(p, M) = 1 (the only source for
+ *     M > 12);
+ *   - seeded random states m_s uniform in [0, 1] (seedrandom, stream `seed|cell|k`), so
+ *     results are fixed by the seed.
+ * Duplicate patterns (equal up to a translation) are dropped. The continuation guess is
+ * added by the caller, as one start among these.
+ */
+import seedrandom from 'seedrandom';
+import type { Supercell } from '../lattice/supercells.ts';
+import { BRUTE_FORCE_LIMIT, classicalMinima, wignerLattice } from './classical.ts';
+import { isPrimitive, sameUpToTranslation } from './pattern.ts';
+
+/** A named start: where it came from (for diagnostics) and the m_s. */
+export interface Start {
+  kind: 'uniform' | 'classical' | 'wigner' | 'random' | 'guess';
+  m: Float64Array;
+}
+
+export interface StartOptions {
+  dim: 1 | 2;
+  /** Seed of the random starts. */
+  seed: number;
+  /** Random starts per cell with M > 1 (default 1). */
+  randomStarts?: number;
+}
+
+function gcd(x: number, y: number): number {
+  while (y) [x, y] = [y, x % y];
+  return x;
+}
+
+/** The deterministic (uniform, classical, Wigner) and seeded random starts of one cell. */
+export function cellStarts(cell: Supercell, J: Float64Array, o: StartOptions): Start[] {
+  const M = cell.M;
+  if (M === 1) {
+    return [0, 0.5, 1].map((v) => ({ kind: 'uniform' as const, m: Float64Array.of(v) }));
+  }
+  const out: Start[] = [];
+  const add = (kind: Start['kind'], n: Uint8Array) => {
+    if (!isPrimitive(cell, [n])) return;
+    for (const s of out) if (sameUpToTranslation(cell, s.m, n, 0)) return;
+    out.push({ kind, m: Float64Array.from(n) });
+  };
+  if (M <= BRUTE_FORCE_LIMIT) {
+    const minima = classicalMinima(J, M);
+    for (let p = 1; p < M; p++) add('classical', minima[p]);
+  }
+  if (o.dim === 1) {
+    for (let p = 1; p < M; p++) if (gcd(p, M) === 1) add('wigner', wignerLattice(p, M));
+  }
+  const nr = o.randomStarts ?? 1;
+  for (let k = 0; k < nr; k++) {
+    const rng = seedrandom(`${o.seed}|${cell.a},${cell.b},${cell.c}|${k}`);
+    const m = new Float64Array(M);
+    for (let s = 0; s < M; s++) m[s] = rng();
+    out.push({ kind: 'random', m });
+  }
+  return out;
+}
