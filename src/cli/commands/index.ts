@@ -1,0 +1,10 @@
+/**
+ * Every command of the CLI, in the order the top-level help lists them. A new command is
+ * a file in this folder exporting a Command, added here.
+ */
+import type { Command } from '../command.ts';
+import { solveCommand } from './solve.ts';
+import { mapCommand } from './map.ts';
+import { mergeCommand } from './merge.ts';
+
+export const COMMANDS: readonly Command[] = [solveCommand, mapCommand, mergeCommand];

@@ -1,0 +1,71 @@
+/**
+ * `map`: the mean-field phase over a grid of one or two parameters, in the worker pool,
+ * as CSV (default) or JSON, to stdout or --out. `--shard k/n` computes the k-th of n
+ * interleaved parts (src/core/scan/shards.ts) for a batch system's job array; `merge`
+ * joins them. Ctrl-C writes the finished points and exits 130.
+ */
+import { InputError } from '../../core/input-error.ts';
+import { parseAxis, type AxisName } from '../../core/scan/axes.ts';
+import { checkAxes, gridShape, type ScanPlan } from '../../core/scan/grid.ts';
+import { parseShard, scanFingerprint } from '../../core/scan/shards.ts';
+import { HELP_FLAG, type Command } from '../command.ts';
+import { bool, str, type FlagSpec } from '../flags.ts';
+import { MODEL_FLAGS, modelFromArgs, seedFromArgs } from '../model-flags.ts';
+import { mapCsv, mapJson, type MapHeader } from '../map-output.ts';
+import { runScan, SCAN_FLAGS, validatePlan } from '../scan-run.ts';
+import { OUTPUT_FLAGS } from './solve.ts';
+import { finishOutput, OUT_FLAG } from './output.ts';
+
+const AXIS_HELP = 'rb, v1, mu, density, detuning or temperature';
+
+const MAP_FLAGS: readonly FlagSpec[] = [
+  { name: 'x', kind: 'string', value: 'name=start:stop:count', help: `first axis (${AXIS_HELP}); continuation runs along it` },
+  { name: 'y', kind: 'string', value: 'name=start:stop:count', help: 'second axis (optional: one row)' },
+  { name: 'shard', kind: 'string', value: 'k/n', help: 'compute only the k-th of n interleaved parts (join them with merge)' },
+  OUT_FLAG,
+];
+
+/** Largest map accepted in one run (shard anything bigger). */
+export const MAX_MAP_POINTS = 4_000_000;
+
+export const mapCommand: Command = {
+  name: 'map',
+  summary: 'phases over a grid of one or two parameters (CSV or JSON), shardable',
+  usage: 'map --x name=start:stop:count [--y name=start:stop:count] [model flags] [--shard k/n] [--out file]',
+  description:
+    `Solves the mean-field ground state at every point of a grid over one or two of ${AXIS_HELP}\n` +
+    '(evenly spaced, start and stop included), in a pool of worker threads. Prints CSV with a\n' +
+    'header naming every column, one row a point (ix, iy, the axis values, then the state), or\n' +
+    'JSON with --json. The flags of the model fix everything the axes do not.\n' +
+    'For a cluster: run each of n parts with --shard k/n (k = 1..n) as one job of a job array,\n' +
+    'each with its own --out, then join the parts with merge. Ctrl-C writes the finished points.',
+  flags: [...MAP_FLAGS, ...MODEL_FLAGS, ...SCAN_FLAGS, ...OUTPUT_FLAGS, HELP_FLAG],
+  examples: [
+    'map --x mu=-1:3:200 --y rb=1:2:100 --detuning 3 --out map.csv',
+    'map --x mu=-1:3:200 --y temperature=0:0.5:50 --interaction nn --v1 2 --detuning 3 --json',
+    'map --x mu=-1:3:400 --y rb=1:2:400 --detuning 3 --shard 3/16 --out part-3.csv',
+  ],
+  async run(args, io) {
+    const xs = str(args, 'x');
+    if (!xs) throw new InputError('map needs --x name=start:stop:count', 'x');
+    const x = parseAxis(xs, 'x');
+    const ys = str(args, 'y');
+    const y = ys ? parseAxis(ys, 'y') : undefined;
+    checkAxes(x, y);
+    const axes: AxisName[] = y ? [x.name, y.name] : [x.name];
+    const base = modelFromArgs(args, axes);
+    const plan: ScanPlan = { base, x, y, seed: seedFromArgs(args) };
+    const { nx, ny, points } = gridShape(plan);
+    if (points > MAX_MAP_POINTS) throw new InputError(`the map has ${points} points, above ${MAX_MAP_POINTS}; split it with --shard`, 'x');
+    const shardText = str(args, 'shard');
+    const shard = shardText ? parseShard(shardText) : undefined;
+    validatePlan(plan);
+    const header: MapHeader = {
+      x, y, params: base, fixedDensity: base.rho !== undefined || axes.includes('density'),
+      shard: shard ? { ...shard, scan: scanFingerprint(plan), nx, ny } : null,
+    };
+    const out = await runScan(io, args, plan, shard ? `map ${shard.k}/${shard.n}` : 'map', shard, !bool(args, 'cold'));
+    const text = bool(args, 'json') ? mapJson(header, out.points, out.complete) : mapCsv(header, out.points);
+    return finishOutput(io, args, text, out);
+  },
+};

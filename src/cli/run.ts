@@ -1,0 +1,61 @@
+/**
+ * The CLI as a function: argv in, exit code out, everything else through CliIo. Bad input
+ * (an InputError, also one thrown inside a worker) is one line on stderr and exit code 2,
+ * never a stack trace; an unexpected failure is one line and exit code 1 (the stack only
+ * with ATLAS_DEBUG=1).
+ */
+import { InputError } from '../core/input-error.ts';
+import { commandHelp, PROGRAM, type Command } from './command.ts';
+import { COMMANDS } from './commands/index.ts';
+import { parseArgs } from './flags.ts';
+import type { CliIo } from './io.ts';
+
+/** The top-level --help. */
+export function topHelp(commands: readonly Command[] = COMMANDS): string {
+  const w = Math.max(...commands.map((c) => c.name.length));
+  return `Blockade Atlas: phases of interacting emitters in a cavity, from the command line.\n\n` +
+    `Usage: ${PROGRAM} <command> [flags]     (${PROGRAM} <command> --help for its flags)\n\n` +
+    `Commands:\n${commands.map((c) => `  ${c.name.padEnd(w)}  ${c.summary}`).join('\n')}\n\n` +
+    `Units: energies in the collective light-matter coupling g, lengths in the lattice spacing a.\n` +
+    `Flags take their value as --flag value or --flag=value.\n`;
+}
+
+/** An error that came back from a worker as a plain Error still carries its name. */
+function isInputError(e: unknown): e is Error {
+  return e instanceof InputError || (e instanceof Error && e.name === 'InputError');
+}
+
+/** Run one command line; resolves with the exit code. */
+export async function runCli(argv: readonly string[], io: CliIo, commands: readonly Command[] = COMMANDS): Promise<number> {
+  try {
+    const [name, ...rest] = argv;
+    if (name === undefined) throw new InputError(`no command given (use ${commands.map((c) => c.name).join(', ')}; see --help)`);
+    if (name === '--help' || name === '-h' || name === 'help') {
+      const c = commands.find((x) => x.name === rest[0]);
+      io.stdout(c ? commandHelp(c) : topHelp(commands));
+      return 0;
+    }
+    const command = commands.find((c) => c.name === name);
+    if (!command) {
+      throw new InputError(`unknown command '${name}' (use ${commands.map((c) => c.name).join(', ')}; see --help)`);
+    }
+    const args = parseArgs(rest, command.flags, command.name, command.positional);
+    if (args.flags.has('help')) {
+      io.stdout(commandHelp(command));
+      return 0;
+    }
+    return await command.run(args, io);
+  } catch (e) {
+    if (isInputError(e)) {
+      io.stderr(`atlas: ${oneLine(e.message)}\n`);
+      return 2;
+    }
+    const err = e instanceof Error ? e : new Error(String(e));
+    io.stderr(`atlas: internal error: ${oneLine(err.message)}${process.env.ATLAS_DEBUG ? '\n' + err.stack : ' (ATLAS_DEBUG=1 shows the stack)'}\n`);
+    return 1;
+  }
+}
+
+function oneLine(s: string): string {
+  return s.replace(/\s*\n\s*/g, ' ').trim();
+}

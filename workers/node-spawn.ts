@@ -1,0 +1,71 @@
+/**
+ * Start engine workers as Node worker threads. The worker runs the TypeScript sources
+ * directly: Node 20 does not apply `--import tsx` loader hooks to a worker's own entry
+ * module (it fails with ERR_UNKNOWN_FILE_EXTENSION), so the thread starts from a tiny
+ * bootstrap that registers tsx's ESM loader first and then imports engine-worker-node.ts.
+ * This works under `tsx` (the CLI, the benchmark) and under vitest alike.
+ */
+import { Worker } from 'node:worker_threads';
+import { createRequire } from 'node:module';
+import { readFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { availableParallelism } from 'node:os';
+import { wrap, releaseProxy } from 'comlink';
+import nodeEndpoint from 'comlink/dist/esm/node-adapter.mjs';
+import type { Engine } from './engine.ts';
+import type { EngineHandle } from './pool.ts';
+import { WorkerPool } from './pool.ts';
+
+let tsxApi: string | undefined;
+
+/** file: URL of tsx's ESM register API, read from tsx's own package exports. */
+function tsxApiUrl(): string {
+  if (tsxApi) return tsxApi;
+  const req = createRequire(import.meta.url);
+  const pkgPath = req.resolve('tsx/package.json');
+  const pkg = JSON.parse(readFileSync(pkgPath, 'utf8')) as { exports: Record<string, { import: { default: string } }> };
+  tsxApi = pathToFileURL(join(dirname(pkgPath), pkg.exports['./esm/api'].import.default)).href;
+  return tsxApi;
+}
+
+/** Start one worker thread running `entry` (default: the engine worker) under tsx. */
+export function spawnNodeWorker(entry: URL = new URL('./engine-worker-node.ts', import.meta.url)): Worker {
+  const code = `import(${JSON.stringify(tsxApiUrl())})` +
+    `.then((m) => { m.register(); return import(${JSON.stringify(entry.href)}); });`;
+  return new Worker(code, { eval: true });
+}
+
+/** One engine worker thread as a pool handle. */
+export function spawnNodeEngine(): EngineHandle<Engine> {
+  const worker = spawnNodeWorker();
+  const remote = wrap<Engine>(nodeEndpoint(worker));
+  let terminated = false;
+  const failed = new Promise<never>((_, reject) => {
+    worker.on('error', (e) => reject(e));
+    worker.on('exit', (code) => {
+      if (!terminated) reject(new Error(`an engine worker stopped unexpectedly (exit code ${code})`));
+    });
+  });
+  failed.catch(() => undefined); // observed by the pool when a task is running
+  return {
+    remote,
+    failed,
+    terminate() {
+      if (terminated) return;
+      terminated = true;
+      remote[releaseProxy]();
+      void worker.terminate();
+    },
+  };
+}
+
+/** Default worker count: the cores Node reports. */
+export function defaultWorkerCount(): number {
+  return Math.max(1, availableParallelism());
+}
+
+/** A pool of `size` engine worker threads. */
+export function nodeEnginePool(size = defaultWorkerCount()): WorkerPool<Engine> {
+  return new WorkerPool<Engine>(spawnNodeEngine, size);
+}

@@ -1,0 +1,206 @@
+/**
+ * A pool of engine workers, the same in the browser (Web Workers) and in Node (worker
+ * threads): it only sees a spawn function returning a Comlink remote. Tasks from any
+ * number of concurrent runs wait in one queue; each idle worker takes the next task, so a
+ * slow task never holds up the others. A run streams each task's result as it finishes
+ * (onResult), counts progress in units the caller chooses, and stops on its AbortSignal:
+ * queued tasks are dropped and workers busy on the run are terminated (a computation in a
+ * worker cannot be interrupted otherwise) and respawned when needed.
+ */
+import type { Remote } from 'comlink';
+
+/** A started worker: its Comlink remote and how to stop it. */
+export interface EngineHandle<E> {
+  remote: Remote<E>;
+  terminate(): void;
+  /** Rejects if the worker dies on its own (crash, exit); never resolves. */
+  failed?: Promise<never>;
+}
+
+/** Start one worker (see node-spawn.ts and browser-spawn.ts). */
+export type SpawnEngine<E> = () => EngineHandle<E>;
+
+/** Run one task on a worker; slot (0..size-1) says which worker, for per-worker seeds. */
+export type TaskRunner<E, T, R> = (remote: Remote<E>, task: T, taskIndex: number, slot: number) => Promise<R>;
+
+export interface RunOptions<T, R> {
+  signal?: AbortSignal;
+  /** Called as each task finishes, in completion order. */
+  onResult?: (result: R, taskIndex: number, task: T) => void;
+  /** Called after each task with the units done and the total (units default to 1 a task). */
+  onProgress?: (done: number, total: number) => void;
+  units?: (task: T) => number;
+}
+
+interface Job {
+  run: RunState;
+  taskIndex: number;
+}
+
+interface RunState {
+  tasks: readonly unknown[];
+  exec: TaskRunner<unknown, unknown, unknown>;
+  opts: RunOptions<unknown, unknown>;
+  results: unknown[];
+  left: number;
+  done: number;
+  total: number;
+  finished: boolean;
+  resolve(r: unknown[]): void;
+  reject(e: unknown): void;
+}
+
+/** Marks a rejection that came from the worker dying rather than from the task. */
+class WorkerDied {
+  constructor(readonly cause: unknown) {}
+}
+
+interface Slot<E> {
+  handle?: EngineHandle<E>;
+  job?: Job;
+}
+
+/** The error a run rejects with when its signal aborts. */
+export function abortError(signal?: AbortSignal): Error {
+  const reason: unknown = signal?.reason;
+  if (reason instanceof Error && reason.name === 'AbortError') return reason;
+  const e = new Error('the run was cancelled');
+  e.name = 'AbortError';
+  return e;
+}
+
+export class WorkerPool<E> {
+  private readonly slots: Slot<E>[];
+  private queue: Job[] = [];
+  private closed = false;
+
+  /** size workers at most, started lazily as tasks arrive. */
+  constructor(private readonly spawn: SpawnEngine<E>, size: number) {
+    if (!(Number.isInteger(size) && size >= 1)) throw new RangeError(`pool size must be a whole number >= 1, got ${size}`);
+    this.slots = Array.from({ length: size }, () => ({}));
+  }
+
+  get size(): number {
+    return this.slots.length;
+  }
+
+  /** Number of workers started so far. */
+  get started(): number {
+    return this.slots.filter((s) => s.handle).length;
+  }
+
+  /**
+   * Run every task; resolves with the results in task order, rejects with the first task
+   * error (the rest of the run is cancelled) or with an AbortError when signal aborts.
+   */
+  run<T, R>(tasks: readonly T[], exec: TaskRunner<E, T, R>, opts: RunOptions<T, R> = {}): Promise<R[]> {
+    if (this.closed) return Promise.reject(new Error('the worker pool is closed'));
+    return new Promise<R[]>((resolve, reject) => {
+      const units = opts.units;
+      const run: RunState = {
+        tasks, exec: exec as TaskRunner<unknown, unknown, unknown>, opts: opts as RunOptions<unknown, unknown>,
+        results: new Array(tasks.length), left: tasks.length, done: 0,
+        total: units ? tasks.reduce((a, t) => a + units(t), 0) : tasks.length,
+        finished: false, resolve: resolve as (r: unknown[]) => void, reject,
+      };
+      const signal = opts.signal;
+      if (signal?.aborted) return reject(abortError(signal));
+      if (tasks.length === 0) return resolve([]);
+      signal?.addEventListener('abort', () => this.cancel(run, abortError(signal)), { once: true });
+      for (let i = 0; i < tasks.length; i++) this.queue.push({ run, taskIndex: i });
+      this.pump();
+    });
+  }
+
+  /** Warm up: start every worker now and wait until each answers `probe`. */
+  async warm(probe: (remote: Remote<E>) => Promise<unknown>): Promise<void> {
+    await Promise.all(this.slots.map((s) => probe(this.handleOf(s).remote)));
+  }
+
+  /** Terminate every worker; queued and running tasks reject. */
+  close(): void {
+    this.closed = true;
+    const err = new Error('the worker pool was closed');
+    for (const job of this.queue) this.finish(job.run, err);
+    this.queue = [];
+    for (const s of this.slots) {
+      if (s.job) this.finish(s.job.run, err);
+      s.handle?.terminate();
+      s.handle = undefined;
+      s.job = undefined;
+    }
+  }
+
+  private handleOf(slot: Slot<E>): EngineHandle<E> {
+    if (!slot.handle) slot.handle = this.spawn();
+    return slot.handle;
+  }
+
+  private pump(): void {
+    for (let i = 0; i < this.slots.length && this.queue.length > 0; i++) {
+      const slot = this.slots[i];
+      if (!slot.job) this.start(slot, i, this.queue.shift() as Job);
+    }
+  }
+
+  private start(slot: Slot<E>, slotIndex: number, job: Job): void {
+    slot.job = job;
+    const { run, taskIndex } = job;
+    const handle = this.handleOf(slot);
+    const task = run.tasks[taskIndex];
+    const call = run.exec(handle.remote as Remote<unknown>, task, taskIndex, slotIndex);
+    const settled = handle.failed
+      ? Promise.race([call, handle.failed.catch((e: unknown) => Promise.reject(new WorkerDied(e)))])
+      : call;
+    settled.then(
+      (result) => {
+        if (slot.job !== job) return; // cancelled meanwhile: the worker was terminated
+        slot.job = undefined;
+        if (!run.finished) {
+          run.results[taskIndex] = result;
+          run.done += run.opts.units ? run.opts.units(task) : 1;
+          run.opts.onResult?.(result, taskIndex, task);
+          run.opts.onProgress?.(run.done, run.total);
+          if (--run.left === 0) {
+            run.finished = true;
+            run.resolve(run.results);
+          }
+        }
+        this.pump();
+      },
+      (err: unknown) => {
+        if (slot.job !== job) return;
+        slot.job = undefined;
+        if (err instanceof WorkerDied) {
+          // a dead worker is replaced on the next task
+          handle.terminate();
+          if (slot.handle === handle) slot.handle = undefined;
+          err = err.cause;
+        }
+        this.cancel(run, err);
+        this.pump();
+      },
+    );
+  }
+
+  /** Stop a run: drop its queued tasks, terminate the workers busy on it, reject it. */
+  private cancel(run: RunState, err: unknown): void {
+    if (run.finished) return;
+    this.queue = this.queue.filter((j) => j.run !== run);
+    for (const s of this.slots) {
+      if (s.job?.run === run) {
+        s.job = undefined;
+        s.handle?.terminate();
+        s.handle = undefined;
+      }
+    }
+    this.finish(run, err);
+    this.pump();
+  }
+
+  private finish(run: RunState, err: unknown): void {
+    if (run.finished) return;
+    run.finished = true;
+    run.reject(err);
+  }
+}
