@@ -1,0 +1,105 @@
+/**
+ * The phase map: a heatmap of the phase at each grid point (or of a continuous quantity),
+ * region boundaries as a categorical contour, the fraction written on density-wave and
+ * supersolid regions, soft-mode lines as polylines, the cursor and the opened point as
+ * dots, axes with units and a legend. Built from marks only.
+ */
+import type { SolveResult } from '../../core/meanfield/ground-state.ts';
+import type { PhaseLabel } from '../../core/meanfield/state.ts';
+import { renderFigure } from '../plot/figure.ts';
+import { type Grid, heatmap, halfStep } from '../plot/heatmap.ts';
+import { categoryContour } from '../plot/contour.ts';
+import { axisX, axisY } from '../plot/axis.ts';
+import { legend, type LegendEntry } from '../plot/legend.ts';
+import { line } from '../plot/line.ts';
+import { dots } from '../plot/dot.ts';
+import { textLabels } from '../plot/text-label.ts';
+import type { Mark } from '../plot/frame.ts';
+import { phaseFill, phaseLegend, phaseTexture, textureDefs } from '../plot/phase-palette.ts';
+import { rampColour, rampLevel } from './sequential-ramp.ts';
+import { regionLabels } from './region-labels.ts';
+import type { RenderedFigure } from '../app/figure-panel.ts';
+
+export type MapShade = 'phase' | 'rho' | 'photon';
+
+export interface SoftLineOverlay { label: string; stroke: string; dash?: string; x: number[]; y: number[] }
+
+export interface PhaseMapInput {
+  grid: Grid;
+  /** State painting cell (ix, iy), or undefined while not computed. */
+  stateAt: (ix: number, iy: number) => SolveResult | undefined;
+  xLabel: string;
+  yLabel: string;
+  shade: MapShade;
+  lines: SoftLineOverlay[];
+  cursor?: [number, number] | null;
+  selected?: [number, number] | null;
+  width: number;
+  height: number;
+  title: string;
+}
+
+/** Category of a state: phase plus fraction, and a coexistence mark. */
+export function phaseKey(s: SolveResult | undefined): string | null {
+  if (!s) return null;
+  return `${s.phase}${s.fraction ? ' ' + s.fraction : ''}${s.coexistence ? ' mix' : ''}`;
+}
+
+/** The map figure. */
+export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
+  const id = 'atlas-map';
+  const g = o.grid;
+  const hx = halfStep(g.x[0], g.x[1], g.nx), hy = halfStep(g.y[0], g.y[1], g.ny);
+  const key = (i: number, j: number) => phaseKey(o.stateAt(i, j));
+  const present = new Set<PhaseLabel>();
+  let coexistence = false;
+  let lo = Infinity, hi = -Infinity;
+  const value = (s: SolveResult) => (o.shade === 'photon' ? s.photonDensity : s.excitationDensity);
+  for (let j = 0; j < g.ny; j++) for (let i = 0; i < g.nx; i++) {
+    const s = o.stateAt(i, j);
+    if (!s) continue;
+    present.add(s.phase);
+    if (s.coexistence) coexistence = true;
+    lo = Math.min(lo, value(s)); hi = Math.max(hi, value(s));
+  }
+  const marks: Mark[] = [];
+  if (o.shade === 'phase') {
+    marks.push(heatmap(g, (i, j) => {
+      const s = o.stateAt(i, j);
+      if (!s) return null;
+      return { key: phaseKey(s) as string, fill: phaseFill(s.phase, s.fraction), texture: phaseTexture(id, s.phase, !!s.coexistence) };
+    }));
+  } else {
+    marks.push(heatmap(g, (i, j) => {
+      const s = o.stateAt(i, j);
+      if (!s) return null;
+      const lev = rampLevel(value(s), lo, hi);
+      return { key: String(lev), fill: rampColour((lev + 0.5) / 24) };
+    }));
+  }
+  marks.push(categoryContour(g, key, { stroke: '#1d2430', width: 1 }));
+  // fraction labels where there is room for the text (about 9 px from the region's edge)
+  const cellPx = Math.min((o.width - 220) / g.nx, (o.height - 70) / g.ny);
+  const minDepth = Math.max(1, Math.ceil(9 / Math.max(cellPx, 1)));
+  const labels = regionLabels(g.nx, g.ny, key, (k) => k.startsWith('density-wave') || k.startsWith('supersolid'), minDepth);
+  const cx = (i: number) => (g.nx > 1 ? g.x[0] + (i * (g.x[1] - g.x[0])) / (g.nx - 1) : g.x[0]);
+  const cy = (j: number) => (g.ny > 1 ? g.y[0] + (j * (g.y[1] - g.y[0])) / (g.ny - 1) : g.y[0]);
+  marks.push(textLabels(labels.map((r) => ({ x: cx(r.ix), y: cy(r.iy), text: r.key.split(' ')[1] ?? '', size: 12 })), 'fraction-labels'));
+  for (const l of o.lines) marks.push(line(l.x, l.y, { stroke: l.stroke, width: 2.2, dash: l.dash, halo: '#ffffff' }));
+  if (o.selected) marks.push(dots([{ x: o.selected[0], y: o.selected[1], r: 6, fill: 'none', stroke: '#000000', strokeWidth: 2.5 }]));
+  if (o.cursor) marks.push(dots([{ x: o.cursor[0], y: o.cursor[1], r: 3.5, fill: '#ffffff', stroke: '#000000', strokeWidth: 1.5 }]));
+  marks.push(axisX({ label: o.xLabel }), axisY({ label: o.yLabel }));
+  const entries: LegendEntry[] = o.shade === 'phase'
+    ? phaseLegend(id, present, coexistence)
+    : [0, 0.25, 0.5, 0.75, 1].map((t) => ({
+      label: Number.isFinite(lo) ? (lo + t * (hi - lo)).toPrecision(3) : '', swatch: { kind: 'fill' as const, fill: rampColour(t) },
+    }));
+  for (const l of o.lines) entries.push({ label: l.label, swatch: { kind: 'line', stroke: l.stroke, dash: l.dash, width: 2.2 } });
+  marks.push(legend(entries, { title: o.shade === 'phase' ? 'Phase' : o.shade === 'photon' ? 'Photon density \u03b1\u00b2' : 'Excitation density \u03c1' }));
+  const { svg, frame } = renderFigure({
+    id, width: o.width, height: o.height, margin: { right: 190 },
+    x: [g.x[0] - hx, g.x[1] + hx], y: [g.y[0] - hy, g.y[1] + hy],
+    marks, defs: textureDefs, title: o.title,
+  });
+  return { svg, frame, name: 'phase-map', title: o.title };
+}

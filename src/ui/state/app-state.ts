@@ -1,0 +1,56 @@
+/**
+ * The whole state of the page as plain strings, exactly as typed (so an invalid entry
+ * survives a reload and the URL shows what the user wrote). Model keys are the command
+ * line's flag names, so the URL, the form and "copy as command" speak one language.
+ * The defaults are the demo scenario: invented for this tool, not taken from any
+ * experiment or publication.
+ */
+
+export const VIEWS = ['atlas', 'staircase', 'modes', 'correlated', 'planner'] as const;
+export type ViewName = (typeof VIEWS)[number];
+
+export const MODEL_KEYS = [
+  'lattice', 'interaction', 'strength', 'rb', 'v1', 'v2', 'v0', 'rc', 'range',
+  'detuning', 'pump', 'mu', 'density', 'temperature', 'max-cell',
+] as const;
+export type ModelKey = (typeof MODEL_KEYS)[number];
+export type ModelInputs = Record<ModelKey, string>;
+
+export interface AppState {
+  view: ViewName;
+  model: ModelInputs;
+  atlas: { x: string; y: string; lines: string; shade: string; point: string };
+  staircase: { mu: string; compare: string };
+  modes: { points: string; cell: string };
+  correlated: { method: string; size: string; alpha: string; seed: string; steps: string; samples: string; sites: string };
+  planner: {
+    c6: string; spacing: string; coupling: string; g0: string; emitters: string; splitting: string;
+    detuning: string; mu: string; temperature: string; tunit: string;
+  };
+}
+
+export type SectionName = Exclude<keyof AppState, 'view'>;
+
+/** The demo scenario (invented): a van der Waals chain with the cavity detuned above the line. */
+export function demoState(): AppState {
+  return {
+    view: 'atlas',
+    model: {
+      lattice: 'chain', interaction: 'vdw', strength: 'rb', rb: '1.5', v1: '1', v2: '0', v0: '4', rc: '1.5',
+      range: '', detuning: '3', pump: 'mu', mu: '1', density: '0.3', temperature: '0', 'max-cell': '12',
+    },
+    atlas: { x: 'mu=-1:2.9:64', y: 'rb=0.8:2.4:40', lines: 'vdw:inf', shade: 'phase', point: '' },
+    staircase: { mu: '-1:2.9:400', compare: 'vdw:1' },
+    modes: { points: '96', cell: '' },
+    correlated: { method: 'ed', size: '10', alpha: '', seed: '7', steps: '60', samples: '4000', sites: '' },
+    planner: {
+      c6: '140', spacing: '4', coupling: 'single', g0: '0.5', emitters: '200', splitting: '',
+      detuning: '21', mu: '7', temperature: '0', tunit: 'uK',
+    },
+  };
+}
+
+/** A deep copy (states are small plain objects of strings). */
+export function cloneState(s: AppState): AppState {
+  return JSON.parse(JSON.stringify(s)) as AppState;
+}

@@ -1,0 +1,8 @@
+/** <array-planner-view>: under construction. */
+import { LitElement, html } from 'lit';
+
+export class ArrayPlannerView extends LitElement {
+  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false } };
+  override render() { return html`<p>Under construction.</p>`; }
+}
+customElements.define('array-planner-view', ArrayPlannerView);

@@ -1,0 +1,8 @@
+/** <correlated-view>: under construction. */
+import { LitElement, html } from 'lit';
+
+export class CorrelatedView extends LitElement {
+  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false } };
+  override render() { return html`<p>Under construction.</p>`; }
+}
+customElements.define('correlated-view', CorrelatedView);

@@ -1,0 +1,225 @@
+/**
+ * <phase-atlas-view>: the phase map over any two parameters, computed coarse to fine in
+ * the scan workers with a progress bar and cancel; the phase (or a density) under the
+ * cursor; a click (or Enter) opens the point. Soft-mode lines for the ticked interaction
+ * ranges are drawn over the map (soft-mode-lines.ts).
+ */
+import { LitElement, html, css, nothing } from 'lit';
+import type { ParsedModel } from '../model/model-inputs.ts';
+import type { AppState, ModelInputs } from '../state/app-state.ts';
+import { AXIS_NAMES, type AxisName, parseAxis, type Axis } from '../../core/scan/axes.ts';
+import { checkAxes } from '../../core/scan/grid.ts';
+import { InputError } from '../../core/input-error.ts';
+import type { EngineClient } from '../engine/engine-client.ts';
+import { MapScanController, SCAN_SEED, type MapGrid } from '../controllers/map-scan.ts';
+import { pointSeed } from '../../core/scan/grid.ts';
+import { phaseMapFigure, type MapShade } from '../figures/phase-map-figure.ts';
+import { AXIS_LABELS, AXIS_SYMBOLS } from '../model/axis-labels.ts';
+import { PHASE_NAMES } from '../plot/phase-palette.ts';
+import { sharedStyles } from '../app/shared-styles.ts';
+import { cliLine, modelFlags } from '../export/cli-command.ts';
+import type { Table } from '../export/table.ts';
+import { SoftLinesController, SOFT_RANGES } from '../controllers/soft-lines.ts';
+import '../app/figure-panel.ts';
+import '../app/data-export.ts';
+import '../app/limits-note.ts';
+import './point-detail.ts';
+
+type AtlasSection = AppState['atlas'];
+
+const fmt = (v: number) => Number(v.toPrecision(4)).toString();
+
+export class PhaseAtlasView extends LitElement {
+  static override properties = {
+    section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false },
+    hover: { state: true }, width: { state: true },
+  };
+  declare section: AtlasSection;
+  declare model: ParsedModel;
+  declare inputs: ModelInputs;
+  declare engine: EngineClient;
+  declare hover: [number, number] | null;
+  declare width: number;
+  private scan = new MapScanController(this, () => this.engine);
+  private soft = new SoftLinesController(this, () => this.engine);
+  private axisErrors: { x?: string; y?: string } = {};
+  private resize = new ResizeObserver((e) => { this.width = Math.round(e[0].contentRect.width); });
+
+  constructor() {
+    super();
+    this.hover = null;
+    this.width = 900;
+  }
+
+  static override styles = [sharedStyles, css`
+    :host { display: block; }
+    .controls { display: flex; flex-wrap: wrap; gap: 10px 18px; align-items: flex-end; margin-bottom: 8px; }
+    .axis { display: flex; flex-direction: column; gap: 2px; }
+    .axis .pair { display: flex; gap: 4px; }
+    .axis input { width: 140px; }
+    fieldset.lines { border: 1px solid var(--line); border-radius: 6px; padding: 2px 8px 4px; margin: 0; }
+    fieldset.lines label { margin-right: 8px; font-size: 13px; white-space: nowrap; }
+    .status { display: flex; gap: 10px; align-items: center; margin: 4px 0; min-height: 28px; flex-wrap: wrap; }
+    progress { width: 220px; height: 14px; }
+    .readout { font-family: 'DejaVu Sans Mono', monospace; font-size: 13px; min-height: 20px; padding: 3px 6px; background: #f1f3f6; border-radius: 4px; }
+  `];
+
+  override connectedCallback() {
+    super.connectedCallback();
+    this.resize.observe(this);
+  }
+
+  override disconnectedCallback() {
+    super.disconnectedCallback();
+    this.resize.disconnect();
+  }
+
+  private patch(p: Partial<AtlasSection>) {
+    this.dispatchEvent(new CustomEvent('section-change', { detail: { section: 'atlas', patch: p }, bubbles: true, composed: true }));
+  }
+
+  /** The axes as typed, or null with the reasons kept in axisErrors. */
+  private axes(): { x: Axis; y: Axis } | null {
+    this.axisErrors = {};
+    let x: Axis | undefined, y: Axis | undefined;
+    try { x = parseAxis(this.section.x, 'x'); } catch (e) { this.axisErrors.x = (e as Error).message; }
+    try { y = parseAxis(this.section.y, 'y'); } catch (e) { this.axisErrors.y = (e as Error).message; }
+    if (!x || !y) return null;
+    try {
+      checkAxes(x, y);
+      if (x.count * y.count > 250_000) throw new InputError('more than 250 000 points: use the command line (copy as command) for a map this big', 'y');
+    } catch (e) { this.axisErrors.y = (e as Error).message; return null; }
+    return { x, y };
+  }
+
+  override willUpdate() {
+    const axes = this.axes();
+    if (!axes || !this.model.params || !this.engine) return; // invalid: the last map stays
+    const plan = { base: this.model.params, x: axes.x, y: axes.y };
+    this.scan.run(plan, JSON.stringify(plan));
+    this.soft.update(this.model.params, axes.x, axes.y, this.section.lines);
+  }
+
+  /** Grid cell nearest to data point (x, y). */
+  private cellAt(g: MapGrid, x: number, y: number): [number, number] {
+    const { x: ax, y: ay } = g.plan;
+    const ix = Math.round(((x - ax.start) / (ax.stop - ax.start || 1)) * (ax.count - 1));
+    const iy = Math.round(((y - ay.start) / (ay.stop - ay.start || 1)) * (ay.count - 1));
+    return [Math.min(ax.count - 1, Math.max(0, ix)), Math.min(ay.count - 1, Math.max(0, iy))];
+  }
+
+  private readout(g: MapGrid) {
+    if (!this.hover) return html`<span class="muted">Move the pointer over the map (or focus it and use the arrow keys).</span>`;
+    const [ix, iy] = this.cellAt(g, this.hover[0], this.hover[1]);
+    const s = g.paint(ix, iy);
+    const own = g.own(ix, iy);
+    const xv = g.plan.x.values[ix], yv = g.plan.y.values[iy];
+    const where = `${AXIS_SYMBOLS[g.plan.x.name]} = ${fmt(xv)}, ${AXIS_SYMBOLS[g.plan.y.name]} = ${fmt(yv)}`;
+    if (!s) return html`${where}: not computed yet`;
+    return html`${where}: <strong class="readout-phase">${PHASE_NAMES[s.phase]}${s.fraction ? ' ' + s.fraction : ''}</strong>,
+      \u03c1 = ${fmt(s.excitationDensity)}, \u03b1\u00b2 = ${fmt(s.photonDensity)}, M = ${s.cellSize}${own ? '' : ' (coarse preview)'}`;
+  }
+
+  private table(g: MapGrid): Table {
+    const xn = g.plan.x.name, yn = g.plan.y.name;
+    const rows: Table['rows'] = [];
+    for (let iy = 0; iy < g.ny; iy++) for (let ix = 0; ix < g.nx; ix++) {
+      const s = g.own(ix, iy);
+      if (!s) continue;
+      rows.push([g.plan.x.values[ix], g.plan.y.values[iy], s.phase, s.fraction ?? '', s.cellSize, s.mu, s.alpha,
+        s.photonDensity, s.emitterDensity, s.excitationDensity, s.grandPotential]);
+    }
+    return { columns: [xn, yn, 'phase', 'fraction', 'cellSize', 'mu', 'alpha', 'photonDensity', 'emitterDensity', 'excitationDensity', 'grandPotential'], rows };
+  }
+
+  private axisControl(which: 'x' | 'y') {
+    const text = this.section[which];
+    const eq = text.indexOf('=');
+    const name = eq >= 0 ? text.slice(0, eq) : 'mu', range = eq >= 0 ? text.slice(eq + 1) : text;
+    const err = this.axisErrors[which];
+    return html`<div class="axis">
+      <label for="ax-${which}-name">${which === 'x' ? 'Horizontal' : 'Vertical'} axis</label>
+      <div class="pair">
+        <select id="ax-${which}-name" name="axis-${which}" @change=${(e: Event) => this.patch({ [which]: `${(e.target as HTMLSelectElement).value}=${range}` })}>
+          ${AXIS_NAMES.map((n) => html`<option value=${n} ?selected=${n === name}>${AXIS_LABELS[n]}</option>`)}
+        </select>
+        <input id="ax-${which}-range" name="range-${which}" aria-label="${which} range start:stop:count" .value=${range}
+          aria-invalid=${err ? 'true' : 'false'} aria-describedby="ax-${which}-msg"
+          @input=${(e: Event) => this.patch({ [which]: `${name}=${(e.target as HTMLInputElement).value}` })}>
+      </div>
+      <div class="err" id="ax-${which}-msg" role=${err ? 'alert' : nothing}>${err ?? ''}</div>
+    </div>`;
+  }
+
+  private toggleLine(r: string, on: boolean) {
+    const set = new Set(this.section.lines.split(',').filter(Boolean));
+    if (on) set.add(r); else set.delete(r);
+    this.patch({ lines: SOFT_RANGES.map((x) => x.key).filter((k) => set.has(k)).join(',') });
+  }
+
+  override render() {
+    const g = this.scan.shown;
+    const running = this.scan.status === 'running';
+    const ticked = new Set(this.section.lines.split(',').filter(Boolean));
+    const sel = this.section.point ? this.section.point.split(',').map(Number) as [number, number] : null;
+    const w = Math.max(320, Math.min(this.width, 1100));
+    const fig = g ? phaseMapFigure({
+      grid: { nx: g.nx, ny: g.ny, x: [g.plan.x.start, g.plan.x.stop], y: [g.plan.y.start, g.plan.y.stop] },
+      stateAt: (i, j) => g.paint(i, j), xLabel: AXIS_LABELS[g.plan.x.name], yLabel: AXIS_LABELS[g.plan.y.name],
+      shade: this.section.shade as MapShade, lines: this.soft.overlays(), cursor: this.hover, selected: sel,
+      width: w, height: Math.round(Math.min(560, Math.max(300, w * 0.56))),
+      title: `Phase map over ${AXIS_SYMBOLS[g.plan.x.name]} and ${AXIS_SYMBOLS[g.plan.y.name]}`,
+    }) : null;
+    const cmdAxes = g ? [g.plan.x.name, g.plan.y.name] : [];
+    const table = g ? this.table(g) : null;
+    const command = cliLine('map', [...modelFlags(this.inputs, cmdAxes), '--x', this.section.x, '--y', this.section.y]);
+    const selParams = g && sel ? (() => { const [ix, iy] = this.cellAt(g, sel[0], sel[1]); return { p: g.point(ix, iy), seed: pointSeed(SCAN_SEED, iy * g.nx + ix) }; })() : null;
+    return html`
+      <div class="controls">
+        ${this.axisControl('x')} ${this.axisControl('y')}
+        <div class="axis"><label for="shade">Colour by</label>
+          <select id="shade" name="shade" @change=${(e: Event) => this.patch({ shade: (e.target as HTMLSelectElement).value })}>
+            ${[['phase', 'phase'], ['rho', 'excitation density \u03c1'], ['photon', 'photon density \u03b1\u00b2']].map(([v, t]) =>
+              html`<option value=${v} ?selected=${v === this.section.shade}>${t}</option>`)}
+          </select></div>
+        <fieldset class="lines"><legend>Soft-mode lines for interaction range</legend>
+          ${SOFT_RANGES.map((r) => html`<label><input type="checkbox" name="line-${r.key}" .checked=${ticked.has(r.key)}
+            @change=${(e: Event) => this.toggleLine(r.key, (e.target as HTMLInputElement).checked)}> ${r.label}</label>`)}
+          <span class="muted soft-status">${this.soft.status}</span>
+        </fieldset>
+      </div>
+      <div class="status" aria-live="polite">
+        <progress max="1" .value=${this.scan.progress} aria-label="Map progress"></progress>
+        <span class="progress-text">${this.scan.current ? `${this.scan.current.count} / ${this.scan.current.nx * this.scan.current.ny} points` : ''}
+          on ${this.engine?.workers ?? 0} workers${this.scan.status === 'done' && this.scan.totalMs ? ` in ${(this.scan.totalMs / 1000).toFixed(1)} s` : ''}
+          ${this.scan.status === 'cancelled' ? ' (cancelled)' : ''}</span>
+        ${running ? html`<button class="cancel" @click=${() => this.scan.cancel()}>Cancel</button>` : nothing}
+        ${!running && this.scan.status === 'cancelled' ? html`<button @click=${() => { if (this.scan.current) this.scan.run(this.scan.current.plan, this.scan.current.key + ' again'); }}>Resume (recompute)</button>` : nothing}
+        ${this.scan.error ? html`<span class="err" role="alert">${this.scan.error}</span>` : nothing}
+        ${!this.model.params ? html`<span class="err stale">The model has an invalid entry: showing the last good map.</span>` : nothing}
+      </div>
+      <figure-panel class="map" interactive .figure=${fig} ?busy=${running}
+        .keyStep=${g ? [(g.plan.x.stop - g.plan.x.start) / Math.max(1, g.nx - 1), (g.plan.y.stop - g.plan.y.start) / Math.max(1, g.ny - 1)] : null}
+        @plot-hover=${(e: CustomEvent) => { this.hover = [e.detail.x, e.detail.y]; }}
+        @plot-leave=${() => { this.hover = null; }}
+        @plot-select=${(e: CustomEvent) => { if (g) { const [ix, iy] = this.cellAt(g, e.detail.x, e.detail.y); this.patch({ point: `${g.plan.x.values[ix]},${g.plan.y.values[iy]}` }); } }}>
+      </figure-panel>
+      <div class="readout" aria-live="polite" aria-label="Readout under the cursor">${g ? this.readout(g) : 'Waiting for the first points\u2026'}</div>
+      <limits-note lattice=${this.model.params?.lattice ?? this.inputs.lattice} temperature=${this.model.params?.T ?? 0}></limits-note>
+      ${table ? html`<data-export .table=${table} .json=${{ plan: g!.plan, seed: SCAN_SEED, columns: table.columns, rows: table.rows }} name="phase-map" .command=${command}></data-export>` : nothing}
+      ${selParams && sel ? html`<point-detail .params=${selParams.p} .seed=${selParams.seed} .engine=${this.engine} .width=${w}
+          label="${AXIS_SYMBOLS[g!.plan.x.name]} = ${fmt(sel[0])}, ${AXIS_SYMBOLS[g!.plan.y.name]} = ${fmt(sel[1])}"
+          .command=${cliLine('solve', [...modelFlags(this.inputs, cmdAxes), ...axisFlags(g!.plan.x.name, sel[0]), ...axisFlags(g!.plan.y.name, sel[1]), '--seed', String(selParams.seed), '--json'])}
+          @point-close=${() => this.patch({ point: '' })}></point-detail>` : nothing}
+    `;
+  }
+}
+
+/** CLI flags that set one axis parameter to a value. */
+function axisFlags(name: AxisName, v: number): string[] {
+  return [`--${name}`, String(v)];
+}
+
+customElements.define('phase-atlas-view', PhaseAtlasView);
+
+declare global { interface HTMLElementTagNameMap { 'phase-atlas-view': PhaseAtlasView } }

@@ -1,0 +1,81 @@
+/**
+ * <point-detail>: one point of the map opened: its sublattice pattern drawn on the
+ * lattice, its numbers, and its fluctuation spectrum. The state is solved again on the
+ * interactive worker with the map's seed for the point (the same answer as the map,
+ * available before the map reaches it), the spectrum computed about it.
+ */
+import { LitElement, html, css, nothing } from 'lit';
+import type { ModelParams } from '../../core/model.ts';
+import type { SolveResult } from '../../core/meanfield/ground-state.ts';
+import type { EngineClient } from '../engine/engine-client.ts';
+import { EngineTask } from '../controllers/engine-task.ts';
+import { sharedStyles } from '../app/shared-styles.ts';
+import { patternFigure } from '../figures/pattern-figure.ts';
+import { stateRows, sublatticeTable } from './state-numbers.ts';
+import '../app/figure-panel.ts';
+import '../app/data-export.ts';
+import { PHASE_NAMES } from '../plot/phase-palette.ts';
+
+export class PointDetail extends LitElement {
+  static override properties = {
+    params: { attribute: false }, seed: { type: Number }, label: { type: String }, engine: { attribute: false },
+    width: { type: Number }, command: { type: String },
+  };
+  declare params: ModelParams | null;
+  declare seed: number;
+  declare label: string;
+  declare engine: EngineClient;
+  declare width: number;
+  declare command: string;
+  private task = new EngineTask<SolveResult>(this);
+
+  constructor() {
+    super();
+    this.params = null;
+    this.seed = 1;
+    this.label = '';
+    this.width = 560;
+    this.command = '';
+  }
+
+  static override styles = [sharedStyles, css`
+    :host { display: block; border: 1px solid var(--line); border-radius: 6px; padding: 8px 12px; background: var(--panel); }
+    .cols { display: grid; grid-template-columns: minmax(0, 3fr) minmax(240px, 2fr); gap: 12px; }
+    @media (max-width: 900px) { .cols { grid-template-columns: 1fr; } }
+    header { display: flex; justify-content: space-between; align-items: baseline; gap: 8px; }
+  `];
+
+  override willUpdate(changed: Map<string, unknown>) {
+    if ((changed.has('params') || changed.has('seed')) && this.params && this.engine) {
+      const req = { params: this.params, seed: this.seed };
+      this.task.run(JSON.stringify(req), (signal) => this.engine.call((r) => r.meanfield.solve(req), signal));
+    }
+  }
+
+  private close() {
+    this.dispatchEvent(new CustomEvent('point-close', { bubbles: true, composed: true }));
+  }
+
+  override render() {
+    const s = this.task.value;
+    const lat = this.params?.lattice ?? 'chain';
+    return html`<section aria-label="Opened point" aria-busy=${this.task.status === 'pending' ? 'true' : 'false'}>
+      <header><h3>Point ${this.label}${s ? html`: <span class="phase-name">${PHASE_NAMES[s.phase]}${s.fraction ? ' ' + s.fraction : ''}</span>` : nothing}</h3>
+        <button @click=${this.close} aria-label="Close the opened point">Close</button></header>
+      ${this.task.error ? html`<p class="err" role="alert">${this.task.error}</p>` : nothing}
+      ${s ? html`<div class="cols">
+          <figure-panel class="pattern" .figure=${patternFigure(lat, s, Math.max(380, this.width * 0.58), lat === 'chain' ? 220 : 340)}></figure-panel>
+          <div>
+            <table aria-label="Numbers of the opened point"><tbody>
+              ${stateRows(s).map(([k, v, u]) => html`<tr><th class="l" scope="row">${k}</th><td>${v}</td><td class="l muted">${u}</td></tr>`)}
+            </tbody></table>
+            <data-export .table=${sublatticeTable(s)} .json=${s} name="point" .command=${this.command}></data-export>
+          </div>
+        </div>` : html`<p class="muted">Solving\u2026</p>`}
+      <slot></slot>
+    </section>`;
+  }
+}
+customElements.define('point-detail', PointDetail);
+
+declare global { interface HTMLElementTagNameMap { 'point-detail': PointDetail } }
