@@ -14,7 +14,7 @@ import { cellCouplings } from './coupling-cache.ts';
 import { type CellSolution, solveCell } from './sublattice.ts';
 import { type Start, cellStarts } from './starts.ts';
 import { classifyPhase, type PhaseTolerances } from './phase.ts';
-import { reduceToPrimitive } from './pattern.ts';
+import { isPrimitive, reduceToPrimitive, sameUpToTranslation } from './pattern.ts';
 import type { MeanFieldState } from './state.ts';
 
 export interface SearchOptions {
@@ -70,12 +70,24 @@ export function cellCandidates(ctx: Context, cell: Supercell, mu: number, o: Sea
     starts.unshift({ kind: 'guess', m: Float64Array.from(g.sublatticeDensities) });
   }
   const out: Candidate[] = [];
+  // A start is abandoned once its iterate has a smaller period (that solution belongs to a
+  // smaller cell, searched there) or comes within DUPLICATE of a solution already found here.
+  const abandon = cell.M === 1 ? undefined : (m: Float64Array) => {
+    if (!isPrimitive(cell, [m], SYMMETRIC)) return true;
+    for (const c of out) if (sameUpToTranslation(cell, c.sol.m, m, DUPLICATE)) return true;
+    return false;
+  };
   for (const s of starts) {
-    const sol = solveCell(prob, s.m);
-    if (sol.converged) out.push({ cell, start: s.kind, sol });
+    const sol = solveCell(prob, s.m, { abandon });
+    if (sol.converged && (cell.M === 1 || isPrimitive(cell, [sol.m], SYMMETRIC))) out.push({ cell, start: s.kind, sol });
   }
   return out;
 }
+
+/** Iterates equal to this under a translation are treated as having the smaller period. */
+const SYMMETRIC = 1e-9;
+/** Iterates this close (max |dm|, up to translation) to a found solution are duplicates. */
+const DUPLICATE = 1e-5;
 
 /** Lowest-Omega converged solution in one given cell, or null if no start converged. */
 export function solveInCell(p: ModelParams, cell: Supercell | { a: number; b: number; c: number }, o: SearchOptions = {}): Candidate | null {

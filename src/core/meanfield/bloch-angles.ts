@@ -1,0 +1,187 @@
+/**
+ * T = 0 sublattice mean-field as a minimisation over Bloch angles. A pure product state
+ * has on sublattice s the Bloch vector (sin theta_s, 0, -cos theta_s) up to the sign of
+ * sigma^x, so m_s = (1 - cos theta_s)/2 and <sigma^x>_s = -sin theta_s; with the photon
+ * eliminated (alpha = mean sin theta / (2 (delta - mu)) minimises (delta-mu) alpha^2 +
+ * alpha mean <sigma^x>) the energy per site is
+ *
+ *   Phi(theta) = -mu mean m + (1/(2M)) m.J.m - (mean sin theta)^2 / (4 (delta - mu)),
+ *
+ *   dPhi/dtheta_s = (1/M) [xi_s sin theta_s / 2 - alpha cos theta_s],
+ *   d2Phi/dtheta_s dtheta_t = (1/M) [J_st sin_s sin_t / 4 - cos_s cos_t / (2 M (delta-mu))
+ *                              + delta_st (xi_s cos_s / 2 + alpha sin_s)].
+ *
+ * Its stationary points are the T = 0 mean-field equations (tan theta_s = 2 alpha / xi_s)
+ * and Phi = Omega there. Phi is smooth in theta everywhere, unlike the fixed-point map in m
+ * (a step function at alpha = 0), so Newton with a Levenberg shift where the Hessian is not
+ * positive definite and an Armijo line search converges to a local minimum from any start.
+ * An integer pattern is accepted at once when it is a local minimum: every occupied
+ * sublattice has xi_s < 0, every empty one xi_s > 0, and mean_s 1/|xi_s| < delta - mu
+ * (the Hessian at alpha = 0 is then positive definite: the photon stays uncondensed).
+ */
+import { cholesky, choleskySolve } from './dense-solve.ts';
+import type { CellProblem, SolveCellOptions } from './sublattice.ts';
+
+/** Converged angles' observables. */
+export interface AngleResult {
+  m: Float64Array; sx: Float64Array; xi: Float64Array; alpha: number;
+  converged: boolean; iterations: number; step: number;
+}
+
+/** Offset of the angles from 0 or pi when an unstable integer pattern is the start. */
+const KICK = 1e-3;
+/** Largest change of any angle in one step (radians). */
+const MAX_TURN = 1;
+
+function hartree(p: CellProblem, m: ArrayLike<number>, xi: Float64Array): void {
+  const M = p.M;
+  for (let s = 0; s < M; s++) {
+    let v = -p.mu;
+    for (let u = 0; u < M; u++) v += p.J[s * M + u] * m[u];
+    xi[s] = v;
+  }
+}
+
+/** Whether the integer pattern n is a local minimum at alpha = 0 (see the module note). */
+function classicalStable(p: CellProblem, n: ArrayLike<number>, xi: Float64Array): boolean {
+  hartree(p, n, xi);
+  let inv = 0;
+  for (let s = 0; s < p.M; s++) {
+    if (n[s] ? !(xi[s] < 0) : !(xi[s] > 0)) return false;
+    inv += 1 / Math.abs(xi[s]);
+  }
+  return inv / p.M < p.delta - p.mu;
+}
+
+/**
+ * Single-sublattice flips of an integer pattern while one lowers the energy: flipping s
+ * changes M e by (1 - 2 n_s) xi_s + J_ss/2; the most favourable flip first, so the energy
+ * falls strictly and the walk ends at a pattern no single flip improves.
+ */
+function classicalDescent(p: CellProblem, n0: ArrayLike<number>): Float64Array {
+  const M = p.M, n = Float64Array.from(n0), xi = new Float64Array(M);
+  hartree(p, n, xi);
+  for (let k = 0; k < 4 * M * M; k++) {
+    let best = -1, gain = -1e-12 * (1 + Math.abs(p.mu));
+    for (let s = 0; s < M; s++) {
+      const dE = (1 - 2 * n[s]) * xi[s] + p.J[s * M + s] / 2;
+      if (dE < gain) { gain = dE; best = s; }
+    }
+    if (best < 0) break;
+    const sign = n[best] ? -1 : 1;
+    n[best] = 1 - n[best];
+    for (let s = 0; s < M; s++) xi[s] += sign * p.J[s * M + best];
+  }
+  return n;
+}
+
+/**
+ * Near a saddle the gradient can lie in a symmetric subspace that Newton steps never leave
+ * (a uniform state in a 2-site cell, say). Add the direction of most negative curvature,
+ * found by inverse iteration with the shifted factor L from a vector with no symmetry,
+ * signed downhill, to the step d (both scaled to unit max-norm).
+ */
+function addNegativeCurvature(L: Float64Array, M: number, grad: Float64Array, d: Float64Array, v: Float64Array): void {
+  for (let s = 0; s < M; s++) v[s] = 1 + 0.5 * Math.sin(1.3 * s + 0.7);
+  for (let k = 0; k < 6; k++) {
+    choleskySolve(L, M, v);
+    let n = 0;
+    for (let s = 0; s < M; s++) n = Math.max(n, Math.abs(v[s]));
+    for (let s = 0; s < M; s++) v[s] /= n;
+  }
+  let gv = 0, dn = 0;
+  for (let s = 0; s < M; s++) { gv += grad[s] * v[s]; dn = Math.max(dn, Math.abs(d[s])); }
+  const sign = gv > 0 ? -1 : 1;
+  for (let s = 0; s < M; s++) d[s] = (dn > 0 ? d[s] / dn : 0) + sign * v[s];
+}
+
+/** Phi and its pieces at theta (m, sin, cos, xi into the work arrays); returns Phi. */
+function energy(p: CellProblem, th: Float64Array, m: Float64Array, sn: Float64Array, cs: Float64Array, xi: Float64Array): number {
+  const M = p.M, dmu = p.delta - p.mu;
+  let X = 0;
+  for (let s = 0; s < M; s++) {
+    cs[s] = Math.cos(th[s]); sn[s] = Math.sin(th[s]);
+    m[s] = (1 - cs[s]) / 2; X += sn[s];
+  }
+  X /= M;
+  hartree(p, m, xi);
+  let e = 0;
+  for (let s = 0; s < M; s++) e += m[s] * (xi[s] - p.mu);
+  return e / (2 * M) - (X * X) / (4 * dmu);
+}
+
+/** Newton minimisation of Phi(theta) from the start m0 (T = 0 only). */
+export function solveAngles(p: CellProblem, m0: ArrayLike<number>, opts: SolveCellOptions = {}): AngleResult {
+  const M = p.M, tol = opts.tol ?? 1e-12, maxIter = opts.maxIter ?? 100, dmu = p.delta - p.mu;
+  const f = () => new Float64Array(M);
+  const xi = f();
+  let integer = true;
+  for (let s = 0; s < M; s++) if (m0[s] !== 0 && m0[s] !== 1) integer = false;
+  if (integer) {
+    const n = classicalDescent(p, m0);
+    if (classicalStable(p, n, xi)) return { m: n, sx: f(), xi, alpha: 0, converged: true, iterations: 0, step: 0 };
+    m0 = n;
+  }
+  const th = Float64Array.from(m0, (v) => {
+    const t = Math.acos(Math.min(1, Math.max(-1, 1 - 2 * v)));
+    return Math.min(Math.PI - KICK, Math.max(KICK, t));
+  });
+  const m = f(), sn = f(), cs = f(), grad = f(), d = f();
+  const tm = f(), tsn = f(), tcs = f(), txi = f(), tth = f();
+  const H = new Float64Array(M * M), L = new Float64Array(M * M), v = f();
+  let phi = energy(p, th, m, sn, cs, xi);
+  let converged = false, it = 0, step = Infinity;
+  for (it = 1; it <= maxIter; it++) {
+    let X = 0;
+    for (let s = 0; s < M; s++) X += sn[s];
+    const alpha = X / M / (2 * dmu);
+    let diagMax = 0;
+    for (let s = 0; s < M; s++) {
+      grad[s] = (xi[s] * sn[s] / 2 - alpha * cs[s]) / M;
+      for (let t = 0; t < M; t++) {
+        H[s * M + t] = (p.J[s * M + t] * sn[s] * sn[t] / 4 - cs[s] * cs[t] / (2 * M * dmu)) / M;
+      }
+      H[s * M + s] += (xi[s] * cs[s] / 2 + alpha * sn[s]) / M;
+      diagMax = Math.max(diagMax, Math.abs(H[s * M + s]));
+    }
+    // Levenberg shift: none where H is positive definite, else twice the least that makes it so.
+    let shift = 0;
+    if (!cholesky(H, M, 0, L)) {
+      shift = 1e-8 * (diagMax + 1e-300);
+      while (!cholesky(H, M, shift, L)) shift *= 4;
+      cholesky(H, M, 2 * shift, L);
+    }
+    for (let s = 0; s < M; s++) d[s] = -grad[s];
+    choleskySolve(L, M, d);
+    if (shift > 0) addNegativeCurvature(L, M, grad, d, v);
+    // Trust region: no angle moves by more than MAX_TURN in one step. Where the Hessian is
+    // not positive definite (near a saddle or a maximum) the shifted step points along the
+    // negative curvature and is stretched to the full trust radius (the line search trims it).
+    let dMax = 0;
+    for (let s = 0; s < M; s++) dMax = Math.max(dMax, Math.abs(d[s]));
+    if (dMax > MAX_TURN || (shift > 0 && dMax > 0)) for (let s = 0; s < M; s++) d[s] *= MAX_TURN / dMax;
+    let g = 0;
+    for (let s = 0; s < M; s++) g += grad[s] * d[s];
+    const slack = 1e-14 * (1 + Math.abs(phi));
+    let lambda = 1, ok = false, tphi = phi;
+    for (let bt = 0; bt < 40; bt++) {
+      for (let s = 0; s < M; s++) tth[s] = th[s] + lambda * d[s];
+      tphi = energy(p, tth, tm, tsn, tcs, txi);
+      if (tphi <= phi + 1e-4 * lambda * g + slack) { ok = true; break; }
+      lambda /= 2;
+    }
+    if (!ok) break;
+    step = 0;
+    for (let s = 0; s < M; s++) step = Math.max(step, Math.abs(tm[s] - m[s]));
+    th.set(tth); m.set(tm); sn.set(tsn); cs.set(tcs); xi.set(txi); phi = tphi;
+    opts.trace?.(m, alpha, phi, lambda);
+    if (step < tol && lambda === 1) { converged = true; break; }
+    if (opts.abandon?.(m, it)) break;
+  }
+  let X = 0;
+  for (let s = 0; s < M; s++) X += sn[s];
+  const alphaSigned = X / M / (2 * dmu);
+  const sign = alphaSigned < 0 ? -1 : 1;
+  const sx = Float64Array.from(sn, (v) => -sign * v);
+  return { m, sx, xi, alpha: Math.abs(alphaSigned), converged, iterations: Math.min(it, maxIter), step };
+}
