@@ -17,6 +17,8 @@ export interface CliIo {
   /** Is stderr a terminal (progress bar) and how wide. */
   stderrIsTTY: boolean;
   stderrColumns: number;
+  /** When stderr is not a terminal: seconds between plain progress lines (undefined: none). */
+  progressEvery?: number;
   readText(path: string): string;
   writeText(path: string, text: string): void;
   /** A worker pool of `size` engines; the command closes it with release(). */
@@ -48,6 +50,12 @@ export function writeTextFile(path: string, text: string): void {
   }
 }
 
+/** ATLAS_PROGRESS=<seconds>: plain progress lines for logs (batch jobs); unset or bad: none. */
+function progressInterval(v: string | undefined): number | undefined {
+  const s = v === undefined ? NaN : Number(v);
+  return Number.isFinite(s) && s >= 0 ? s : undefined;
+}
+
 /** The real process: stdout, stderr, files, worker threads, SIGINT. */
 export function nodeIo(interrupt: AbortSignal, catchInterrupts: (on: boolean) => void): CliIo {
   return {
@@ -55,6 +63,7 @@ export function nodeIo(interrupt: AbortSignal, catchInterrupts: (on: boolean) =>
     stderr: (t) => void process.stderr.write(t),
     stderrIsTTY: Boolean(process.stderr.isTTY),
     stderrColumns: process.stderr.columns || 80,
+    progressEvery: progressInterval(process.env.ATLAS_PROGRESS),
     readText: readTextFile,
     writeText: writeTextFile,
     pool(size) {

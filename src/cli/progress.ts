@@ -1,7 +1,8 @@
 /**
  * Progress of a long run on stderr: a bar redrawn in place (at most ten times a second)
- * when stderr is a terminal; nothing while running otherwise (logs stay clean), and one
- * summary line at the end either way.
+ * when stderr is a terminal; otherwise nothing while running (logs stay clean) unless
+ * ATLAS_PROGRESS=<seconds> asks for a plain line that often; one summary line at the end
+ * either way.
  */
 import type { CliIo } from './io.ts';
 
@@ -16,8 +17,14 @@ export class Progress {
 
   /** done of total finished. */
   update(done: number): void {
-    if (!this.io.stderrIsTTY) return;
     const t = this.io.now();
+    if (!this.io.stderrIsTTY) {
+      const every = this.io.progressEvery;
+      if (every === undefined || t - this.lastDraw < 1000 * every || done >= this.total) return;
+      this.lastDraw = t;
+      this.io.stderr(this.line(done, (t - this.t0) / 1000) + '\n');
+      return;
+    }
     if (t - this.lastDraw < 100 && done < this.total) return;
     this.lastDraw = t;
     this.drawn = true;

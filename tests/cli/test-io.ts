@@ -1,0 +1,54 @@
+// A CliIo for tests: captured stdout and stderr, files in memory (or on disk when asked),
+// real engine worker threads.
+import { spawn } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import type { CliIo } from '../../src/cli/io.ts';
+import { runCli } from '../../src/cli/run.ts';
+import { nodeEnginePool } from '../../workers/node-spawn.ts';
+
+export interface Captured {
+  code: number;
+  out: string;
+  err: string;
+  files: Map<string, string>;
+}
+
+/** Run a command line in this process; `files` are readable inputs, written files land in the result. */
+export async function cli(argv: string[], files = new Map<string, string>(), interrupt?: AbortSignal): Promise<Captured> {
+  let out = '', err = '';
+  const io: CliIo = {
+    stdout: (t) => void (out += t),
+    stderr: (t) => void (err += t),
+    stderrIsTTY: false,
+    stderrColumns: 80,
+    readText(path) {
+      const t = files.get(path);
+      if (t === undefined) throw Object.assign(new Error(`cannot read ${path}: no such file`), { name: 'InputError' });
+      return t;
+    },
+    writeText: (path, text) => void files.set(path, text),
+    pool(size) {
+      const pool = nodeEnginePool(size);
+      return { pool, release: () => pool.close() };
+    },
+    defaultWorkers: 2,
+    interrupt: interrupt ?? new AbortController().signal,
+    catchInterrupts: () => undefined,
+    now: () => performance.now(),
+  };
+  const code = await runCli(argv, io);
+  return { code, out, err, files };
+}
+
+const root = fileURLToPath(new URL('../..', import.meta.url));
+
+/** Run the real CLI as a subprocess through tsx (as `npm run -s atlas --` does). */
+export function cliProcess(argv: string[]): Promise<{ code: number | null; out: string; err: string }> {
+  return new Promise((resolve) => {
+    const child = spawn(process.execPath, ['--import', 'tsx', 'src/cli/main.ts', ...argv], { cwd: root });
+    let out = '', err = '';
+    child.stdout.on('data', (d: Buffer) => (out += d.toString()));
+    child.stderr.on('data', (d: Buffer) => (err += d.toString()));
+    child.on('close', (code) => resolve({ code, out, err }));
+  });
+}

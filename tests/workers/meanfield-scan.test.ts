@@ -1,0 +1,90 @@
+// Mean-field scans on real engine worker threads: the pool's answers equal the same
+// segments solved serially in this thread, bit for bit, on one worker and on two
+// (determinism: the result is fixed by the plan, not by the worker count or sharding).
+// Exact equality is the check (common practice, no source): the same code runs on the
+// same inputs in every case.
+import { afterAll, describe, expect, it } from 'vitest';
+import { nodeEnginePool } from '../../workers/node-spawn.ts';
+import { runMeanFieldScan } from '../../workers/meanfield-scan.ts';
+import { meanfieldApi } from '../../workers/api/meanfield.ts';
+import { parseAxis } from '../../src/core/scan/axes.ts';
+import { gridPoint, pointSeed, segments, type ScanPlan } from '../../src/core/scan/grid.ts';
+import { solveGroundState, type SolveResult } from '../../src/core/meanfield/ground-state.ts';
+
+// A small vdw chain map crossing empty, condensate and density-wave regions; Mmax = 6
+// keeps it fast.
+const plan: ScanPlan = {
+  base: { lattice: 'chain', interaction: { shape: 'vdw', Rb: 1.3 }, delta: 3, T: 0, maxCell: 6 },
+  x: parseAxis('mu=-1:2.5:20', 'x'),
+  y: parseAxis('rb=1:1.4:2', 'y'),
+  seed: 7,
+};
+const nx = plan.x.count, ny = 2;
+
+function serial(continuation: boolean): SolveResult[] {
+  const out: SolveResult[] = [];
+  for (const s of segments(nx, ny)) {
+    const points = [], seeds = [];
+    for (let i = 0; i < s.length; i++) {
+      points.push(gridPoint(plan, s.ix0 + i, s.iy));
+      seeds.push(pointSeed(plan.seed, s.iy * nx + s.ix0 + i));
+    }
+    meanfieldApi.solveRun({ points, seeds, continuation }).forEach((r, i) => (out[s.iy * nx + s.ix0 + i] = r));
+  }
+  return out;
+}
+
+const pools = [nodeEnginePool(1), nodeEnginePool(2)];
+afterAll(() => pools.forEach((p) => p.close()));
+
+describe('mean-field scan in the worker pool', () => {
+  const reference = serial(true);
+
+  it('covers the range of phases the check needs', () => {
+    const phases = new Set(reference.map((s) => s.phase));
+    expect(phases.size).toBeGreaterThanOrEqual(3);
+  });
+
+  it.each([1, 2])('equals the serial answers exactly on %i worker(s)', async (size) => {
+    const streamed: number[] = [];
+    const got = await runMeanFieldScan(pools[size - 1], plan, { onPoint: (p) => streamed.push(p.index) });
+    expect(got.map((p) => p.index)).toEqual(Array.from({ length: nx * ny }, (_, i) => i));
+    expect(new Set(streamed).size).toBe(nx * ny);
+    expect(got.map((p) => p.state)).toEqual(reference);
+    expect(got.every((p) => p.index === p.iy * nx + p.ix)).toBe(true);
+  });
+
+  it('two shards together equal the whole scan', async () => {
+    const a = await runMeanFieldScan(pools[1], plan, { shard: { k: 1, n: 2 } });
+    const b = await runMeanFieldScan(pools[1], plan, { shard: { k: 2, n: 2 } });
+    const merged: SolveResult[] = [];
+    for (const p of [...a, ...b]) merged[p.index] = p.state;
+    expect(merged).toEqual(reference);
+  });
+
+  it('cold runs equal each point solved alone', async () => {
+    const got = await runMeanFieldScan(pools[1], plan, { continuation: false });
+    got.forEach((p) => {
+      expect(p.state).toEqual(solveGroundState(gridPoint(plan, p.ix, p.iy), { seed: pointSeed(plan.seed, p.index) }));
+    });
+  });
+
+  it('cancels mid-scan with an AbortError and keeps the finished points', async () => {
+    const ac = new AbortController();
+    const done: number[] = [];
+    const big: ScanPlan = { ...plan, x: parseAxis('mu=-1:2.5:200', 'x') };
+    const run = runMeanFieldScan(pools[1], big, {
+      signal: ac.signal,
+      onPoint: (p) => {
+        done.push(p.index);
+        if (done.length === 10) ac.abort();
+      },
+    });
+    await expect(run).rejects.toMatchObject({ name: 'AbortError' });
+    expect(done.length).toBeGreaterThanOrEqual(10);
+    expect(done.length).toBeLessThan(400);
+    // the pool still works after the cancellation
+    const again = await runMeanFieldScan(pools[1], { ...plan, y: undefined, x: parseAxis('mu=0:1:3', 'x') });
+    expect(again.length).toBe(3);
+  });
+});
