@@ -34,6 +34,9 @@ export class AtlasApp extends LitElement {
     const q = location.search;
     this.state = queryHasState(q) ? decodeState(q) : loadSession() ?? demoState();
     this.parsed = parseModel(this.state.model);
+    // the opened state is the session from now on, and the address shows it
+    history.replaceState(null, '', `${location.pathname}?${encodeState(this.state)}`);
+    saveSession(this.state);
     void this.engine.warm().catch(() => undefined);
   }
 
@@ -68,6 +71,12 @@ export class AtlasApp extends LitElement {
   private onModelInput(e: CustomEvent<{ key: ModelKey; value: string }>) {
     const next = cloneState(this.state);
     next.model[e.detail.key] = e.detail.value;
+    this.commit(next);
+  }
+
+  private onModelReplace(e: CustomEvent<Partial<Record<ModelKey, string>>>) {
+    const next = cloneState(this.state);
+    Object.assign(next.model, e.detail);
     this.commit(next);
   }
 
@@ -123,7 +132,7 @@ export class AtlasApp extends LitElement {
         <button @click=${this.copyLink} aria-label="Copy a link to this exact view">Copy link</button>
         <button @click=${this.reset}>Reset to demo</button>
       </header>
-      <div class="layout" @model-input=${this.onModelInput} @section-change=${this.onSectionChange}>
+      <div class="layout" @model-input=${this.onModelInput} @model-replace=${this.onModelReplace} @section-change=${this.onSectionChange}>
         <aside aria-label="Model inputs">
           <model-form .inputs=${s.model} .errors=${this.parsed.errors}></model-form>
         </aside>

@@ -59,6 +59,16 @@ export class FigurePanel extends LitElement {
     return [f.x.invert(X), f.y.invert(Y)];
   }
 
+  /** Client (viewport) coordinates of data point (x, y): where a pointer must go to point at it. */
+  dataToClient(x: number, y: number): { x: number; y: number } | null {
+    const f = this.figure?.frame;
+    const svg = this.renderRoot.querySelector('svg');
+    if (!f || !svg) return null;
+    const r = svg.getBoundingClientRect();
+    const s = r.width / f.width;
+    return { x: r.left + f.x(x) * s, y: r.top + f.y(y) * s };
+  }
+
   private emit(type: string, detail?: { x: number; y: number }) {
     this.dispatchEvent(new CustomEvent(type, { detail, bubbles: true, composed: true }));
   }

@@ -60,6 +60,9 @@ export class MapScanController implements ReactiveController {
   /** ms from start to the first complete coarse level, and to the last point. */
   firstPictureMs: number | null = null;
   totalMs: number | null = null;
+  /** Runs started, and runs stopped before they finished (superseded or cancelled). */
+  started = 0;
+  cancelled = 0;
   private ctrl: AbortController | null = null;
   private timer: ReturnType<typeof setTimeout> | null = null;
   private t0 = 0;
@@ -72,6 +75,7 @@ export class MapScanController implements ReactiveController {
   run(plan: MapPlan, key: string): void {
     if (this.current?.key === key && (this.status === 'running' || this.status === 'done')) return;
     this.cancel();
+    this.started++;
     const grid = new MapGrid(plan, key);
     this.current = grid;
     this.status = 'running';
@@ -124,6 +128,7 @@ export class MapScanController implements ReactiveController {
     if (this.ctrl) {
       const c = this.ctrl;
       this.ctrl = null;
+      this.cancelled++;
       c.abort();
       this.status = 'cancelled';
       this.flush();

@@ -100,6 +100,14 @@ export class PhaseAtlasView extends LitElement {
     this.soft.update(this.model.params, axes.x, axes.y, this.section.lines);
   }
 
+  override updated() {
+    // the scan's state on the element, for scripts and tests driving the page
+    this.dataset.scan = this.scan.status;
+    this.dataset.points = String(this.scan.current?.count ?? 0);
+    this.dataset.started = String(this.scan.started);
+    this.dataset.cancelled = String(this.scan.cancelled);
+  }
+
   /** Grid cell nearest to data point (x, y). */
   private cellAt(g: MapGrid, x: number, y: number): [number, number] {
     const { x: ax, y: ay } = g.plan;
@@ -120,16 +128,39 @@ export class PhaseAtlasView extends LitElement {
       \u03c1 = ${fmt(s.excitationDensity)}, \u03b1\u00b2 = ${fmt(s.photonDensity)}, M = ${s.cellSize}${own ? '' : ' (coarse preview)'}`;
   }
 
+  /**
+   * The computed points in index order, with the columns of the CLI's `map` CSV (ix, iy,
+   * the axis values, the state; lists space-separated), so the two files can be compared.
+   */
   private table(g: MapGrid): Table {
-    const xn = g.plan.x.name, yn = g.plan.y.name;
+    const { x, y } = g.plan;
+    const fixedDensity = g.plan.base.rho !== undefined || x.name === 'density' || y.name === 'density';
+    const withMu = x.name !== 'mu' && y.name !== 'mu';
+    const columns = ['ix', 'iy', x.name, y.name, 'phase', 'fraction', 'cellSize', 'cell', 'alpha', 'photonDensity',
+      'emitterDensity', 'excitationDensity', 'grandPotential', ...(withMu ? ['mu'] : []), 'sublatticeDensities', 'sublatticeCoherences',
+      ...(fixedDensity ? ['coexistLowFraction', 'coexistLowDensity', 'coexistHighDensity'] : [])];
     const rows: Table['rows'] = [];
     for (let iy = 0; iy < g.ny; iy++) for (let ix = 0; ix < g.nx; ix++) {
       const s = g.own(ix, iy);
       if (!s) continue;
-      rows.push([g.plan.x.values[ix], g.plan.y.values[iy], s.phase, s.fraction ?? '', s.cellSize, s.mu, s.alpha,
-        s.photonDensity, s.emitterDensity, s.excitationDensity, s.grandPotential]);
+      const c = s.coexistence;
+      rows.push([ix, iy, x.values[ix], y.values[iy], s.phase, s.fraction ?? '', s.cellSize, `${s.cell.a} ${s.cell.b} ${s.cell.c}`,
+        s.alpha, s.photonDensity, s.emitterDensity, s.excitationDensity, s.grandPotential, ...(withMu ? [s.mu] : []),
+        s.sublatticeDensities.join(' '), s.sublatticeCoherences.join(' '),
+        ...(fixedDensity ? [c ? c.fractions[0] : '', c ? c.phases[0].excitationDensity : '', c ? c.phases[1].excitationDensity : ''] : [])]);
     }
-    return { columns: [xn, yn, 'phase', 'fraction', 'cellSize', 'mu', 'alpha', 'photonDensity', 'emitterDensity', 'excitationDensity', 'grandPotential'], rows };
+    return { columns, rows };
+  }
+
+  /** The map as the CLI's `map --json` writes it. */
+  private json(g: MapGrid) {
+    const { x, y } = g.plan;
+    const points: Record<string, unknown>[] = [];
+    for (let iy = 0; iy < g.ny; iy++) for (let ix = 0; ix < g.nx; ix++) {
+      const s = g.own(ix, iy);
+      if (s) points.push({ ix, iy, [x.name]: x.values[ix], [y.name]: y.values[iy], ...s });
+    }
+    return { shard: null, complete: g.complete, x, y, params: g.plan.base, seed: SCAN_SEED, points };
   }
 
   private axisControl(which: 'x' | 'y') {
@@ -206,7 +237,7 @@ export class PhaseAtlasView extends LitElement {
       </figure-panel>
       <div class="readout" aria-live="polite" aria-label="Readout under the cursor">${g ? this.readout(g) : 'Waiting for the first points\u2026'}</div>
       <limits-note lattice=${this.model.params?.lattice ?? this.inputs.lattice} temperature=${this.model.params?.T ?? 0}></limits-note>
-      ${table ? html`<data-export .table=${table} .json=${{ plan: g!.plan, seed: SCAN_SEED, columns: table.columns, rows: table.rows }} name="phase-map" .command=${command}></data-export>` : nothing}
+      ${table ? html`<data-export class="map-export" .table=${table} .json=${this.json(g!)} name="phase-map" .command=${command}></data-export>` : nothing}
       ${selParams && sel ? html`<point-detail .params=${selParams.p} .seed=${selParams.seed} .engine=${this.engine} .width=${w}
           label="${AXIS_SYMBOLS[g!.plan.x.name]} = ${fmt(sel[0])}, ${AXIS_SYMBOLS[g!.plan.y.name]} = ${fmt(sel[1])}"
           .command=${cliLine('solve', [...modelFlags(this.inputs, cmdAxes), ...axisFlags(g!.plan.x.name, sel[0]), ...axisFlags(g!.plan.y.name, sel[1]), '--seed', String(selParams.seed), '--json'])}

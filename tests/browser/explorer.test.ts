@@ -1,0 +1,185 @@
+/**
+ * The explorer in real Chromium (Debian's /usr/bin/chromium through playwright-core):
+ * the production build served on 127.0.0.1, driven as a user would. Each check below is
+ * against the engine's own command line for the same inputs or against what the page
+ * must show; none rests on a stored result. Screenshots of every view go to
+ * test-output/screenshots (printed at the start).
+ */
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import type { Page } from 'playwright-core';
+import { buildApp } from './harness/build-app.ts';
+import { serveStatic, type StaticServer } from './harness/static-server.ts';
+import { launchChromium, type Browser } from './harness/launch-chromium.ts';
+import { SCREENSHOTS, download, pointAt, runCliLine, scanNumber, screenshot, waitForScan } from './harness/page-tools.ts';
+
+let server: StaticServer;
+let browser: Browser;
+let page: Page;
+
+/** Demo axes (src/ui/state/app-state.ts): mu = -1:2.9:64, rb = 0.8:2.4:40. */
+const DEMO = { nx: 64, ny: 40 };
+
+beforeAll(async () => {
+  const dist = await buildApp();
+  server = await serveStatic(dist);
+  browser = await launchChromium({ width: 1280, height: 800 });
+  page = browser.page;
+  console.log(`browser tests: screenshots in ${SCREENSHOTS}`);
+}, 180_000);
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.close();
+});
+
+/** Open the page fresh (no saved session) with an optional query. */
+async function open(query = '') {
+  await page.goto(server.url);
+  await page.evaluate(() => localStorage.clear());
+  await page.goto(server.url + query);
+}
+
+describe('phase atlas', () => {
+  it('renders the demo map with at least three distinct phases', async () => {
+    await open();
+    await waitForScan(page, 'done', 90_000);
+    expect(await scanNumber(page, 'points')).toBe(DEMO.nx * DEMO.ny);
+    const legend = await page.locator('figure-panel.map svg .legend text').allTextContents();
+    const phases = legend.filter((t) => t !== 'Phase');
+    expect(phases.length).toBeGreaterThanOrEqual(3);
+    // the heatmap itself paints at least three different fills
+    const fills = await page.locator('figure-panel.map svg .heatmap rect').evaluateAll((rs) => [...new Set(rs.map((r) => r.getAttribute('fill')))]);
+    expect(fills.filter((f) => f && !f.startsWith('url')).length).toBeGreaterThanOrEqual(3);
+    // fractions written on the density-wave regions
+    const labels = await page.locator('figure-panel.map svg .fraction-labels text').allTextContents();
+    expect(labels).toContain('1/2');
+    await screenshot(page, 'atlas');
+  });
+
+  it('the readout follows the cursor', async () => {
+    const readout = page.locator('phase-atlas-view .readout');
+    await pointAt(page, 'figure-panel.map', -0.8, 1.0); // far below the condensate onset: empty
+    await expect.poll(() => readout.textContent()).toContain('empty');
+    const first = await readout.textContent();
+    // mu = -0.8 is grid point 3 of -1:2.9:64 (step 3.9/63 = 0.0619): value -0.8143
+    expect(first).toContain('\u03bc = -0.8143');
+    await pointAt(page, 'figure-panel.map', 1.6, 1.4);
+    await expect.poll(() => readout.textContent()).not.toBe(first);
+    expect(await readout.textContent()).toMatch(/density wave|supersolid/);
+  });
+
+  it('a click opens the point with its sublattice pattern', async () => {
+    await pointAt(page, 'figure-panel.map', 1.5, 1.9);
+    await page.mouse.down();
+    await page.mouse.up();
+    const detail = page.locator('point-detail');
+    await detail.locator('.phase-name').waitFor({ timeout: 20_000 });
+    const name = await detail.locator('.phase-name').textContent();
+    expect(name).toMatch(/density wave 1\/3/);
+    // the pattern: sites on the lattice, shaded by density with a period of three
+    const fills = await detail.locator('figure-panel.pattern svg .dots circle').evaluateAll((cs) => cs.map((c) => c.getAttribute('fill')));
+    expect(fills.length).toBeGreaterThanOrEqual(9);
+    expect(new Set(fills).size).toBeGreaterThanOrEqual(2);
+    for (let i = 3; i < fills.length; i++) expect(fills[i]).toBe(fills[i - 3]);
+    await screenshot(page, 'atlas-point');
+  });
+
+  it('changing the detuning cancels the running scan and redraws', async () => {
+    const started = await scanNumber(page, 'started');
+    const cancelled = await scanNumber(page, 'cancelled');
+    const detuning = page.locator('model-form input[name="detuning"]');
+    await detuning.fill('3.3');
+    await waitForScan(page, 'running');
+    await detuning.fill('3.6');
+    await waitForScan(page, 'done', 90_000);
+    expect(await scanNumber(page, 'started')).toBe(started + 2);
+    expect(await scanNumber(page, 'cancelled')).toBeGreaterThanOrEqual(cancelled + 1);
+    // every point on the final map belongs to the new detuning
+    const { text } = await download(page, () => page.locator('phase-atlas-view data-export.map-export button', { hasText: 'JSON' }).click());
+    const doc = JSON.parse(text) as { params: { delta: number }; points: { delta: number }[]; complete: boolean };
+    expect(doc.params.delta).toBe(3.6);
+    expect(doc.complete).toBe(true);
+    expect(doc.points.every((p) => p.delta === 3.6)).toBe(true);
+  });
+
+  it('an invalid value shows its message beside the field and keeps the last map', async () => {
+    const svgBefore = await page.locator('figure-panel.map svg .heatmap').innerHTML();
+    await page.locator('model-form input[name="detuning"]').fill('3.6x');
+    const msg = page.locator('model-form [data-field="detuning"]');
+    await expect.poll(() => msg.textContent()).toContain('not a number');
+    expect(await page.locator('phase-atlas-view .stale').count()).toBe(1);
+    expect(await page.locator('figure-panel.map svg .heatmap').innerHTML()).toBe(svgBefore);
+    // mu above the detuning is refused with the reason
+    await page.locator('model-form input[name="detuning"]').fill('3.6');
+    await page.locator('model-form input[name="mu"]').fill('4');
+    await expect.poll(() => page.locator('model-form [data-field="mu"]').textContent()).toContain('photon number is unbounded');
+    await screenshot(page, 'atlas-invalid');
+    await page.locator('model-form input[name="mu"]').fill('1');
+    await expect.poll(() => page.locator('model-form [data-field="mu"]').textContent()).toBe('');
+    expect(await page.locator('figure-panel.map svg .heatmap').innerHTML()).toBe(svgBefore);
+  });
+
+  it('CSV export has the CLI header and one row a point, equal to the CLI map', async () => {
+    await open('?view=atlas&atlas.x=mu%3D-1%3A2.9%3A12&atlas.y=rb%3D0.9%3A2.1%3A7');
+    await waitForScan(page, 'done');
+    const { name, text } = await download(page, () => page.locator('phase-atlas-view data-export.map-export button', { hasText: 'CSV' }).click());
+    expect(name).toBe('phase-map.csv');
+    const lines = text.trimEnd().split('\n');
+    const command = await page.locator('phase-atlas-view data-export.map-export code.command').textContent();
+    const cli = (await runCliLine(command ?? '')).trimEnd().split('\n');
+    expect(lines[0]).toBe(cli[0]);
+    expect(lines[0].split(',').slice(0, 7)).toEqual(['ix', 'iy', 'mu', 'rb', 'phase', 'fraction', 'cellSize']);
+    expect(lines.length - 1).toBe(12 * 7);
+    expect(cli.length).toBe(lines.length);
+    // same phase at every point, same grand potential to 1e-9 (both converge to |dm| < 1e-12;
+    // the page's coarse-to-fine runs start from other guesses than the CLI's row segments)
+    const col = lines[0].split(',').indexOf('grandPotential');
+    for (let i = 1; i < lines.length; i++) {
+      const a = lines[i].split(','), b = cli[i].split(',');
+      expect(a.slice(0, 6)).toEqual(b.slice(0, 6));
+      expect(Math.abs(Number(a[col]) - Number(b[col]))).toBeLessThan(1e-9);
+    }
+  });
+
+  it('the URL round-trips the whole state; the last session is restored on reload', async () => {
+    await open();
+    await page.locator('model-form select[name="lattice"]').selectOption('square');
+    await page.locator('model-form input[name="rb"]').fill('1.3');
+    await page.locator('phase-atlas-view input[name="range-x"]').fill('-1:2:20');
+    await page.locator('phase-atlas-view input[name="line-vdw:2"]').check();
+    const url = page.url();
+    // a fresh page (no saved session) opened on the link shows the same entries
+    await page.goto(server.url);
+    await page.evaluate(() => localStorage.clear());
+    await page.goto(url);
+    expect(await page.locator('model-form select[name="lattice"]').inputValue()).toBe('square');
+    expect(await page.locator('model-form input[name="rb"]').inputValue()).toBe('1.3');
+    expect(await page.locator('phase-atlas-view input[name="range-x"]').inputValue()).toBe('-1:2:20');
+    expect(await page.locator('phase-atlas-view input[name="line-vdw:2"]').isChecked()).toBe(true);
+    expect(page.url()).toBe(url);
+    // the bare address restores the last session
+    await page.goto(server.url);
+    expect(await page.locator('model-form input[name="rb"]').inputValue()).toBe('1.3');
+    expect(page.url()).toBe(url);
+  });
+});
+
+describe('array planner', () => {
+  it('converts lab numbers and gives a verdict with its margin', async () => {
+    await open('?view=planner');
+    // demo lab numbers: g = 0.5 MHz sqrt(200) = 7.071 MHz; Rb = (140e3 / (2 g))^(1/6) um over a = 4 um
+    const g = 0.5 * Math.sqrt(200), rbA = Math.pow(140e3 / (2 * g), 1 / 6) / 4;
+    expect(Number(await page.locator('array-planner-view .g-mhz').textContent())).toBeCloseTo(g, 3);
+    expect(Number(await page.locator('array-planner-view .rb-a').textContent())).toBeCloseTo(rbA, 3);
+    const verdict = page.locator('array-planner-view .verdict');
+    await expect.poll(async () => (await verdict.textContent())?.replace(/\s+/g, ' '), { timeout: 30_000 })
+      .toMatch(/ground state is a .* g \(.* MHz in \u03bc\) from the nearest phase boundary/);
+    await screenshot(page, 'planner');
+  });
+});
+
+describe('whole page', () => {
+  it('no console errors', () => {
+    expect(browser.errors).toEqual([]);
+  });
+});
