@@ -97,12 +97,12 @@ function siteGroups(c: Cluster, spec: OneBodySpec): { group: Int32Array; groups:
 /**
  * Starting parameters: the one-body amplitude of the single-site ground state of
  * -mu n - alpha sigma^x, psi(1)/psi(0) = (mu/2 + sqrt(mu^2/4 + alpha^2))/alpha (clamped to
- * |a| <= 4 as alpha -> 0), and no Jastrow correlation.
+ * |a| <= 1 so the first sweeps stay mobile; SR takes it further), and no Jastrow correlation.
  */
 export function initialParameters(a: Ansatz, mu: number, alpha: number): Float64Array {
   const theta = new Float64Array(a.P);
   const ratio = alpha > 0 ? (mu / 2 + Math.sqrt(mu * mu / 4 + alpha * alpha)) / alpha : mu > 0 ? Infinity : 0;
-  const a0 = Math.max(-4, Math.min(4, Math.log(ratio)));
+  const a0 = Math.max(-1, Math.min(1, Math.log(ratio)));
   for (let g = 0; g < a.groups; g++) theta[g] = a0;
   return theta;
 }

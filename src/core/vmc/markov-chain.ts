@@ -1,54 +1,71 @@
 /**
- * Metropolis sampling of |psi(n)|^2 for the Jastrow wavefunction by single flips n_i -> 1 - n_i
+ * Metropolis sampling for the Jastrow wavefunction by single flips n_i -> 1 - n_i
  * (Metropolis, Rosenbluth, Rosenbluth, Teller and Teller, J. Chem. Phys. 21, 1087 (1953)).
  *
  * With s_i = 1 - 2 n_i (+1 adds an excitation) the amplitude ratio of a flip is
- *   psi(n')/psi(n) = exp( s_i (a_{g(i)} + G_i) ),   G_i = sum_j v_{d(i,j)} n_j,
- * accepted with probability min(1, ratio^2). The fields G_i, h_i = sum_j V_ij n_j, the
- * diagonal energy E_diag = -mu sum n_i + sum_{i<j} V_ij n_i n_j and the log-derivatives O_k
- * are kept incrementally: an accepted flip of i changes them only at i's neighbours, so a
- * flip attempt costs O(1) and an accepted flip O(neighbours in range).
+ *   t_i = psi(n^i)/psi(n) = exp( s_i (a_{g(i)} + G_i) ),   G_i = sum_j v_{d(i,j)} n_j.
+ * The chain samples the guiding distribution
+ *   P(n) = |psi(n)|^2 (1 + Q(n)/N),   Q(n) = sum_i t_i^2   (so |psi|^2 Q = sum_i |psi(n^i)|^2),
+ * and averages carry the weight w(n) = 1/(1 + Q(n)/N) <= 1: <A> = sum w A / sum w. Near a
+ * crystal |psi|^2 alone is concentrated on one configuration and its single-flip neighbours,
+ * which carry the O(alpha) energy, are visited too rarely to be sampled (a heavy-tailed
+ * local energy, Trail, Phys. Rev. E 77, 016703 (2008)); the guide gives them a fixed share
+ * of the time with bounded weights. Elsewhere it costs little (w varies mildly).
  *
- * Local energy E_loc(n) = E_diag(n) - alpha sum_i psi(n with i flipped)/psi(n), and
- * sum_i psi(n^i)/psi(n) estimates <sum_i sigma^x_i>.
+ * A flip of i changes t_i -> 1/t_i and t_j -> t_j exp(s_j s_i v_ij) at i's Jastrow
+ * neighbours only, so Q(n'), the fields G, h = sum_j V_ij n_j, the diagonal energy
+ * E_diag = -mu sum n_i + sum_{i<j} V_ij n_i n_j and the log-derivatives O_k are updated in
+ * O(neighbours in range): independent of N at a fixed range.
+ *
+ * Local energy E_loc(n) = E_diag(n) - alpha sum_i t_i; sum_i t_i estimates <sum_i sigma^x_i>.
  */
 import type { Ansatz } from './ansatz.ts';
 
 export class JastrowChain {
   /** Occupations n_i. */
   readonly n: Uint8Array;
-  /** Jastrow field G_i and interaction field h_i. */
+  /** Jastrow field G_i, interaction field h_i and flip ratios t_i. */
   readonly G: Float64Array;
   readonly h: Float64Array;
+  readonly t: Float64Array;
   /** One-body counts sum_{i in g} n_i and Jastrow pair counts per shell. */
   readonly groupCount: Float64Array;
   readonly shellCount: Float64Array;
+  /** sum_i t_i, Q = sum_i t_i^2, E_diag and the number of excitations. */
+  ratioSum = 0;
+  Q = 0;
   eDiag = 0;
   occupied = 0;
   attempted = 0;
   accepted = 0;
   private theta: Float64Array;
+  /** exp(v_d), exp(-v_d) and their squares per Jastrow shell. */
+  private ev = new Float64Array(0);
+  private emv = new Float64Array(0);
 
   constructor(readonly ansatz: Ansatz, readonly mu: number, theta: Float64Array, n: Uint8Array) {
     const N = ansatz.N;
     this.n = Uint8Array.from(n);
     this.G = new Float64Array(N);
     this.h = new Float64Array(N);
+    this.t = new Float64Array(N);
     this.groupCount = new Float64Array(ansatz.groups);
     this.shellCount = new Float64Array(ansatz.P - ansatz.groups);
     this.theta = Float64Array.from(theta);
     this.recompute();
   }
 
-  /** Install new parameters (the fields G_i are rebuilt, O(N z)). */
+  /** Install new parameters (every field is rebuilt, O(N z)). */
   setParameters(theta: Float64Array): void {
     this.theta = Float64Array.from(theta);
     this.recompute();
   }
 
   /** Rebuild every incremental quantity from the occupations. */
-  private recompute(): void {
-    const A = this.ansatz, N = A.N, G0 = A.groups, th = this.theta;
+  recompute(): void {
+    const A = this.ansatz, N = A.N, G0 = A.groups, th = this.theta, S = A.P - G0;
+    this.ev = Float64Array.from({ length: S }, (_, d) => Math.exp(th[G0 + d]));
+    this.emv = this.ev.map((x) => 1 / x);
     this.G.fill(0); this.h.fill(0); this.groupCount.fill(0); this.shellCount.fill(0);
     let e = 0, occ = 0;
     for (let i = 0; i < N; i++) {
@@ -62,42 +79,65 @@ export class JastrowChain {
       }
     }
     this.eDiag = e; this.occupied = occ;
+    this.refreshRatios();
   }
 
-  /** N Metropolis flip attempts at uniformly random sites. */
+  /** Recompute t_i, sum t_i and Q from the fields (removes rounding drift; N exponentials). */
+  refreshRatios(): void {
+    const A = this.ansatz, th = this.theta;
+    let sum = 0, Q = 0;
+    for (let i = 0; i < A.N; i++) {
+      const ti = Math.exp((1 - 2 * this.n[i]) * (th[A.group[i]] + this.G[i]));
+      this.t[i] = ti; sum += ti; Q += ti * ti;
+    }
+    this.ratioSum = sum; this.Q = Q;
+  }
+
+  /** Weight w = 1/(1 + Q/N) of the current configuration. */
+  weight(): number {
+    return 1 / (1 + this.Q / this.ansatz.N);
+  }
+
+  /** E_loc = E_diag - alpha sum_i t_i. */
+  localEnergy(alpha: number): number {
+    return this.eDiag - alpha * this.ratioSum;
+  }
+
+  /** N Metropolis flip attempts of the guiding distribution at uniformly random sites; t, sum t, Q exact after it. */
   sweep(rng: () => number): void {
-    const A = this.ansatz, N = A.N, G0 = A.groups, th = this.theta;
-    const n = this.n, G = this.G, h = this.h, start = A.nbrStart, site = A.nbrSite, V = A.nbrV, shell = A.nbrShell;
-    for (let t = 0; t < N; t++) {
+    const A = this.ansatz, N = A.N, G0 = A.groups, th = this.theta, ev = this.ev, emv = this.emv;
+    const n = this.n, G = this.G, h = this.h, t = this.t, start = A.nbrStart, site = A.nbrSite, V = A.nbrV, shell = A.nbrShell;
+    for (let step = 0; step < N; step++) {
       const i = Math.floor(rng() * N);
-      const s = 1 - 2 * n[i];
-      const logRatio2 = 2 * s * (th[A.group[i]] + G[i]);
+      const s = 1 - 2 * n[i], ti = t[i];
+      // Q and sum t of the proposed configuration: only i and its Jastrow neighbours change.
+      let Qn = this.Q - ti * ti + 1 / (ti * ti), sumN = this.ratioSum - ti + 1 / ti;
+      for (let p = start[i]; p < start[i + 1]; p++) {
+        const d = shell[p];
+        if (d < 0) continue;
+        const j = site[p], f = (1 - 2 * n[j]) * s > 0 ? ev[d] : emv[d], tj = t[j];
+        sumN += tj * (f - 1); Qn += tj * tj * (f * f - 1);
+      }
+      const ratio = ti * ti * (1 + Qn / N) / (1 + this.Q / N);
       this.attempted++;
-      if (logRatio2 < 0 && rng() >= Math.exp(logRatio2)) continue;
+      if (ratio < 1 && rng() >= ratio) continue;
       this.accepted++;
       this.eDiag += s * (h[i] - this.mu);
       this.occupied += s;
       this.groupCount[A.group[i]] += s;
+      this.Q = Qn; this.ratioSum = sumN;
+      t[i] = 1 / ti;
       n[i] ^= 1;
       for (let p = start[i]; p < start[i + 1]; p++) {
         const j = site[p], d = shell[p];
         h[j] += s * V[p];
-        if (d >= 0) { G[j] += s * th[G0 + d]; if (n[j]) this.shellCount[d] += s; }
+        if (d < 0) continue;
+        G[j] += s * th[G0 + d];
+        t[j] *= (1 - 2 * n[j]) * s > 0 ? ev[d] : emv[d];
+        if (n[j]) this.shellCount[d] += s;
       }
     }
-  }
-
-  /** sum_i psi(n^i)/psi(n): the local estimator of sum_i sigma^x_i. */
-  flipRatioSum(): number {
-    const A = this.ansatz, th = this.theta, n = this.n, G = this.G;
-    let sum = 0;
-    for (let i = 0; i < A.N; i++) sum += Math.exp((1 - 2 * n[i]) * (th[A.group[i]] + G[i]));
-    return sum;
-  }
-
-  /** E_loc = E_diag - alpha sum_i psi(n^i)/psi(n), given that sum. */
-  localEnergy(alpha: number, ratioSum: number): number {
-    return this.eDiag - alpha * ratioSum;
+    this.refreshRatios();
   }
 
   /** O_k = d ln psi / d theta_k into `out` (length P). */

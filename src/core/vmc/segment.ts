@@ -5,9 +5,11 @@
  * chain's state (occupations and random stream) so the next segment continues it on any
  * worker. Everything is plain data; a segment is a pure function of its request.
  *
- * Per sweep: e = E_loc/N, x = (1/N) sum_i psi(n^i)/psi(n) (estimates mean <sigma^x_i>),
- * rho = (1/N) sum_i n_i, O_k; and for 'measure' n_i, the Fourier sums n_k = sum_i e^{i k.r_i} n_i
- * on the cluster momenta and the pair counts sum_{i != j in shell d} n_i n_j of every shell.
+ * One measurement per sweep, weighted by w = 1/(1 + Q/N) of the guiding distribution
+ * (markov-chain.ts): e = E_loc/N, x = (1/N) sum_i psi(n^i)/psi(n) (estimates mean <sigma^x_i>),
+ * rho = (1/N) sum_i n_i and O_k; for 'measure' also n_i, the Fourier sums
+ * n_k = sum_i e^{i k.r_i} n_i on the cluster momenta and the pair counts
+ * sum_{i != j in shell d} n_i n_j of every shell. All sums below are weighted sums.
  */
 import type { ClusterSpec } from '../cluster/spec.ts';
 import { buildCluster } from '../cluster/spec.ts';
@@ -43,19 +45,20 @@ export interface SegmentRequest {
   bins?: number;
 }
 
-/** Sums over the samples for stochastic reconfiguration (E is the total local energy). */
+/** Weighted sums for stochastic reconfiguration: W = sum w, W2 = sum w^2, E the total local energy. */
 export interface OptimiseSums {
   samples: number;
+  W: number; W2: number;
   E: number; E2: number; X: number;
   O: Float64Array; OO: Float64Array; EO: Float64Array;
 }
 
-/** Per-bin sums of a 'measure' segment (each bin holds `perBin` consecutive sweeps). */
+/** Per-bin weighted sums of a 'measure' segment (each bin holds `perBin` consecutive sweeps). */
 export interface MeasureBins {
   bins: number; perBin: number;
-  e: Float64Array; x: Float64Array; rho: Float64Array;
-  /** Sums of squares over all samples (for the naive variance). */
-  e2: number; x2: number; rho2: number;
+  w: Float64Array; e: Float64Array; x: Float64Array; rho: Float64Array;
+  /** sum w^2, sum w^2 e, sum w^2 e^2 over all samples (the naive variance of the energy). */
+  w2: number; w2e: number; w2e2: number;
   /** [bin * N + i] */ site: Float64Array;
   /** [bin * K + q] */ nkRe: Float64Array; nkIm: Float64Array; nk2: Float64Array;
   /** [bin * shells + d] */ pairs: Float64Array;
@@ -107,15 +110,16 @@ export function runSegment(sys: VmcSystem, req: SegmentRequest): SegmentResult {
 
 function sampleOptimise(chain: JastrowChain, req: SegmentRequest, rng: () => number): OptimiseSums {
   const P = chain.ansatz.P, O = new Float64Array(P);
-  const s: OptimiseSums = { samples: 0, E: 0, E2: 0, X: 0, O: new Float64Array(P), OO: new Float64Array(P * P), EO: new Float64Array(P) };
+  const s: OptimiseSums = { samples: 0, W: 0, W2: 0, E: 0, E2: 0, X: 0, O: new Float64Array(P), OO: new Float64Array(P * P), EO: new Float64Array(P) };
   for (let t = 0; t < req.sweeps; t++) {
     chain.sweep(rng);
-    const X = chain.flipRatioSum(), E = chain.localEnergy(req.alpha, X);
+    const w = chain.weight(), E = chain.localEnergy(req.alpha);
     chain.logDerivatives(O);
-    s.samples++; s.E += E; s.E2 += E * E; s.X += X;
+    s.samples++; s.W += w; s.W2 += w * w; s.E += w * E; s.E2 += w * E * E; s.X += w * chain.ratioSum;
     for (let k = 0; k < P; k++) {
-      s.O[k] += O[k]; s.EO[k] += E * O[k];
-      for (let l = k; l < P; l++) s.OO[k * P + l] += O[k] * O[l];
+      const wO = w * O[k];
+      s.O[k] += wO; s.EO[k] += E * wO;
+      for (let l = k; l < P; l++) s.OO[k * P + l] += wO * O[l];
     }
   }
   for (let k = 0; k < P; k++) for (let l = 0; l < k; l++) s.OO[k * P + l] = s.OO[l * P + k];
@@ -129,27 +133,29 @@ function sampleMeasure(sys: VmcSystem, chain: JastrowChain, req: SegmentRequest,
   const L = req.sweeps / B;
   const f = fourierTables(sys);
   const m: MeasureBins = {
-    bins: B, perBin: L, e: new Float64Array(B), x: new Float64Array(B), rho: new Float64Array(B), e2: 0, x2: 0, rho2: 0,
+    bins: B, perBin: L, w: new Float64Array(B), e: new Float64Array(B), x: new Float64Array(B), rho: new Float64Array(B),
+    w2: 0, w2e: 0, w2e2: 0,
     site: new Float64Array(B * N), nkRe: new Float64Array(B * K), nkIm: new Float64Array(B * K), nk2: new Float64Array(B * K),
     pairs: new Float64Array(B * S),
   };
   const occ = new Int32Array(N);
   for (let t = 0; t < req.sweeps; t++) {
     chain.sweep(rng);
-    const b = Math.floor(t / L);
-    const X = chain.flipRatioSum(), e = chain.localEnergy(req.alpha, X) / N, x = X / N, rho = chain.occupied / N;
-    m.e[b] += e; m.x[b] += x; m.rho[b] += rho; m.e2 += e * e; m.x2 += x * x; m.rho2 += rho * rho;
+    const b = Math.floor(t / L), w = chain.weight();
+    const e = chain.localEnergy(req.alpha) / N;
+    m.w[b] += w; m.e[b] += w * e; m.x[b] += (w * chain.ratioSum) / N; m.rho[b] += (w * chain.occupied) / N;
+    m.w2 += w * w; m.w2e += w * w * e; m.w2e2 += w * w * e * e;
     let no = 0;
-    for (let i = 0; i < N; i++) if (chain.n[i]) { occ[no++] = i; m.site[b * N + i]++; }
+    for (let i = 0; i < N; i++) if (chain.n[i]) { occ[no++] = i; m.site[b * N + i] += w; }
     for (let q = 0; q < K; q++) {
       let re = 0, im = 0;
       const row = q * N;
       for (let a = 0; a < no; a++) { re += f.cos[row + occ[a]]; im += f.sin[row + occ[a]]; }
-      m.nkRe[b * K + q] += re; m.nkIm[b * K + q] += im; m.nk2[b * K + q] += re * re + im * im;
+      m.nkRe[b * K + q] += w * re; m.nkIm[b * K + q] += w * im; m.nk2[b * K + q] += w * (re * re + im * im);
     }
     for (let a = 0; a < no; a++) {
       const row = occ[a] * N;
-      for (let q = 0; q < a; q++) m.pairs[b * S + c.shellOf[row + occ[q]]] += 2;
+      for (let q = 0; q < a; q++) m.pairs[b * S + c.shellOf[row + occ[q]]] += 2 * w;
     }
   }
   return m;
