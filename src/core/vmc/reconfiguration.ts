@@ -10,8 +10,8 @@
  * samples do not resolve: the floor 1e-3 (in units of O^2, O being occupation counts) freezes
  * directions whose fluctuations are below it, e.g. Jastrow shells a near-classical crystal
  * never occupies, where the noisy ratio F/S would otherwise random-walk the parameter until
- * it spoils the state (found necessary on 12-site vdw rings at alpha = 0.02); the step is capped at maxStep per parameter, common practice
- * against the noise of the first steps. Averages are weighted by the guide's w (see
+ * it spoils the state (found necessary on 12-site vdw rings at alpha = 0.02). The step is
+ * capped at maxStep per parameter, common practice against the noise of the first steps. Averages are weighted by the guide's w (see
  * markov-chain.ts) and merge the sums of every chain.
  */
 import { CholeskyDecomposition, Matrix, solve } from 'ml-matrix';
