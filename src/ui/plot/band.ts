@@ -5,7 +5,11 @@
 import type { Frame, Mark } from './frame.ts';
 import { el, esc } from './svg-markup.ts';
 
-export interface Band { x0: number; x1: number; fill: string; label?: string; opacity?: number }
+export interface Band {
+  x0: number; x1: number; fill: string; label?: string; opacity?: number;
+  /** Vertical extent as fractions of the plot height from the bottom (default 0..1). */
+  from?: number; to?: number;
+}
 
 /** Shade each interval [x0, x1]; labels too wide for their band are rotated upright. */
 export function bandsX(bands: Band[]): Mark {
@@ -16,14 +20,15 @@ export function bandsX(bands: Band[]): Mark {
       for (const b of bands) {
         const a = f.x(b.x0), c = f.x(b.x1);
         const X = Math.min(a, c), W = Math.max(1, Math.abs(c - a));
-        out += el('rect', { x: X, y: f.inner.y0, width: W, height: f.inner.y1 - f.inner.y0, fill: b.fill, 'fill-opacity': b.opacity ?? 0.35 });
+        const [top, bottom] = extent(f, b);
+        out += el('rect', { x: X, y: top, width: W, height: bottom - top, fill: b.fill, 'fill-opacity': b.opacity ?? 0.35 });
       }
       for (const b of bands) {
         if (!b.label) continue;
         const a = f.x(b.x0), c = f.x(b.x1);
         const cx = (a + c) / 2, W = Math.abs(c - a);
         const upright = W < b.label.length * 7 + 4;
-        const y = f.inner.y0 + 6;
+        const y = extent(f, b)[0] + 6;
         out += upright
           ? `<text x="${cx + 4}" y="${y}" transform="rotate(90 ${cx + 4} ${y})" font-size="11" fill="#1d2430" class="band-label">${esc(b.label)}</text>`
           : el('text', { x: cx, y: y + 10, 'text-anchor': 'middle', 'font-size': 11, fill: '#1d2430', class: 'band-label' }, esc(b.label));
@@ -31,4 +36,10 @@ export function bandsX(bands: Band[]): Mark {
       return `<g class="bands">${out}</g>`;
     },
   };
+}
+
+/** Pixel top and bottom of a band. */
+function extent(f: Frame, b: Band): [number, number] {
+  const h = f.inner.y1 - f.inner.y0;
+  return [f.inner.y1 - h * (b.to ?? 1), f.inner.y1 - h * (b.from ?? 0)];
 }

@@ -40,7 +40,7 @@ export function demoState(): AppState {
       range: '', detuning: '3', pump: 'mu', mu: '1', density: '0.3', temperature: '0', 'max-cell': '12',
     },
     atlas: { x: 'mu=-1:2.9:64', y: 'rb=0.8:2.4:40', lines: 'vdw:inf', shade: 'phase', point: '' },
-    staircase: { mu: '-1:2.9:400', compare: 'vdw:1' },
+    staircase: { mu: '-1:2.9:400', compare: '1' },
     modes: { points: '96', cell: '' },
     correlated: { method: 'ed', size: '10', alpha: '', seed: '7', steps: '60', samples: '4000', sites: '' },
     planner: {

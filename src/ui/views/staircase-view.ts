@@ -1,8 +1,153 @@
-/** <staircase-view>: under construction. */
-import { LitElement, html } from 'lit';
+/**
+ * <staircase-view>: a mu scan at the model's other parameters for the model's interaction
+ * range and a second range to compare, rho(mu) and the emitter filling, the plateaus found
+ * from the solutions (src/core/meanfield/plateaus.ts) shaded and labelled, and a table of
+ * plateau widths for both ranges.
+ */
+import { LitElement, html, css, nothing } from 'lit';
+import type { AppState, ModelInputs } from '../state/app-state.ts';
+import type { ParsedModel } from '../model/model-inputs.ts';
+import { parseRange, rangeValues } from '../../core/scan/axes.ts';
+import { findPlateaus, type Plateau } from '../../core/meanfield/plateaus.ts';
+import type { ModelParams } from '../../core/model.ts';
+import type { EngineClient } from '../engine/engine-client.ts';
+import { LineScansController } from '../controllers/line-scans.ts';
+import { plateauLabel, staircaseFigure, type StaircaseSeries } from '../figures/staircase-figure.ts';
+import { sharedStyles } from '../app/shared-styles.ts';
+import { cliLine, modelFlags } from '../export/cli-command.ts';
+import type { Table } from '../export/table.ts';
+import '../app/figure-panel.ts';
+import '../app/data-export.ts';
+import '../app/limits-note.ts';
+
+type StaircaseSection = AppState['staircase'];
+const fmt = (v: number) => Number(v.toPrecision(5)).toString();
+
+/** Choices for the second range: a cut of the model's interaction. */
+const COMPARE: [string, string][] = [['', 'none'], ['1', 'r \u2264 1 (nearest only)'], ['2', 'r \u2264 2'], ['3', 'r \u2264 3'], ['inf', 'full sum']];
+
+/** Human label of a range cut. */
+function rangeLabel(r: number | undefined): string {
+  return r === undefined || !Number.isFinite(r) ? 'full range' : `r \u2264 ${r}`;
+}
 
 export class StaircaseView extends LitElement {
-  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false } };
-  override render() { return html`<p>Under construction.</p>`; }
+  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false }, width: { state: true } };
+  declare section: StaircaseSection;
+  declare model: ParsedModel;
+  declare inputs: ModelInputs;
+  declare engine: EngineClient;
+  declare width: number;
+  private scans = new LineScansController(this, () => this.engine);
+  private rangeError: string | null = null;
+  private resize = new ResizeObserver((e) => { this.width = Math.round(e[0].contentRect.width); });
+
+  constructor() {
+    super();
+    this.width = 900;
+  }
+
+  static override styles = [sharedStyles, css`
+    :host { display: block; }
+    .controls { display: flex; gap: 16px; flex-wrap: wrap; align-items: flex-end; margin-bottom: 8px; }
+    .controls label { display: block; font-size: 13px; }
+    .tables { display: flex; gap: 24px; flex-wrap: wrap; margin-top: 8px; align-items: flex-start; }
+  `];
+
+  override connectedCallback() { super.connectedCallback(); this.resize.observe(this); }
+  override disconnectedCallback() { super.disconnectedCallback(); this.resize.disconnect(); }
+
+  private patch(p: Partial<StaircaseSection>) {
+    this.dispatchEvent(new CustomEvent('section-change', { detail: { section: 'staircase', patch: p }, bubbles: true, composed: true }));
+  }
+
+  /** The two interaction ranges: the model's own, and the comparison cut (if any, and different). */
+  private ranges(p: ModelParams): (number | undefined)[] {
+    const own = p.interaction.rmax;
+    const c = this.section.compare.trim();
+    if (c === '') return [own];
+    const other = c === 'inf' ? undefined : Number(c);
+    return (other ?? Infinity) === (own ?? Infinity) ? [own] : [own, other];
+  }
+
+  override willUpdate() {
+    const p = this.model.params;
+    this.rangeError = null;
+    let r;
+    try { r = parseRange(this.section.mu, 'mu'); } catch (e) { this.rangeError = (e as Error).message; return; }
+    if (!p || !this.engine) return;
+    if (r.count < 2 || r.count > 5000) { this.rangeError = 'mu: count must be 2..5000'; return; }
+    const mus = rangeValues(r).filter((m) => m < p.delta);
+    if (mus.length < 2) { this.rangeError = `mu must stay below the detuning ${p.delta}`; return; }
+    const series = this.ranges(p).map((rmax) => {
+      const { rho: _rho, ...base } = p;
+      const interaction = { ...p.interaction };
+      if (rmax === undefined) delete interaction.rmax; else interaction.rmax = rmax;
+      return { label: rangeLabel(rmax), points: mus.map((mu) => ({ ...base, interaction, mu })) };
+    });
+    this.scans.run(JSON.stringify(series.map((s) => s.points[0]).concat([{ mus } as never])), series);
+  }
+
+  override updated() {
+    this.dataset.scan = this.scans.status;
+  }
+
+  private plateauTable(s: StaircaseSeries[]): Table {
+    const rows: Table['rows'] = [];
+    for (const x of s) for (const p of x.plateaus) rows.push([x.label, p.fraction, p.muLow, p.muHigh, p.width, p.points, p.openLow || p.openHigh ? 'open' : '']);
+    return { columns: ['range', 'fraction', 'muLow', 'muHigh', 'width', 'points', 'edge'], rows };
+  }
+
+  override render() {
+    const v = this.scans.value;
+    const maxCell = this.model.params?.maxCell ?? 12;
+    const series: StaircaseSeries[] = v ? v.series.map((s) => ({
+      label: s.label, mu: s.states.map((x) => x.mu), rho: s.states.map((x) => x.excitationDensity),
+      filling: s.states.map((x) => x.emitterDensity), plateaus: findPlateaus(s.states, maxCell),
+    })) : [];
+    const w = Math.max(340, Math.min(this.width, 1100));
+    const fig = series.length ? staircaseFigure(series[0], series[1] ?? null, v!.series[0].points[0].delta, w, Math.round(Math.min(480, Math.max(300, w * 0.5)))) : null;
+    const pts: Table = {
+      columns: ['range', 'mu', 'phase', 'fraction', 'excitationDensity', 'emitterDensity', 'photonDensity', 'cellSize'],
+      rows: v ? v.series.flatMap((s) => s.states.map((x) => [s.label, x.mu, x.phase, x.fraction ?? '', x.excitationDensity, x.emitterDensity, x.photonDensity, x.cellSize])) : [],
+    };
+    const p = this.model.params;
+    const cmds = p ? this.ranges(p).map((rmax) => cliLine('staircase', [...modelFlags({ ...this.inputs, range: rmax === undefined ? '' : String(rmax) }, ['mu']), `--mu=${this.section.mu}`])) : [];
+    return html`
+      <div class="controls">
+        <div><label for="st-mu">\u03bc scan start:stop:count (g)</label>
+          <input id="st-mu" name="staircase-mu" .value=${this.section.mu} aria-invalid=${this.rangeError ? 'true' : 'false'} aria-describedby="st-mu-msg"
+            @input=${(e: Event) => this.patch({ mu: (e.target as HTMLInputElement).value })}>
+          <div class="err" id="st-mu-msg" role=${this.rangeError ? 'alert' : nothing}>${this.rangeError ?? ''}</div></div>
+        <div><label for="st-cmp">Compare with the range cut</label>
+          <select id="st-cmp" name="staircase-compare" @change=${(e: Event) => this.patch({ compare: (e.target as HTMLSelectElement).value })}>
+            ${COMPARE.map(([k, t]) => html`<option value=${k} ?selected=${k === this.section.compare}>${t}</option>`)}</select></div>
+        <div aria-live="polite"><progress max=${this.scans.total || 1} .value=${this.scans.done} aria-label="Staircase progress"></progress>
+          ${this.scans.status === 'running' ? html`${this.scans.done} / ${this.scans.total} <button @click=${() => this.scans.cancel()}>Cancel</button>` : nothing}
+          ${this.scans.error ? html`<span class="err" role="alert">${this.scans.error}</span>` : nothing}
+          ${!p ? html`<span class="err">The model has an invalid entry: showing the last good staircase.</span>` : nothing}</div>
+      </div>
+      <figure-panel class="staircase" .figure=${fig}></figure-panel>
+      <p class="muted">Plateaus are read from the solutions: no condensate and every sublattice empty or full, the fraction from the
+        cell's integer occupation confirmed by continued fractions with denominators \u2264 Mmax. Edges are those of the grid
+        (within one step ${series.length ? `= ${fmt((series[0].mu.at(-1)! - series[0].mu[0]) / Math.max(1, series[0].mu.length - 1))} g` : ''}).</p>
+      <div class="tables">${series.map((s) => this.widths(s))}</div>
+      <limits-note lattice=${p?.lattice ?? this.inputs.lattice} temperature=${p?.T ?? 0}></limits-note>
+      ${v ? html`<data-export class="points-export" .table=${pts} .json=${{ series: series.map((s, i) => ({ label: s.label, plateaus: s.plateaus, points: v.series[i].states })) }}
+        name="staircase" .command=${cmds.join('\n')}></data-export>
+        <data-export class="plateau-export" .table=${this.plateauTable(series)} .json=${this.plateauTable(series)} name="plateaus"></data-export>` : nothing}
+    `;
+  }
+
+  private widths(s: StaircaseSeries) {
+    const list: Plateau[] = [...s.plateaus].sort((a, b) => b.width - a.width);
+    return html`<table class="plateaus" aria-label="Plateau widths, ${s.label}">
+      <caption><strong>${s.label}</strong>: ${list.length} plateaus</caption>
+      <thead><tr><th class="l">fraction</th><th>\u03bc low (g)</th><th>\u03bc high (g)</th><th>width (g)</th></tr></thead>
+      <tbody>${list.map((p) => html`<tr><td class="l">${plateauLabel(p.fraction)}</td><td>${p.openLow ? '\u2264 ' : ''}${fmt(p.muLow)}</td>
+        <td>${p.openHigh ? '\u2265 ' : ''}${fmt(p.muHigh)}</td><td>${fmt(p.width)}</td></tr>`)}</tbody></table>`;
+  }
 }
 customElements.define('staircase-view', StaircaseView);
+
+declare global { interface HTMLElementTagNameMap { 'staircase-view': StaircaseView } }
