@@ -23,6 +23,8 @@ export interface MeanFieldScanOptions {
   onPoint?: (p: ScanPointResult) => void;
   /** Points done and the total, after each point. */
   onProgress?: (done: number, total: number) => void;
+  /** Stream each point as it finishes (default true); false: a segment at a time. */
+  streamPoints?: boolean;
 }
 
 /** Number of points a scan (or one shard of it) computes. */
@@ -57,8 +59,8 @@ export async function runMeanFieldScan(
       points.push(gridPoint(plan, seg.ix0 + i, seg.iy));
       seeds.push(pointSeed(plan.seed, seg.iy * nx + seg.ix0 + i));
     }
-    const states = await remote.meanfield.solveRun(
-      { points, seeds, continuation }, proxy((i: number, s: SolveResult) => deliver(seg, i, s)));
+    const onPoint = opts.streamPoints === false ? undefined : proxy((i: number, s: SolveResult) => deliver(seg, i, s));
+    const states = await remote.meanfield.solveRun({ points, seeds, continuation }, onPoint);
     states.forEach((s, i) => deliver(seg, i, s));
     return states.length;
   }, { signal: opts.signal });
