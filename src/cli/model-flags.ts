@@ -19,7 +19,7 @@ export const MODEL_FLAGS: readonly FlagSpec[] = [
   { name: 'v2', kind: 'number', value: 'V2', def: '0', help: 'next-nearest strength of the nn shape' },
   { name: 'v0', kind: 'number', value: 'V0', help: 'plateau height of the softcore shape' },
   { name: 'rc', kind: 'number', value: 'Rc', help: 'core radius of the softcore shape (units of a)' },
-  { name: 'range', kind: 'number', value: 'rmax|inf', def: 'inf', help: 'drop pairs farther apart than rmax (default: full converged lattice sum)' },
+  { name: 'range', kind: 'number', value: 'rmax|inf', def: 'inf', help: 'drop pairs farther apart than rmax (inf: the full converged lattice sum)' },
   { name: 'detuning', kind: 'number', value: 'delta', help: 'cavity detuning from the emitter line (units of g)' },
   { name: 'mu', kind: 'number', value: 'mu', help: 'chemical potential of excitations, below the detuning' },
   { name: 'density', kind: 'number', value: 'rho', help: 'fixed excitation density rho = alpha^2 + <n> (instead of --mu)' },

@@ -33,17 +33,18 @@ export const mapCommand: Command = {
   summary: 'phases over a grid of one or two parameters (CSV or JSON), shardable',
   usage: 'map --x name=start:stop:count [--y name=start:stop:count] [model flags] [--shard k/n] [--out file]',
   description:
-    `Solves the mean-field ground state at every point of a grid over one or two of ${AXIS_HELP}\n` +
-    '(evenly spaced, start and stop included), in a pool of worker threads. Prints CSV with a\n' +
-    'header naming every column, one row a point (ix, iy, the axis values, then the state), or\n' +
-    'JSON with --json. The flags of the model fix everything the axes do not.\n' +
+    'Solves the mean-field ground state at every point of a grid over one or two parameters\n' +
+    `(${AXIS_HELP}; evenly spaced, start and stop included)\n` +
+    'in a pool of worker threads. Prints CSV with a header naming every column, one row a point\n' +
+    '(ix, iy, the axis values, then the state), or JSON with --json. The model flags fix\n' +
+    'everything the axes do not.\n' +
     'For a cluster: run each of n parts with --shard k/n (k = 1..n) as one job of a job array,\n' +
     'each with its own --out, then join the parts with merge. Ctrl-C writes the finished points.',
   flags: [...MAP_FLAGS, ...MODEL_FLAGS, ...SCAN_FLAGS, ...OUTPUT_FLAGS, HELP_FLAG],
   examples: [
-    'map --x mu=-1:3:200 --y rb=1:2:100 --detuning 3 --out map.csv',
-    'map --x mu=-1:3:200 --y temperature=0:0.5:50 --interaction nn --v1 2 --detuning 3 --json',
-    'map --x mu=-1:3:400 --y rb=1:2:400 --detuning 3 --shard 3/16 --out part-3.csv',
+    'map --x mu=-1:2.5:200 --y rb=1:2:100 --detuning 3 --out map.csv',
+    'map --x mu=-1:2.5:200 --y temperature=0:0.5:50 --interaction nn --v1 2 --detuning 3 --json',
+    'map --x mu=-1:2.5:400 --y rb=1:2:400 --detuning 3 --shard 3/16 --out part-3.csv',
   ],
   async run(args, io) {
     const xs = str(args, 'x');
