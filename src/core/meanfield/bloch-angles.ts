@@ -172,7 +172,8 @@ export function solveAngles(p: CellProblem, m0: ArrayLike<number>, opts: SolveCe
     }
     if (!ok) break;
     step = 0;
-    for (let s = 0; s < M; s++) step = Math.max(step, Math.abs(tm[s] - m[s]));
+    // m and <sigma^x> both: near alpha = 0, m ~ theta^2 settles long before sin theta does.
+    for (let s = 0; s < M; s++) step = Math.max(step, Math.abs(tm[s] - m[s]), Math.abs(tsn[s] - sn[s]));
     th.set(tth); m.set(tm); sn.set(tsn); cs.set(tcs); xi.set(txi); phi = tphi;
     opts.trace?.(m, alpha, phi, lambda);
     if (step < tol && lambda === 1) { converged = true; break; }

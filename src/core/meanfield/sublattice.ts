@@ -11,7 +11,7 @@
  * Both methods minimise the mean-field free energy of a product state (so they converge to
  * minima, not saddles, and never cycle) with Newton steps and a line search: at T = 0 over
  * Bloch angles (bloch-angles.ts), at T > 0 over the trial fields (thermal-fields.ts).
- * Converged when a full step changes every m_s by less than tol = 1e-12.
+ * Converged when a full step changes every m_s and <sigma^x>_s by less than tol = 1e-12.
  */
 import { levelFreeEnergy } from './emitter.ts';
 import { solveAngles } from './bloch-angles.ts';
@@ -51,9 +51,16 @@ export interface SolveCellOptions {
   abandon?: (m: Float64Array, it: number) => boolean;
 }
 
+/**
+ * A photon amplitude below this is the rounding left of a vanishing root and is reported as
+ * exactly 0 (near the onset alpha ~ sqrt(mu - mu_c), so this resolves mu_c to ~1e-26).
+ */
+export const ALPHA_ZERO = 1e-13;
+
 /** Solve the sublattice equations of one cell from the start m0 (values in [0, 1]). */
 export function solveCell(p: CellProblem, m0: ArrayLike<number>, opts: SolveCellOptions = {}): CellSolution {
   const r = p.T === 0 ? solveAngles(p, m0, opts) : solveFields(p, m0, opts);
+  if (r.alpha < ALPHA_ZERO) { r.alpha = 0; r.sx.fill(0); }
   return { m: r.m, sx: r.sx, alpha: r.alpha, omega: grandPotential(p, r.m, r.xi, r.alpha), converged: r.converged, iterations: r.iterations, step: r.step };
 }
 

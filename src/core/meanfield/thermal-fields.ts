@@ -14,7 +14,7 @@
  * Its gradient is (1/M) chi r with chi = d(m, x)/d(zeta, beta) negative semidefinite, so the
  * plain step dh = r always descends and is the fallback when the Newton step does not: the
  * iteration converges to minima and never cycles. Fields are unbounded, so no step is
- * clipped. Converged when a full step changes m by less than tol (1e-12).
+ * clipped. Converged when a full step changes m and <sigma^x> by less than tol (1e-12).
  */
 import { gOf, qOf, occupation, levelFreeEnergy, photonDensity } from './emitter.ts';
 import { gaussSolve } from './dense-solve.ts';
@@ -144,7 +144,7 @@ export function solveFields(p: CellProblem, m0: ArrayLike<number>, opts: SolveCe
     }
     if (!ok) break;
     step = 0;
-    for (let s = 0; s < M; s++) step = Math.max(step, Math.abs(next.m[s] - cur.m[s]));
+    for (let s = 0; s < M; s++) step = Math.max(step, Math.abs(next.m[s] - cur.m[s]), Math.abs(next.x[s] - cur.x[s]));
     h = Float64Array.from(trialH);
     [cur, next] = [next, cur];
     opts.trace?.(cur.m, h[M], cur.phi, lambda);
