@@ -16,6 +16,9 @@ export const SOURCES = {
   bakBruinsma: 'Bak and Bruinsma, Phys. Rev. Lett. 49, 249 (1982)',
   pfeuty: 'Pfeuty, Annals of Physics 57, 79 (1970)',
   sorella: 'Sorella, Phys. Rev. Lett. 80, 4558 (1998)',
+  stinchcombe: 'Stinchcombe, J. Phys. C 6, 2459 (1973): RPA (linear spin-wave) modes of the transverse Ising model, paramagnet omega_k^2 = 4h(h + J(k)/2) in sigma units (from memory)',
+  braggWilliams: 'mean-field lattice gas (Bragg-Williams): instability where 1 + V(k) m(1-m)/T = 0, T_c = z J_Ising (textbook, e.g. Chaikin and Lubensky, Principles of Condensed Matter Physics (1995), ch. 4; from memory)',
+  wilkinsonReinsch: 'Wilkinson and Reinsch, Handbook for Automatic Computation II: Linear Algebra (Springer 1971): hqr2, tred2/tql2 (via ml-matrix)',
 } as const;
 
 /** |actual - expected| <= rel * |expected| (plus a tiny absolute floor for zeros). */
