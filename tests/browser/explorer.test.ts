@@ -164,6 +164,21 @@ describe('phase atlas', () => {
   });
 });
 
+describe('staircase', () => {
+  it('the demo staircase shows its labelled plateaus and their widths', async () => {
+    await open('?view=staircase');
+    await page.locator('staircase-view[data-scan="done"]').waitFor({ state: 'attached', timeout: 90_000 });
+    await expect.poll(() => page.locator('figure-panel.staircase svg .band-label').count()).toBeGreaterThan(0);
+    const labels = await page.locator('figure-panel.staircase svg .band-label').allTextContents();
+    // the demo chain (vdw, Rb = 1.5, delta = 3) locks at 1/3 and 1/2 over mu in -1..2.9 (its atlas shows both)
+    expect(labels).toContain('1/2');
+    expect(labels).toContain('1/3');
+    const widths = await page.locator('staircase-view table.plateaus').first().locator('tbody tr').count();
+    expect(widths).toBeGreaterThanOrEqual(2);
+    await screenshot(page, 'staircase');
+  });
+});
+
 describe('array planner', () => {
   it('converts lab numbers and gives a verdict with its margin', async () => {
     await open('?view=planner');

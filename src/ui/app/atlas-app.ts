@@ -18,6 +18,15 @@ import '../views/modes-view.ts';
 import '../views/correlated-view.ts';
 import '../views/array-planner-view.ts';
 
+/**
+ * Scan workers: navigator.hardwareConcurrency, or ?workers=N in the address (read once at
+ * start, not part of the state: it changes speed, never results) for timing comparisons.
+ */
+function workerCount(): number {
+  const n = Number(new URLSearchParams(location.search).get('workers'));
+  return Number.isInteger(n) && n >= 1 && n <= 64 ? n : Math.max(1, navigator.hardwareConcurrency || 2);
+}
+
 const VIEW_TITLES: Record<ViewName, string> = {
   atlas: 'Phase atlas', staircase: 'Staircase', modes: 'Modes', correlated: 'Correlated check', planner: 'Array planner',
 };
@@ -27,7 +36,7 @@ export class AtlasApp extends LitElement {
   declare state: AppState;
   /** The parsed form; while an entry is invalid params is null and the views keep their last result. */
   private parsed: ParsedModel;
-  readonly engine = new EngineClient();
+  readonly engine = new EngineClient(workerCount());
 
   constructor() {
     super();
@@ -37,7 +46,6 @@ export class AtlasApp extends LitElement {
     // the opened state is the session from now on, and the address shows it
     history.replaceState(null, '', `${location.pathname}?${encodeState(this.state)}`);
     saveSession(this.state);
-    void this.engine.warm().catch(() => undefined);
   }
 
   static override styles = [sharedStyles, css`

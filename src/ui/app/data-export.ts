@@ -1,6 +1,8 @@
 /**
  * <data-export>: a view's numbers as CSV and JSON files, and the command line that
  * reproduces the view ("copy as command"), shown in full so it can be read and selected.
+ * `table` and `json` may be functions, called only when the file is asked for (a big map's
+ * table is not rebuilt at every redraw); `rows` then gives the count shown.
  */
 import { LitElement, html, css, nothing } from 'lit';
 import { sharedStyles } from './shared-styles.ts';
@@ -9,11 +11,12 @@ import { type Table, toCSV } from '../export/table.ts';
 
 export class DataExport extends LitElement {
   static override properties = {
-    table: { attribute: false }, json: { attribute: false }, command: { type: String }, name: { type: String },
+    table: { attribute: false }, json: { attribute: false }, rows: { attribute: false }, command: { type: String }, name: { type: String },
     copied: { state: true },
   };
-  declare table: Table | null;
+  declare table: Table | (() => Table) | null;
   declare json: unknown;
+  declare rows: number | null;
   declare command: string;
   declare name: string;
   declare copied: boolean;
@@ -22,6 +25,7 @@ export class DataExport extends LitElement {
     super();
     this.table = null;
     this.json = null;
+    this.rows = null;
     this.command = '';
     this.name = 'atlas';
     this.copied = false;
@@ -45,12 +49,21 @@ export class DataExport extends LitElement {
     setTimeout(() => { this.copied = false; }, 2000);
   }
 
+  private csv() {
+    const t = typeof this.table === 'function' ? this.table() : this.table;
+    if (t) downloadText(toCSV(t), `${this.name}.csv`, 'text/csv');
+  }
+
+  private saveJson() {
+    const j = typeof this.json === 'function' ? (this.json as () => unknown)() : this.json;
+    downloadText(JSON.stringify(j, null, 1), `${this.name}.json`, 'application/json');
+  }
+
   override render() {
-    const rows = this.table?.rows.length ?? 0;
+    const rows = this.rows ?? (typeof this.table === 'function' ? 0 : this.table?.rows.length ?? 0);
     return html`<div class="row" role="group" aria-label="Export the numbers of this view">
-        <button ?disabled=${!this.table} @click=${() => this.table && downloadText(toCSV(this.table), `${this.name}.csv`, 'text/csv')}
-          aria-label="Save the numbers as CSV">CSV</button>
-        <button ?disabled=${this.json === null} @click=${() => downloadText(JSON.stringify(this.json, null, 1), `${this.name}.json`, 'application/json')}
+        <button ?disabled=${!this.table} @click=${this.csv} aria-label="Save the numbers as CSV">CSV</button>
+        <button ?disabled=${this.json === null} @click=${this.saveJson}
           aria-label="Save the numbers as JSON">JSON</button>
         <span class="muted">${rows} rows</span>
         ${this.command ? html`<button @click=${this.copy}>Copy as command</button>

@@ -6,7 +6,6 @@
  * stay on screen until the new ones are complete.
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
-import { proxy } from 'comlink';
 import type { ModelParams } from '../../core/model.ts';
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import { pointSeed } from '../../core/scan/grid.ts';
@@ -50,8 +49,7 @@ export class LineScansController implements ReactiveController {
     const exec = async (remote: EngineRemote, t: { si: number; i0: number; n: number }) => {
       const pts = series[t.si].points.slice(t.i0, t.i0 + t.n);
       const seeds = pts.map((_, k) => pointSeed(SCAN_SEED, t.i0 + k));
-      const out = await remote.meanfield.solveRun({ points: pts, seeds, continuation: true },
-        proxy((k: number, s: SolveResult) => { if (!ctrl.signal.aborted) states[t.si][t.i0 + k] = s; }));
+      const out = await remote.meanfield.solveRun({ points: pts, seeds, continuation: true });
       out.forEach((s, k) => { states[t.si][t.i0 + k] = s; });
       return out.length;
     };

@@ -6,7 +6,6 @@
  * main thread while results stream in.
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
-import { proxy } from 'comlink';
 import type { ModelParams } from '../../core/model.ts';
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import { applyAxis, type Axis } from '../../core/scan/axes.ts';
@@ -60,6 +59,8 @@ export class MapScanController implements ReactiveController {
   /** ms from start to the first complete coarse level, and to the last point. */
   firstPictureMs: number | null = null;
   totalMs: number | null = null;
+  /** performance.now() at the start of the current run. */
+  startedAt = 0;
   /** Runs started, and runs stopped before they finished (superseded or cancelled). */
   started = 0;
   cancelled = 0;
@@ -83,6 +84,7 @@ export class MapScanController implements ReactiveController {
     this.firstPictureMs = null;
     this.totalMs = null;
     this.t0 = performance.now();
+    this.startedAt = this.t0;
     const ctrl = new AbortController();
     this.ctrl = ctrl;
     const runs = refineRuns(grid.nx, grid.ny, 8);
@@ -99,8 +101,8 @@ export class MapScanController implements ReactiveController {
     const exec = async (remote: Parameters<Parameters<EngineClient['scan']>[1]>[0], run: PointRun) => {
       const points = run.indices.map((i) => grid.point(i % grid.nx, Math.floor(i / grid.nx)));
       const seeds = run.indices.map((i) => pointSeed(SCAN_SEED, i));
-      const states = await remote.meanfield.solveRun({ points, seeds, continuation: true },
-        proxy((k: number, s: SolveResult) => deliver(run.indices[k], s)));
+      // a run takes ~10 ms: its states come back together (a message per point would cost more than it shows)
+      const states = await remote.meanfield.solveRun({ points, seeds, continuation: true });
       states.forEach((s, k) => deliver(run.indices[k], s));
       return states.length;
     };
@@ -141,8 +143,19 @@ export class MapScanController implements ReactiveController {
     return g ? g.count / (g.nx * g.ny) : 0;
   }
 
+  /** Smoothed cost of one redraw of the host (ms), reported by the host after each update. */
+  private renderCost = 0;
+
+  /** The host says how long its last redraw took; redraws are spaced to keep their share of the main thread under ~20%. */
+  reportRender(ms: number): void {
+    this.renderCost = this.renderCost === 0 ? ms : 0.7 * this.renderCost + 0.3 * ms;
+  }
+
   private schedule() {
-    if (this.timer === null) this.timer = setTimeout(() => this.flush(), this.throttleMs);
+    if (this.timer === null) {
+      const delay = Math.min(1000, Math.max(this.throttleMs, 4 * this.renderCost));
+      this.timer = setTimeout(() => this.flush(), delay);
+    }
   }
 
   private flush() {

@@ -29,7 +29,10 @@ export class EngineClient {
     return this.scanPool.size;
   }
 
-  /** Start every worker now (module load, first compile) so the first scan is not slowed. */
+  /**
+   * Start every worker now (module load, first compile). Not done at page load: on a small
+   * machine the extra start-ups would compete with the first scan; workers start on demand.
+   */
   warm(): Promise<void> {
     const probe = (r: EngineRemote) => r.info();
     return Promise.all([this.scanPool.warm(probe), this.interactivePool.warm(probe)]).then(() => undefined);

@@ -7,7 +7,7 @@
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import type { PhaseLabel } from '../../core/meanfield/state.ts';
 import { renderFigure } from '../plot/figure.ts';
-import { type Grid, heatmap, halfStep } from '../plot/heatmap.ts';
+import { type CellPaint, type Grid, heatmap, halfStep } from '../plot/heatmap.ts';
 import { categoryContour } from '../plot/contour.ts';
 import { axisX, axisY } from '../plot/axis.ts';
 import { legend, type LegendEntry } from '../plot/legend.ts';
@@ -39,10 +39,17 @@ export interface PhaseMapInput {
   title: string;
 }
 
-/** Category of a state: phase plus fraction, and a coexistence mark. */
+const KEYS = new WeakMap<SolveResult, string>();
+
+/** Category of a state: phase plus fraction, and a coexistence mark (memoised per state). */
 export function phaseKey(s: SolveResult | undefined): string | null {
   if (!s) return null;
-  return `${s.phase}${s.fraction ? ' ' + s.fraction : ''}${s.coexistence ? ' mix' : ''}`;
+  let k = KEYS.get(s);
+  if (k === undefined) {
+    k = `${s.phase}${s.fraction ? ' ' + s.fraction : ''}${s.coexistence ? ' mix' : ''}`;
+    KEYS.set(s, k);
+  }
+  return k;
 }
 
 /** The map figure. */
@@ -50,13 +57,21 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
   const id = 'atlas-map';
   const g = o.grid;
   const hx = halfStep(g.x[0], g.x[1], g.nx), hy = halfStep(g.y[0], g.y[1], g.ny);
-  const key = (i: number, j: number) => phaseKey(o.stateAt(i, j));
+  // every cell's state and category once: the marks below look them up many times
+  const cells: (SolveResult | undefined)[] = new Array(g.nx * g.ny);
+  const keys: (string | null)[] = new Array(g.nx * g.ny);
+  for (let j = 0; j < g.ny; j++) for (let i = 0; i < g.nx; i++) {
+    const s = o.stateAt(i, j);
+    cells[j * g.nx + i] = s;
+    keys[j * g.nx + i] = phaseKey(s);
+  }
+  const at = (i: number, j: number) => cells[j * g.nx + i];
+  const key = (i: number, j: number) => keys[j * g.nx + i];
   const present = new Set<PhaseLabel>();
   let coexistence = false;
   let lo = Infinity, hi = -Infinity;
   const value = (s: SolveResult) => (o.shade === 'photon' ? s.photonDensity : s.excitationDensity);
-  for (let j = 0; j < g.ny; j++) for (let i = 0; i < g.nx; i++) {
-    const s = o.stateAt(i, j);
+  for (const s of cells) {
     if (!s) continue;
     present.add(s.phase);
     if (s.coexistence) coexistence = true;
@@ -64,14 +79,18 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
   }
   const marks: Mark[] = [];
   if (o.shade === 'phase') {
+    const paints = new Map<string, CellPaint>();
     marks.push(heatmap(g, (i, j) => {
-      const s = o.stateAt(i, j);
+      const s = at(i, j);
       if (!s) return null;
-      return { key: phaseKey(s) as string, fill: phaseFill(s.phase, s.fraction), texture: phaseTexture(id, s.phase, !!s.coexistence) };
+      const k = key(i, j) as string;
+      let p = paints.get(k);
+      if (!p) paints.set(k, p = { key: k, fill: phaseFill(s.phase, s.fraction), texture: phaseTexture(id, s.phase, !!s.coexistence) });
+      return p;
     }));
   } else {
     marks.push(heatmap(g, (i, j) => {
-      const s = o.stateAt(i, j);
+      const s = at(i, j);
       if (!s) return null;
       const lev = rampLevel(value(s), lo, hi);
       return { key: String(lev), fill: rampColour((lev + 0.5) / 24) };

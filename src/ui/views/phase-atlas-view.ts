@@ -92,7 +92,10 @@ export class PhaseAtlasView extends LitElement {
     return { x, y };
   }
 
+  private updateStart = 0;
+
   override willUpdate() {
+    this.updateStart = performance.now();
     const axes = this.axes();
     if (!axes || !this.model.params || !this.engine) return; // invalid: the last map stays
     const plan = { base: this.model.params, x: axes.x, y: axes.y };
@@ -101,11 +104,16 @@ export class PhaseAtlasView extends LitElement {
   }
 
   override updated() {
+    // rendering is synchronous up to here; layout and paint of the new SVG follow in the same task
+    this.scan.reportRender(performance.now() - this.updateStart);
     // the scan's state on the element, for scripts and tests driving the page
     this.dataset.scan = this.scan.status;
     this.dataset.points = String(this.scan.current?.count ?? 0);
     this.dataset.started = String(this.scan.started);
     this.dataset.cancelled = String(this.scan.cancelled);
+    this.dataset.firstMs = this.scan.firstPictureMs === null ? '' : this.scan.firstPictureMs.toFixed(1);
+    this.dataset.startMs = this.scan.startedAt.toFixed(1);
+    this.dataset.totalMs = this.scan.totalMs === null ? '' : this.scan.totalMs.toFixed(1);
   }
 
   /** Grid cell nearest to data point (x, y). */
@@ -202,7 +210,6 @@ export class PhaseAtlasView extends LitElement {
       title: `Phase map over ${AXIS_SYMBOLS[g.plan.x.name]} and ${AXIS_SYMBOLS[g.plan.y.name]}`,
     }) : null;
     const cmdAxes = g ? [g.plan.x.name, g.plan.y.name] : [];
-    const table = g ? this.table(g) : null;
     const command = cliLine('map', [...modelFlags(this.inputs, cmdAxes), '--x', this.section.x, '--y', this.section.y]);
     const selParams = g && sel ? (() => { const [ix, iy] = this.cellAt(g, sel[0], sel[1]); return { p: g.point(ix, iy), seed: pointSeed(SCAN_SEED, iy * g.nx + ix) }; })() : null;
     return html`
@@ -237,7 +244,8 @@ export class PhaseAtlasView extends LitElement {
       </figure-panel>
       <div class="readout" aria-live="polite" aria-label="Readout under the cursor">${g ? this.readout(g) : 'Waiting for the first points\u2026'}</div>
       <limits-note lattice=${this.model.params?.lattice ?? this.inputs.lattice} temperature=${this.model.params?.T ?? 0}></limits-note>
-      ${table ? html`<data-export class="map-export" .table=${table} .json=${this.json(g!)} name="phase-map" .command=${command}></data-export>` : nothing}
+      ${g ? html`<data-export class="map-export" .table=${() => this.table(g)} .json=${() => this.json(g)} .rows=${g.count}
+        name="phase-map" .command=${command}></data-export>` : nothing}
       ${selParams && sel ? html`<point-detail .params=${selParams.p} .seed=${selParams.seed} .engine=${this.engine} .width=${w}
           label="${AXIS_SYMBOLS[g!.plan.x.name]} = ${fmt(sel[0])}, ${AXIS_SYMBOLS[g!.plan.y.name]} = ${fmt(sel[1])}"
           .command=${cliLine('solve', [...modelFlags(this.inputs, cmdAxes), ...axisFlags(g!.plan.x.name, sel[0]), ...axisFlags(g!.plan.y.name, sel[1]), '--seed', String(selParams.seed), '--json'])}
