@@ -73,8 +73,14 @@ function positiveInteger(x: number, field: string, min = 1): number {
   return x;
 }
 
-/** Optimise and measure; `onProgress(done, total)` after every batch of segments. */
-export async function variationalMonteCarlo(req: VmcRequest, run: SegmentRunner, onProgress?: (done: number, total: number) => void): Promise<VmcResult> {
+/**
+ * Optimise and measure; `onProgress(done, total)` after every batch of segments, and
+ * `onStep(entry)` with each optimisation step's trace entry as it is made (a live trace).
+ */
+export async function variationalMonteCarlo(
+  req: VmcRequest, run: SegmentRunner, onProgress?: (done: number, total: number) => void,
+  onStep?: (entry: VmcResult['trace'][number]) => void,
+): Promise<VmcResult> {
   const mu = requireFinite(req.mu, 'mu');
   if (req.alpha === undefined && req.delta === undefined) {
     throw new InputError('give alpha (a fixed photon amplitude) or the detuning (alpha optimised)', 'alpha');
@@ -110,6 +116,7 @@ export async function variationalMonteCarlo(req: VmcRequest, run: SegmentRunner,
     const sr = reconfigurationStep(res.map((r) => r.optimise!), N, eta, shift);
     const photon = gap === null ? 0 : gap * alpha * alpha;
     trace.push({ step, energyPerSite: photon + sr.energy / N, error: sr.energyError / N, alpha, acceptance: acceptance(res) });
+    onStep?.(trace[trace.length - 1]);
     theta = theta.map((t, k) => t + sr.delta[k]);
     if (selfConsistent) alpha = Math.max(0, (1 - beta) * alpha + (beta * sr.sigmaX) / (2 * (gap as number)));
     if (step >= steps - window) {
