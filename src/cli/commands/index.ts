@@ -6,5 +6,7 @@ import type { Command } from '../command.ts';
 import { solveCommand } from './solve.ts';
 import { mapCommand } from './map.ts';
 import { mergeCommand } from './merge.ts';
+import { edCommand } from './ed.ts';
+import { vmcCommand } from './vmc.ts';
 
-export const COMMANDS: readonly Command[] = [solveCommand, mapCommand, mergeCommand];
+export const COMMANDS: readonly Command[] = [solveCommand, mapCommand, edCommand, vmcCommand, mergeCommand];
