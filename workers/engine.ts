@@ -7,11 +7,13 @@
 import { proxy } from 'comlink';
 import type { EngineInfo } from './protocol.ts';
 import { meanfieldApi } from './api/meanfield.ts';
+import { correlatedApi } from './api/correlated.ts';
 
 // proxy() marks each group so Comlink's types give remote.group.method(...) as a call
 // (at run time Comlink walks the property path either way).
 const groups = {
   meanfield: proxy(meanfieldApi),
+  correlated: proxy(correlatedApi),
 };
 
 export const engine = {

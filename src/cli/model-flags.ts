@@ -70,7 +70,8 @@ export function seedFromArgs(a: ParsedArgs): number {
   return int(a, 'seed') ?? 1;
 }
 
-function interactionFromArgs(a: ParsedArgs, axes: readonly AxisName[]): InteractionSpec {
+/** The InteractionSpec of the interaction flags (also used by the ed and vmc commands). */
+export function interactionFromArgs(a: ParsedArgs, axes: readonly AxisName[] = []): InteractionSpec {
   const shape = (str(a, 'interaction') ?? 'vdw') as InteractionShape;
   if (!INTERACTION_SHAPES.includes(shape)) {
     throw new InputError(`unknown interaction '${shape}' (use ${INTERACTION_SHAPES.join(', ')})`, 'interaction');

@@ -22,7 +22,7 @@ export function buildCluster(spec: ClusterSpec): Cluster {
   if (spec.kind === 'array') return arrayCluster(spec.lattice, spec.positions, spec.interaction);
   const dim = lattice(spec.lattice).dim;
   const size = spec.size;
-  if (dim === 1 && size.length !== 1) throw new InputError(`a chain takes one size L, got ${size.join('x')}`, 'size');
+  if (dim === 1 && size.length !== 1) throw new InputError(`a chain takes one size L, got ${size.join('x')} (a 2D cluster needs --lattice square or triangular)`, 'size');
   if (dim === 2 && size.length !== 2) throw new InputError(`the ${spec.lattice} lattice takes a size Lx x Ly, got ${size.join('x')}`, 'size');
   return periodicCluster(spec.lattice, size[0], dim === 1 ? 1 : size[1], spec.interaction);
 }

@@ -37,7 +37,8 @@ export function fullBasis(N: number): Basis {
     const gb = (LANCZOS_VECTORS * 8 * 2 ** N) / 2 ** 30;
     throw new InputError(
       `exact diagonalisation is limited to N <= ${MAX_FULL_SITES} sites: N = ${N} has 2^${N} = ${2 ** N} states and ` +
-      `the Lanczos vectors alone need ${LANCZOS_VECTORS} x 8 x 2^${N} bytes = ${gb.toFixed(1)} GiB (doubling per site); ` +
+      `the Lanczos vectors alone need ${LANCZOS_VECTORS} x 8 x 2^${N} bytes = ${gb.toFixed(1)} GiB and every Lanczos step ` +
+      `N 2^N = ${(N * 2 ** N).toExponential(1)} operations, both doubling per site; ` +
       'use a smaller cluster, the blockade-truncated basis, or vmc', 'size');
   }
   return { N, dimension: 2 ** N, states: null, blockade: null };

@@ -47,7 +47,8 @@ export function selfConsistentGround(sys: EdSystem, delta: number, scan = 8): Se
   for (let i = 1; i < grid.length; i++) if (values[i] < values[best]) best = i;
   const lo = grid[Math.max(0, best - 1)], hi = grid[Math.min(scan, best + 1)];
   const refined = boundedMinimum(e, lo, hi, 1e-9, 1e-12);
-  const candidates = [refined.x, grid[best], 0];
+  // Ties go to the earlier candidate, so a normal state reports alpha = 0 exactly.
+  const candidates = [0, grid[best], refined.x];
   let alpha = candidates[0];
   for (const c of candidates) if (e(c) < e(alpha)) alpha = c;
   return { ground: solve(alpha), e: e(alpha), evaluations };
