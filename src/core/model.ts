@@ -5,8 +5,8 @@
  * excitation chemical potential measured from the emitter line.
  */
 import { InputError, requireFinite } from './input-error.ts';
-import { LATTICE_NAMES, type LatticeName } from './lattice/geometry.ts';
-import type { InteractionSpec } from './interaction/potential.ts';
+import { LATTICE_NAMES, type LatticeName, lattice } from './lattice/geometry.ts';
+import { type InteractionSpec, resolvePotential } from './interaction/potential.ts';
 
 export interface ModelParams {
   lattice: LatticeName;
@@ -63,4 +63,7 @@ export function validateModel(p: ModelParams): void {
   if (p.cell !== undefined && (!Number.isInteger(p.cell) || p.cell < 1 || p.cell > limit)) {
     throw new InputError(`cell must be an integer 1..${limit}, got ${p.cell}`, 'cell');
   }
+  // The interaction's own checks (missing rb / v1, NaN strengths, a bad range).
+  if (!p.interaction || typeof p.interaction !== 'object') throw new InputError('no interaction given', 'interaction');
+  resolvePotential(p.interaction, lattice(p.lattice));
 }
