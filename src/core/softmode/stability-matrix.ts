@@ -70,7 +70,9 @@ export function coordinates(bg: Background, photon: boolean): Coordinate[] {
   }
   for (let s = 0; s < bg.M; s++) {
     const f = bg.frame, E = bg.E[s], r = bg.r[s], T = bg.T;
-    const hT = Math.max(T === 0 ? E : E / r, H_FLOOR);
+    // E coth(E/T) -> T (1 + x^2/3) for x = E/T -> 0 (series error x^4/45 < 1e-17 below x = 1e-4).
+    const x = T > 0 ? E / T : Infinity;
+    const hT = Math.max(T === 0 ? E : x < 1e-4 ? T * (1 + x * x / 3) : E / r, H_FLOOR);
     const vec = (o: number): [number, number, number] => [f[9 * s + o], f[9 * s + o + 1], f[9 * s + o + 2]];
     out.push({ kind: 'spin', s, e: vec(0), d: hT / bg.M }, { kind: 'spin', s, e: vec(3), d: hT / bg.M });
     if (T > 0 && E / T <= FROZEN) out.push({ kind: 'spin', s, e: vec(6), d: Math.max(T / (1 - r * r), H_FLOOR) / bg.M });

@@ -53,6 +53,9 @@ export interface TraceOptions {
 
 type P2 = [number, number];
 
+/** Sign classes: a zero counts as positive, so a node exactly on a line brackets once. */
+const pos = (x: number) => x >= 0;
+
 interface Seed<P> { at: LinePoint<P>; a: P2; b: P2; visited: boolean }
 
 /** Trace every zero line of f found from the seed grid. */
@@ -66,7 +69,7 @@ export function traceZeroLines<P>(f: (u: number, v: number) => Sampled<P>, o: Tr
   const seeds: Seed<P>[] = [];
   const edge = (i0: number, j0: number, i1: number, j1: number) => {
     const fa = grid[j0 * n + i0], fb = grid[j1 * n + i1];
-    if (fa.value === null || fb.value === null || !(fa.value * fb.value < 0)) return;
+    if (fa.value === null || fb.value === null || pos(fa.value) === pos(fb.value)) return;
     const a: P2 = [i0 * dx, j0 * dx], b: P2 = [i1 * dx, j1 * dx];
     seeds.push({ at: bisect(a, fa, b, fb), a, b, visited: false });
   };
@@ -83,7 +86,7 @@ export function traceZeroLines<P>(f: (u: number, v: number) => Sampled<P>, o: Tr
       // over [a, b] (f'' w^2 / 8 against f' w); over the half bracket it is a quarter of that.
       const va = fa.value as number, vb = fb.value as number;
       const err = (Math.abs(fm.value - (va + vb) / 2) / Math.abs(vb - va)) * w / 4;
-      if (fm.value * va < 0) { b = m; fb = fm; } else { a = m; fa = fm; }
+      if (pos(fm.value) !== pos(va)) { b = m; fb = fm; } else { a = m; fa = fm; }
       w /= 2;
       if (err < tol / 4) break;
     }
@@ -104,7 +107,6 @@ export function traceZeroLines<P>(f: (u: number, v: number) => Sampled<P>, o: Tr
   function correct(q: P2, d: P2, h: number, sigma: number, w0: number): LinePoint<P> | null {
     const fq = ev(q);
     if (fq.value === null) return null;
-    if (fq.value === 0) return { u: q[0], v: q[1], payload: fq.payload, jump: false };
     const first = fq.value > 0 ? -sigma : sigma;
     for (const s of [first, -first]) {
       let a = q, fa = fq;
@@ -113,7 +115,7 @@ export function traceZeroLines<P>(f: (u: number, v: number) => Sampled<P>, o: Tr
         if (!inside(p)) break;
         const fp = ev(p);
         if (fp.value === null) break;
-        if (fp.value * fq.value < 0) return bisect(a, fa, p, fp);
+        if (pos(fp.value) !== pos(fq.value)) return bisect(a, fa, p, fp);
         a = p; fa = fp;
         if (w >= h) break;
       }
@@ -124,7 +126,7 @@ export function traceZeroLines<P>(f: (u: number, v: number) => Sampled<P>, o: Tr
   function markVisited(p: P2, r: P2): void {
     for (const s of seeds) {
       if (s.visited) continue;
-      if (Math.hypot(s.at.u - r[0], s.at.v - r[1]) < 4 * tol || segmentsCross(p, r, s.a, s.b)) s.visited = true;
+      if (toSegment([s.at.u, s.at.v], p, r) < 4 * tol || segmentsCross(p, r, s.a, s.b)) s.visited = true;
     }
   }
 
@@ -212,6 +214,13 @@ function stepToBoundary(p: P2, t: P2): number {
     else if (t[a] < 0) h = Math.min(h, -p[a] / t[a]);
   }
   return Math.max(0, h);
+}
+
+/** Distance from x to the segment pq. */
+function toSegment(x: P2, p: P2, q: P2): number {
+  const ux = q[0] - p[0], uy = q[1] - p[1], L2 = ux * ux + uy * uy;
+  const t = L2 > 0 ? Math.max(0, Math.min(1, ((x[0] - p[0]) * ux + (x[1] - p[1]) * uy) / L2)) : 0;
+  return Math.hypot(x[0] - p[0] - t * ux, x[1] - p[1] - t * uy);
 }
 
 /** Do segments pq and ab cross? */
