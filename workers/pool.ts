@@ -101,12 +101,18 @@ export class WorkerPool<E> {
         tasks, exec: exec as TaskRunner<unknown, unknown, unknown>, opts: opts as RunOptions<unknown, unknown>,
         results: new Array(tasks.length), left: tasks.length, done: 0,
         total: units ? tasks.reduce((a, t) => a + units(t), 0) : tasks.length,
-        finished: false, resolve: resolve as (r: unknown[]) => void, reject,
+        finished: false,
+        // the abort listener goes when the run ends, so a long-lived signal shared by
+        // many runs does not collect listeners
+        resolve: (r) => { detach(); resolve(r as R[]); },
+        reject: (e) => { detach(); reject(e); },
       };
       const signal = opts.signal;
+      const onAbort = () => this.cancel(run, abortError(signal));
+      const detach = () => signal?.removeEventListener('abort', onAbort);
       if (signal?.aborted) return reject(abortError(signal));
       if (tasks.length === 0) return resolve([]);
-      signal?.addEventListener('abort', () => this.cancel(run, abortError(signal)), { once: true });
+      signal?.addEventListener('abort', onAbort, { once: true });
       for (let i = 0; i < tasks.length; i++) this.queue.push({ run, taskIndex: i });
       this.pump();
     });

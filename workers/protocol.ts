@@ -45,3 +45,29 @@ export interface EngineInfo {
   /** Method groups exposed (meanfield, spectrum, ...). */
   groups: string[];
 }
+
+/**
+ * Refine one plateau's edges by bisection (refinePlateaus) at the base parameters with mu
+ * varied: `below` / `above` are the scan states just off the plateau (absent at an end).
+ */
+export interface PlateauEdgeRequest {
+  base: ModelParams;
+  plateau: import('../src/core/meanfield/plateaus.ts').Plateau;
+  below?: MeanFieldState;
+  above?: MeanFieldState;
+  seed: number;
+  /** Edge tolerance in mu (units of g). */
+  muTol: number;
+}
+
+/** Branches, stability margins and softest mode of one point (src/core/spectrum/state-spectrum.ts). */
+export interface SpectrumRequest {
+  params: ModelParams;
+  seed?: number;
+  /** Points along the zone path (default 129). */
+  points?: number;
+}
+
+export type { StateSpectrum } from '../src/core/spectrum/state-spectrum.ts';
+/** One soft-mode line trace: one interaction range and one followed phase over a plane (src/core/softmode/soft-lines.ts). */
+export type { SoftLineRequest, SoftLineResult } from '../src/core/softmode/soft-lines.ts';

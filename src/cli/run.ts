@@ -2,7 +2,8 @@
  * The CLI as a function: argv in, exit code out, everything else through CliIo. Bad input
  * (an InputError, also one thrown inside a worker) is one line on stderr and exit code 2,
  * never a stack trace; an unexpected failure is one line and exit code 1 (the stack only
- * with ATLAS_DEBUG=1).
+ * with ATLAS_DEBUG=1); a cancellation after Ctrl-C that a command did not handle itself
+ * is exit code 130.
  */
 import { InputError } from '../core/input-error.ts';
 import { commandHelp, PROGRAM, type Command } from './command.ts';
@@ -46,6 +47,11 @@ export async function runCli(argv: readonly string[], io: CliIo, commands: reado
     }
     return await command.run(args, io);
   } catch (e) {
+    if (io.interrupt.aborted && e instanceof Error && e.name === 'AbortError') {
+      // a command that did not catch its own cancellation: still a clean Ctrl-C
+      io.stderr('atlas: interrupted\n');
+      return 130;
+    }
     if (isInputError(e)) {
       io.stderr(`atlas: ${oneLine(e.message)}\n`);
       return 2;

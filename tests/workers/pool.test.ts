@@ -126,6 +126,20 @@ describe('worker pool', () => {
     pool.close();
   });
 
+  it('leaves no abort listener behind on a signal shared by many runs', async () => {
+    const { spawn } = fakeSpawner();
+    const pool = new WorkerPool(spawn, 2);
+    const ac = new AbortController();
+    let added = 0, removed = 0;
+    const add = ac.signal.addEventListener.bind(ac.signal), remove = ac.signal.removeEventListener.bind(ac.signal);
+    ac.signal.addEventListener = ((...a: Parameters<typeof add>) => (added++, add(...a))) as typeof add;
+    ac.signal.removeEventListener = ((...a: Parameters<typeof remove>) => (removed++, remove(...a))) as typeof remove;
+    for (let i = 0; i < 20; i++) await pool.run([i], (r, x) => r.square(x, 0), { signal: ac.signal });
+    expect(added).toBe(20);
+    expect(removed).toBe(20);
+    pool.close();
+  });
+
   it('an already aborted signal rejects at once; an empty run resolves', async () => {
     const { spawn, stats } = fakeSpawner();
     const pool = new WorkerPool(spawn, 2);

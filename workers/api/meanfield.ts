@@ -1,9 +1,11 @@
 /**
  * Mean-field method group of the engine worker: one point, or a run of points with
- * continuation (each state the next point's guess; see src/core/scan/grid.ts).
+ * continuation (each state the next point's guess; see src/core/scan/grid.ts), and the
+ * bisection of plateau edges.
  */
 import { solveGroundState, type SolveResult } from '../../src/core/meanfield/ground-state.ts';
-import type { PointCallback, SolveRequest, SolveRunRequest } from '../protocol.ts';
+import { refinePlateaus, type Plateau } from '../../src/core/meanfield/plateaus.ts';
+import type { PlateauEdgeRequest, PointCallback, SolveRequest, SolveRunRequest } from '../protocol.ts';
 
 export const meanfieldApi = {
   /** The ground state of one point (solveGroundState). */
@@ -26,5 +28,14 @@ export const meanfieldApi = {
       prev = r;
     }
     return out;
+  },
+
+  /** One plateau with its edges bisected to req.muTol (see PlateauEdgeRequest). */
+  refinePlateau(req: PlateauEdgeRequest): Plateau {
+    const around = [req.below, req.above].filter((s) => s !== undefined);
+    const base = { ...req.base };
+    delete base.rho;
+    const solve = (mu: number) => solveGroundState({ ...base, mu }, { seed: req.seed });
+    return refinePlateaus([req.plateau], around, req.base.maxCell, solve, req.muTol)[0];
   },
 };

@@ -8,5 +8,6 @@ import { mapCommand } from './map.ts';
 import { mergeCommand } from './merge.ts';
 import { edCommand } from './ed.ts';
 import { vmcCommand } from './vmc.ts';
+import { staircaseCommand } from './staircase.ts';
 
-export const COMMANDS: readonly Command[] = [solveCommand, mapCommand, edCommand, vmcCommand, mergeCommand];
+export const COMMANDS: readonly Command[] = [solveCommand, mapCommand, staircaseCommand, edCommand, vmcCommand, mergeCommand];
