@@ -8,12 +8,14 @@ import { proxy } from 'comlink';
 import type { EngineInfo } from './protocol.ts';
 import { meanfieldApi } from './api/meanfield.ts';
 import { correlatedApi } from './api/correlated.ts';
+import { spectrumApi } from './api/spectrum.ts';
 
 // proxy() marks each group so Comlink's types give remote.group.method(...) as a call
 // (at run time Comlink walks the property path either way).
 const groups = {
   meanfield: proxy(meanfieldApi),
   correlated: proxy(correlatedApi),
+  spectrum: proxy(spectrumApi),
 };
 
 export const engine = {
