@@ -59,27 +59,3 @@ export interface PlateauEdgeRequest {
   /** Edge tolerance in mu (units of g). */
   muTol: number;
 }
-
-/** Branches, stability margins and softest mode of one point (src/core/spectrum/state-spectrum.ts). */
-export interface SpectrumRequest {
-  params: ModelParams;
-  seed?: number;
-  /** Points along the zone path (default 129). */
-  points?: number;
-}
-
-export type { StateSpectrum } from '../src/core/spectrum/state-spectrum.ts';
-/** One soft-mode line trace: one interaction range and one followed phase over a plane (src/core/softmode/soft-lines.ts). */
-export type { SoftLineRequest, SoftLineResult } from '../src/core/softmode/soft-lines.ts';
-
-/** Branches, stability margins and softest mode of one point (src/core/spectrum/state-spectrum.ts). */
-export interface SpectrumRequest {
-  params: ModelParams;
-  seed?: number;
-  /** Points along the zone path (default 129). */
-  points?: number;
-}
-
-export type { StateSpectrum } from '../src/core/spectrum/state-spectrum.ts';
-/** One soft-mode line trace: one interaction range and one followed phase over a plane (src/core/softmode/soft-lines.ts). */
-export type { SoftLineRequest, SoftLineResult } from '../src/core/softmode/soft-lines.ts';
