@@ -12,6 +12,14 @@ import { fluctuationSpectrum, type Spectrum } from './spectrum.ts';
 import { softestMode, marginsAt, type SoftMode, type SoftestOptions } from '../softmode/softest.ts';
 import { zonePath } from './zone-path.ts';
 
+/** A spectrum request as plain data (what the engine worker's spectrum.spectrum takes). */
+export interface SpectrumRequest {
+  params: ModelParams;
+  seed?: number;
+  /** Points along the zone path (default 129). */
+  points?: number;
+}
+
 export interface StateSpectrumOptions {
   seed?: number;
   /** Points along the zone path (default 129). */
