@@ -10,6 +10,7 @@ import type { Page } from 'playwright-core';
 import { buildApp } from './harness/build-app.ts';
 import { serveStatic, type StaticServer } from './harness/static-server.ts';
 import { launchChromium, type Browser } from './harness/launch-chromium.ts';
+import { expectRel } from '../references.ts';
 import { SCREENSHOTS, download, pointAt, runCliLine, scanNumber, screenshot, waitForScan } from './harness/page-tools.ts';
 
 let server: StaticServer;
@@ -176,6 +177,47 @@ describe('staircase', () => {
     const widths = await page.locator('staircase-view table.plateaus').first().locator('tbody tr').count();
     expect(widths).toBeGreaterThanOrEqual(2);
     await screenshot(page, 'staircase');
+  });
+});
+
+describe('correlated check', () => {
+  /** Run the view's method and return the page's JSON and the CLI's JSON for the offered command. */
+  async function pageAndCli(query: string) {
+    await open(`?view=correlated&${query}`);
+    await page.locator('correlated-view[data-status="complete"]').waitFor({ state: 'attached', timeout: 120_000 });
+    const { text } = await download(page, () => page.locator('correlated-view data-export button', { hasText: 'JSON' }).click());
+    const command = await page.locator('correlated-view data-export code.command').textContent();
+    return { mine: JSON.parse(text), cli: JSON.parse(await runCliLine(command ?? '')) };
+  }
+
+  it('ED finishes and agrees with the CLI for the same inputs', async () => {
+    const { mine, cli } = await pageAndCli('correlated.method=ed&correlated.size=10');
+    expect(mine.method).toBe('ed');
+    expect(mine.sites).toBe(10);
+    // the same Lanczos on the same cluster: equal to rounding (1e-12 on energies of order 1)
+    expect(Math.abs(mine.energyPerSite - cli.energyPerSite)).toBeLessThan(1e-12);
+    expect(Math.abs(mine.alpha - cli.alpha)).toBeLessThan(1e-9);
+    expect(mine.siteDensities.length).toBe(10);
+    mine.siteDensities.forEach((d: number, i: number) => expect(Math.abs(d - cli.siteDensities[i])).toBeLessThan(1e-9));
+    expect(await page.locator('correlated-view figure-panel.sk svg .error-bars circle').count()).toBe(mine.structureFactor.length);
+    await screenshot(page, 'correlated-ed');
+  });
+
+  it('VMC finishes and agrees with the CLI for the same seed and chain count', async () => {
+    const { mine, cli } = await pageAndCli('correlated.method=vmc&correlated.size=10&correlated.steps=30&correlated.samples=2000');
+    expect(mine.method).toBe('vmc');
+    // The seed and the number of chains fix the Markov chains (DESIGN.md, VMC). The page runs in
+    // Chromium's V8 and the CLI in Node's: Math.exp and friends may round differently in the last
+    // bit there, so the sums agree to 1e-12 relative; one Metropolis decision taken differently
+    // would instead move the energy by about its error bar (~1e-4 here), far beyond that.
+    expect(mine.chains).toBe(cli.chains);
+    expectRel(mine.energyPerSite.value, cli.energyPerSite.value, 1e-12);
+    expectRel(mine.energyPerSite.error, cli.energyPerSite.error, 1e-9);
+    expectRel(mine.density.value, cli.density.value, 1e-12);
+    expect(mine.acceptance).toBe(cli.acceptance);
+    expect(mine.trace.length).toBe(30);
+    expect(await page.locator('correlated-view figure-panel.trace svg .error-bars circle').count()).toBe(30);
+    await screenshot(page, 'correlated-vmc');
   });
 });
 

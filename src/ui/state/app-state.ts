@@ -22,7 +22,7 @@ export interface AppState {
   atlas: { x: string; y: string; lines: string; shade: string; point: string };
   staircase: { mu: string; compare: string };
   modes: { points: string; cell: string };
-  correlated: { method: string; size: string; alpha: string; seed: string; steps: string; samples: string; sites: string };
+  correlated: { method: string; cluster: string; size: string; alpha: string; seed: string; steps: string; samples: string; sites: string };
   planner: {
     c6: string; spacing: string; coupling: string; g0: string; emitters: string; splitting: string;
     detuning: string; mu: string; temperature: string; tunit: string;
@@ -42,7 +42,7 @@ export function demoState(): AppState {
     atlas: { x: 'mu=-1:2.9:64', y: 'rb=0.8:2.4:40', lines: 'vdw:inf', shade: 'phase', point: '' },
     staircase: { mu: '-1:2.9:400', compare: '1' },
     modes: { points: '96', cell: '' },
-    correlated: { method: 'ed', size: '10', alpha: '', seed: '7', steps: '60', samples: '4000', sites: '' },
+    correlated: { method: 'ed', cluster: 'periodic', size: '12', alpha: '', seed: '7', steps: '60', samples: '4000', sites: '' },
     planner: {
       c6: '140', spacing: '4', coupling: 'single', g0: '0.5', emitters: '200', splitting: '',
       detuning: '21', mu: '7', temperature: '0', tunit: 'uK',

@@ -1,8 +1,281 @@
-/** <correlated-view>: under construction. */
-import { LitElement, html } from 'lit';
+/**
+ * <correlated-view>: the correlated check. Exact diagonalisation or variational Monte
+ * Carlo on a periodic cluster of the model's lattice or on the user's own array (CSV
+ * upload), at the model's mu and detuning (alpha self-consistent, or fixed), next to the
+ * mean-field answer for the same inputs. Shows the array to scale shaded by <n_i>, the
+ * live optimisation trace (VMC), S(k) and C(r). T = 0 for both methods.
+ */
+import { LitElement, html, css, nothing } from 'lit';
+import type { AppState, ModelInputs } from '../state/app-state.ts';
+import type { ParsedModel } from '../model/model-inputs.ts';
+import { parseNumber } from '../model/model-inputs.ts';
+import { type ClusterSpec, buildCluster, parseClusterSize } from '../../core/cluster/spec.ts';
+import { parseSiteCsv } from '../../core/cluster/site-array.ts';
+import type { EdResult } from '../../core/ed/exact-diagonalisation.ts';
+import { variationalMonteCarlo, type VmcRequest } from '../../core/vmc/variational-monte-carlo.ts';
+import type { VmcResult } from '../../core/vmc/vmc-result.ts';
+import type { SolveResult } from '../../core/meanfield/ground-state.ts';
+import { poolSegmentRunner } from '../../../workers/vmc-chains.ts';
+import type { EngineClient } from '../engine/engine-client.ts';
+import { EngineTask } from '../controllers/engine-task.ts';
+import { sharedStyles } from '../app/shared-styles.ts';
+import { clusterFigure } from '../figures/cluster-figure.ts';
+import { seriesFigure } from '../figures/series-figure.ts';
+import { correlatedTable, comparisonRows } from './correlated-numbers.ts';
+import { cliLine, modelFlags } from '../export/cli-command.ts';
+import { downloadText } from '../export/download.ts';
+import { PHASE_NAMES } from '../plot/phase-palette.ts';
+import '../app/figure-panel.ts';
+import '../app/data-export.ts';
+import '../app/limits-note.ts';
+
+type Section = AppState['correlated'];
+export type Correlated = { kind: 'ed'; r: EdResult } | { kind: 'vmc'; r: VmcResult };
+interface Job { method: 'ed' | 'vmc'; cluster: ClusterSpec; mu: number; delta?: number; alpha?: number; seed: number; steps: number; sweeps: number; chains: number }
+
+/** The inputs that fix the physics (not the method's settings). */
+function physicsKey(j: Job): string {
+  return JSON.stringify([j.cluster, j.mu, j.delta, j.alpha]);
+}
+
+/** Sites as stored in the state: "x,y;x,y;..." (units of a). */
+function sitesFromState(s: string): number[] {
+  return s.split(';').filter(Boolean).flatMap((p) => p.split(',').map(Number));
+}
 
 export class CorrelatedView extends LitElement {
-  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false } };
-  override render() { return html`<p>Under construction.</p>`; }
+  static override properties = {
+    section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false },
+    width: { state: true },
+  };
+  declare section: Section;
+  declare model: ParsedModel;
+  declare inputs: ModelInputs;
+  declare engine: EngineClient;
+  declare width: number;
+  private task = new EngineTask<Correlated>(this);
+  private meanField = new EngineTask<SolveResult>(this);
+  /** The live optimisation trace of the running VMC. */
+  private trace: VmcResult['trace'] = [];
+  private problem: string | null = null;
+  /** The last ED answer and the inputs it belongs to (drawn on the VMC trace as the exact bound). */
+  private lastEd: { key: string; r: EdResult } | null = null;
+  private job: Job | null = null;
+  private uploadError: string | null = null;
+  private resize = new ResizeObserver((e) => { this.width = Math.round(e[0].contentRect.width); });
+
+  constructor() {
+    super();
+    this.width = 900;
+  }
+
+  static override styles = [sharedStyles, css`
+    :host { display: block; }
+    .controls { display: flex; flex-wrap: wrap; gap: 10px 16px; align-items: flex-end; margin-bottom: 8px; }
+    .controls label { display: block; font-size: 13px; }
+    .controls input { width: 90px; }
+    .grid { display: grid; grid-template-columns: repeat(auto-fit, minmax(420px, 1fr)); gap: 10px; }
+    @media (max-width: 900px) { .grid { grid-template-columns: 1fr; } }
+  `];
+
+  override connectedCallback() { super.connectedCallback(); this.resize.observe(this); }
+  override disconnectedCallback() { super.disconnectedCallback(); this.resize.disconnect(); }
+
+  private patch(p: Partial<Section>) {
+    this.dispatchEvent(new CustomEvent('section-change', { detail: { section: 'correlated', patch: p }, bubbles: true, composed: true }));
+  }
+
+  /** The job the inputs describe, or the reason there is none. */
+  private describe(): { job?: Job; error?: string } {
+    const p = this.model.params;
+    if (!p) return { error: 'The model has an invalid entry: showing the last good result.' };
+    if (p.mu === undefined) return { error: 'The correlated check works at fixed \u03bc: set the pump as a chemical potential.' };
+    const s = this.section;
+    let cluster: ClusterSpec;
+    try {
+      if (s.cluster === 'array') {
+        const positions = sitesFromState(s.sites);
+        if (positions.length < 2) return { error: 'Upload a CSV of your array (x,y per line, units of a) or choose a periodic cluster.' };
+        cluster = { kind: 'array', lattice: p.lattice, positions, interaction: p.interaction };
+      } else {
+        cluster = { kind: 'periodic', lattice: p.lattice, size: parseClusterSize(s.size), interaction: p.interaction };
+      }
+      const N = buildCluster(cluster).N;
+      if (s.method === 'ed' && N > 20) return { error: `exact diagonalisation is limited to 20 sites (2^N states); this cluster has ${N}` };
+    } catch (e) {
+      return { error: (e as Error).message };
+    }
+    const alphaText = s.alpha.trim();
+    const alpha = alphaText === '' ? undefined : parseNumber(alphaText);
+    if (alpha !== undefined && !(alpha >= 0)) return { error: `fixed \u03b1 must be a number >= 0, got "${alphaText}"` };
+    const seed = parseNumber(s.seed), steps = parseNumber(s.steps), sweeps = parseNumber(s.samples);
+    if (s.method === 'vmc' && (!Number.isInteger(seed) || !Number.isInteger(steps) || steps < 1 || !Number.isInteger(sweeps) || sweeps < 64)) {
+      return { error: 'VMC needs a whole-number seed, steps >= 1 and samples >= 64' };
+    }
+    return {
+      job: {
+        method: s.method === 'vmc' ? 'vmc' : 'ed', cluster, mu: p.mu, ...(alpha === undefined ? { delta: p.delta } : { alpha }),
+        seed, steps, sweeps, chains: this.engine?.workers ?? 1,
+      },
+    };
+  }
+
+  override willUpdate() {
+    const { job } = this.describe();
+    if (!job || !this.engine) return;
+    this.job = job;
+    const key = JSON.stringify(job);
+    if (key !== this.problem) {
+      this.problem = key;
+      this.trace = [];
+    }
+    this.task.run(key, (signal) => (job.method === 'ed'
+      ? this.engine.call((r) => r.correlated.ed({ cluster: job.cluster, mu: job.mu, alpha: job.alpha, delta: job.delta }), signal).then((r) => ({ kind: 'ed' as const, r }))
+      : this.runVmc(job, signal).then((r) => ({ kind: 'vmc' as const, r }))));
+    const p = this.model.params!;
+    const mf = { params: { ...p, T: 0 } };
+    this.meanField.run(JSON.stringify(mf), (signal) => this.engine.call((r) => r.meanfield.solve(mf), signal));
+  }
+
+  override updated() {
+    this.dataset.status = this.task.status;
+    this.dataset.method = this.task.value?.kind ?? '';
+    const v = this.task.value;
+    if (v?.kind === 'ed' && this.job?.method === 'ed' && this.task.status === 'complete') this.lastEd = { key: physicsKey(this.job), r: v.r };
+  }
+
+  private runVmc(job: Job, signal: AbortSignal): Promise<VmcResult> {
+    const req: VmcRequest = {
+      cluster: job.cluster, mu: job.mu, alpha: job.alpha, delta: job.delta, seed: job.seed, chains: job.chains,
+      ansatz: { oneBody: 'site' }, steps: job.steps, sweeps: job.sweeps,
+    };
+    let pending = false;
+    return variationalMonteCarlo(req, poolSegmentRunner(this.engine.scanPool, signal), undefined, (t) => {
+      if (signal.aborted) return;
+      this.trace = [...this.trace, t];
+      if (!pending) { pending = true; setTimeout(() => { pending = false; this.requestUpdate(); }, 120); }
+    });
+  }
+
+  private async upload(e: Event) {
+    const file = (e.target as HTMLInputElement).files?.[0];
+    if (!file) return;
+    try {
+      const spacing = parseNumber((this.renderRoot.querySelector('#cr-spacing') as HTMLInputElement | null)?.value ?? '');
+      const pos = parseSiteCsv(await file.text(), Number.isFinite(spacing) ? spacing : undefined);
+      this.uploadError = null;
+      const pairs: string[] = [];
+      for (let i = 0; i < pos.length; i += 2) pairs.push(`${+pos[i].toFixed(6)},${+pos[i + 1].toFixed(6)}`);
+      this.patch({ cluster: 'array', sites: pairs.join(';') });
+    } catch (err) {
+      this.uploadError = (err as Error).message;
+      this.requestUpdate();
+    }
+  }
+
+  private command(job: Job): string {
+    const flags = modelFlags(this.inputs).filter((_, i, a) => !['--detuning', '--mu', '--temperature', '--max-cell', '--density'].includes(a[i - (i % 2)]));
+    const cluster = job.cluster.kind === 'array' ? ['--sites', 'sites.csv'] : ['--size', this.section.size.trim()];
+    const photon = job.alpha !== undefined ? ['--alpha', String(job.alpha)] : ['--detuning', String(job.delta)];
+    const vmc = job.method === 'vmc' ? ['--seed', String(job.seed), '--workers', String(job.chains), '--steps', String(job.steps), '--sweeps', String(job.sweeps), '--one-body', 'site'] : [];
+    return cliLine(job.method, [...flags, ...cluster, '--mu', String(job.mu), ...photon, ...vmc, '--json']);
+  }
+
+  private field(key: keyof Section, label: string, width = 90) {
+    return html`<div><label for="cr-${key}">${label}</label>
+      <input id="cr-${key}" name="correlated-${key}" style="width:${width}px" .value=${this.section[key]}
+        @input=${(e: Event) => this.patch({ [key]: (e.target as HTMLInputElement).value })}></div>`;
+  }
+
+  override render() {
+    const s = this.section;
+    const { error } = this.describe();
+    const v = this.task.value;
+    const mf = this.meanField.value;
+    const w = Math.max(340, Math.min(560, (this.width - 10) / (this.width > 900 ? 2 : 1)));
+    const job = this.job;
+    let positions: Float64Array | null = null;
+    try { if (job) positions = buildCluster(job.cluster).positions; } catch { positions = null; }
+    const dens = v ? (v.kind === 'ed' ? v.r.siteDensities : v.r.siteDensities.map((e) => e.value)) : null;
+    const trace = v?.kind === 'vmc' && this.task.status !== 'pending' ? v.r.trace : this.trace;
+    return html`
+      <div class="controls">
+        <div><label for="cr-method">Method</label>
+          <select id="cr-method" name="correlated-method" @change=${(e: Event) => this.patch({ method: (e.target as HTMLSelectElement).value })}>
+            <option value="ed" ?selected=${s.method !== 'vmc'}>exact diagonalisation (Lanczos)</option>
+            <option value="vmc" ?selected=${s.method === 'vmc'}>variational Monte Carlo (Jastrow)</option></select></div>
+        <div><label for="cr-cluster">Sites</label>
+          <select id="cr-cluster" name="correlated-cluster" @change=${(e: Event) => this.patch({ cluster: (e.target as HTMLSelectElement).value })}>
+            <option value="periodic" ?selected=${s.cluster !== 'array'}>periodic cluster of the lattice</option>
+            <option value="array" ?selected=${s.cluster === 'array'}>my array (CSV)</option></select></div>
+        ${s.cluster === 'array'
+          ? html`<div><label for="cr-file">Array CSV (x,y per line)</label><input id="cr-file" type="file" accept=".csv,text/csv,text/plain" style="width:220px" @change=${this.upload}></div>
+              <div><label for="cr-spacing">coordinates in \u00b5m: spacing a</label><input id="cr-spacing" name="correlated-spacing" placeholder="units of a"></div>`
+          : this.field('size', 'Cluster size L or LxxLy')}
+        ${this.field('alpha', '\u03b1 fixed (empty: self-consistent)', 150)}
+        ${s.method === 'vmc' ? html`${this.field('seed', 'Seed')} ${this.field('steps', 'SR steps')} ${this.field('samples', 'Samples (sweeps)')}` : nothing}
+        <div aria-live="polite">${this.task.status === 'pending' ? html`<span class="running">running\u2026</span> <button @click=${() => this.task.abort()}>Cancel</button>` : nothing}</div>
+      </div>
+      ${error ? html`<p class="err" role="alert">${error}</p>` : nothing}
+      ${this.uploadError ? html`<p class="err" role="alert">${this.uploadError}</p>` : nothing}
+      ${this.task.error ? html`<p class="err" role="alert">${this.task.error}</p>` : nothing}
+      <div class="grid">
+        ${positions ? html`<figure-panel class="cluster" .figure=${clusterFigure(positions, dens, job!.cluster.kind === 'periodic', w, this.model.params?.lattice === 'chain' && job!.cluster.kind === 'periodic' ? 170 : 300)}></figure-panel>` : nothing}
+        <div>${this.comparison(v, mf)}</div>
+        ${trace.length ? this.traceFigure(trace, mf, w) : nothing}
+        ${v ? this.correlationFigures(v, w) : nothing}
+      </div>
+      <limits-note lattice=${this.model.params?.lattice ?? this.inputs.lattice} temperature=${0}></limits-note>
+      ${v && job ? html`<data-export class="correlated-export" .table=${correlatedTable(v)} .json=${v.r} name=${v.kind} .command=${this.command(job)}></data-export>
+        ${job.cluster.kind === 'array' ? html`<button @click=${() => downloadText('x,y\n' + s.sites.split(';').join('\n') + '\n', 'sites.csv', 'text/csv')}>Save sites.csv for the command</button>` : nothing}` : nothing}`;
+  }
+
+  /** The optimisation trace; the first tenth of the steps (far above) is left out of the y range. */
+  private traceFigure(trace: VmcResult['trace'], mf: SolveResult | undefined, w: number) {
+    const refs: { axis: 'y'; value: number; label: string; stroke: string; dash?: string }[] = [];
+    if (mf) refs.push({ axis: 'y', value: mf.grandPotential, label: 'mean-field \u03a9', stroke: '#c46a00' });
+    if (this.lastEd && this.job && this.lastEd.key === physicsKey(this.job)) refs.push({ axis: 'y', value: this.lastEd.r.energyPerSite, label: 'ED (exact)', stroke: '#1d2430', dash: '2 2' });
+    const tail = trace.slice(Math.floor(trace.length / 10));
+    const ys = [...tail.flatMap((t) => [t.energyPerSite - t.error, t.energyPerSite + t.error]), ...refs.map((r) => r.value)];
+    const lo = Math.min(...ys), hi = Math.max(...ys), pad = (hi - lo) * 0.08 || 1e-3;
+    return html`<figure-panel class="trace" .figure=${seriesFigure({
+      id: 'trace', name: 'vmc-trace', title: 'VMC optimisation trace: energy per site against step', width: w, height: 300,
+      series: [{ label: 'VMC e per step', x: trace.map((t) => t.step), y: trace.map((t) => t.energyPerSite), err: trace.map((t) => t.error), stroke: '#165a78', points: true }],
+      refs, x: { label: 'stochastic-reconfiguration step' }, y: { label: 'energy per site (g)' },
+      xDomain: [0, Math.max(1, trace[trace.length - 1].step)], yDomain: [lo - pad, hi + pad],
+    })}></figure-panel>`;
+  }
+
+  private comparison(v: Correlated | undefined, mf: SolveResult | undefined) {
+    const rows = comparisonRows(v, mf);
+    const method = v?.kind === 'vmc' ? 'VMC' : 'ED';
+    return html`<table class="comparison" aria-label="Correlated result beside mean field">
+      <thead><tr><th class="l">quantity</th><th>${method} (cluster)</th><th>mean field (infinite lattice)</th></tr></thead>
+      <tbody>${rows.map(([k, a, b]) => html`<tr><th class="l" scope="row">${k}</th><td>${a}</td><td>${b}</td></tr>`)}</tbody>
+      <caption class="muted" style="caption-side: bottom; text-align: left">${mf ? `mean field: ${PHASE_NAMES[mf.phase]}${mf.fraction ? ' ' + mf.fraction : ''}, M = ${mf.cellSize}, at T = 0` : ''}</caption>
+    </table>`;
+  }
+
+  private correlationFigures(v: Correlated, w: number) {
+    const sk = v.kind === 'ed' ? v.r.structureFactor.map((p) => ({ ...p, error: 0 })) : v.r.structureFactor;
+    const oneD = sk.every((p) => p.k[1] === 0);
+    const kx = sk.map((p) => (oneD ? p.k[0] : Math.hypot(p.k[0], p.k[1])));
+    const order = kx.map((_, i) => i).sort((a, b) => kx[a] - kx[b]);
+    const cr = v.kind === 'ed' ? v.r.correlation.map((p) => ({ ...p, error: 0 })) : v.r.correlation;
+    return html`
+      <figure-panel class="sk" .figure=${seriesFigure({
+        id: 'sk', name: 'structure-factor', title: 'Structure factor S(k) on the cluster momenta', width: w, height: 280,
+        series: [{ label: `S(k), ${v.kind.toUpperCase()}`, x: order.map((i) => kx[i]), y: order.map((i) => sk[i].value), err: order.map((i) => sk[i].error), stroke: '#5a2ca0', points: true }],
+        x: { label: oneD ? 'k (1/a)' : '|k| (1/a)' }, y: { label: 'S(k) (per site)' },
+      })}></figure-panel>
+      <figure-panel class="cr" .figure=${seriesFigure({
+        id: 'cr', name: 'density-correlation', title: 'Density correlation C(r) on the distance shells', width: w, height: 280,
+        series: [{ label: `C(r), ${v.kind.toUpperCase()}`, x: cr.map((p) => p.r), y: cr.map((p) => p.value), err: cr.map((p) => p.error), stroke: '#0c6e4f', points: true }],
+        refs: [{ axis: 'y', value: 0, label: 'uncorrelated', stroke: '#7d8798', dash: '2 2' }],
+        x: { label: 'distance r (a)' }, y: { label: 'C(r) = \u27e8n\u1d62n\u2c7c\u27e9 \u2212 \u27e8n\u1d62\u27e9\u27e8n\u2c7c\u27e9' },
+      })}></figure-panel>`;
+  }
 }
 customElements.define('correlated-view', CorrelatedView);
+
+declare global { interface HTMLElementTagNameMap { 'correlated-view': CorrelatedView } }
