@@ -9,5 +9,7 @@ import { mergeCommand } from './merge.ts';
 import { edCommand } from './ed.ts';
 import { vmcCommand } from './vmc.ts';
 import { staircaseCommand } from './staircase.ts';
+import { spectrumCommand } from './spectrum.ts';
+import { softlinesCommand } from './softlines.ts';
 
-export const COMMANDS: readonly Command[] = [solveCommand, mapCommand, staircaseCommand, edCommand, vmcCommand, mergeCommand];
+export const COMMANDS: readonly Command[] = [solveCommand, mapCommand, staircaseCommand, spectrumCommand, softlinesCommand, edCommand, vmcCommand, mergeCommand];
