@@ -21,6 +21,7 @@ const VMC_FLAGS: readonly FlagSpec[] = [
   { name: 'steps', kind: 'int', value: 'n', def: '200', help: 'stochastic-reconfiguration steps' },
   { name: 'sweeps-per-step', kind: 'int', value: 'n', def: '200', help: 'sweeps per optimisation step, over all chains' },
   { name: 'sweeps', kind: 'int', value: 'n', def: '8192', help: 'measurement sweeps, over all chains' },
+  { name: 'exchange', kind: 'number', value: 'f', def: '0.25', help: 'fraction of Metropolis proposals that exchange an excitation with an empty nearest neighbour' },
   { name: 'learning-rate', kind: 'number', value: 'eta', def: '0.05', help: 'SR imaginary-time step' },
   { name: 'json', kind: 'bool', help: 'print JSON (with the optimisation trace) instead of a table' },
 ];
@@ -59,7 +60,7 @@ export const vmcCommand: Command = {
       cluster, ...photonFromArgs(args), seed: int(args, 'seed') ?? 1, chains: workers,
       ansatz: { oneBody: oneBodyFromArgs(args), jastrowRange: num(args, 'jastrow-range') },
       steps: int(args, 'steps'), sweepsPerStep: int(args, 'sweeps-per-step'), sweeps: int(args, 'sweeps'),
-      learningRate: num(args, 'learning-rate'),
+      learningRate: num(args, 'learning-rate'), exchange: num(args, 'exchange'),
     };
     const { pool, release } = io.pool(workers);
     const progress = new Progress(io, 'vmc', (req.steps ?? 200) + 1, 'steps');

@@ -45,6 +45,8 @@ export interface Ansatz {
   readonly nbrV: Float64Array;
   /** Jastrow shell of the pair, -1 beyond the Jastrow range. */
   readonly nbrShell: Int32Array;
+  /** Nearest-neighbour bonds (i, j), i < j, at [2b], [2b+1]: the exchange moves. */
+  readonly bonds: Int32Array;
 }
 
 /** Build the ansatz's groups, shells and neighbour lists on a cluster. */
@@ -69,8 +71,10 @@ export function buildAnsatz(c: Cluster, spec: AnsatzSpec = {}): Ansatz {
     }
     start[i + 1] = sites.length;
   }
+  const bonds: number[] = [];
+  for (let i = 0; i < N; i++) for (let j = i + 1; j < N; j++) if (c.shellOf[i * N + j] === 0) bonds.push(i, j);
   return {
-    N, group, groups, shellDistances: c.shells.slice(0, S), P: groups + S,
+    bonds: Int32Array.from(bonds), N, group, groups, shellDistances: c.shells.slice(0, S), P: groups + S,
     nbrStart: start, nbrSite: Int32Array.from(sites), nbrV: Float64Array.from(Vs), nbrShell: Int32Array.from(shells),
   };
 }

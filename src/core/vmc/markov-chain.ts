@@ -103,41 +103,77 @@ export class JastrowChain {
     return this.eDiag - alpha * this.ratioSum;
   }
 
-  /** N Metropolis flip attempts of the guiding distribution at uniformly random sites; t, sum t, Q exact after it. */
-  sweep(rng: () => number): void {
-    const A = this.ansatz, N = A.N, G0 = A.groups, th = this.theta, ev = this.ev, emv = this.emv;
-    const n = this.n, G = this.G, h = this.h, t = this.t, start = A.nbrStart, site = A.nbrSite, V = A.nbrV, shell = A.nbrShell;
+  /**
+   * N Metropolis attempts of the guiding distribution: single flips at uniformly random
+   * sites and, with probability `exchange` each, exchanges n_i <-> n_j across a random
+   * nearest-neighbour bond (a symmetric proposal that moves an excitation, so crystal
+   * patterns of the same density can turn into one another). t, sum t and Q are exact after it.
+   */
+  sweep(rng: () => number, exchange = 0): void {
+    const N = this.ansatz.N, bonds = this.ansatz.bonds, nb = bonds.length / 2, n = this.n;
     for (let step = 0; step < N; step++) {
-      const i = Math.floor(rng() * N);
-      const s = 1 - 2 * n[i], ti = t[i];
-      // Q and sum t of the proposed configuration: only i and its Jastrow neighbours change.
-      let Qn = this.Q - ti * ti + 1 / (ti * ti), sumN = this.ratioSum - ti + 1 / ti;
-      for (let p = start[i]; p < start[i + 1]; p++) {
-        const d = shell[p];
-        if (d < 0) continue;
-        const j = site[p], f = (1 - 2 * n[j]) * s > 0 ? ev[d] : emv[d], tj = t[j];
-        sumN += tj * (f - 1); Qn += tj * tj * (f * f - 1);
-      }
-      const ratio = ti * ti * (1 + Qn / N) / (1 + this.Q / N);
       this.attempted++;
+      if (exchange > 0 && nb > 0 && rng() < exchange) {
+        const b = Math.floor(rng() * nb);
+        let i = bonds[2 * b], j = bonds[2 * b + 1];
+        if (n[i] === n[j]) continue;
+        if (!n[i]) [i, j] = [j, i];
+        // Remove at i, then add at j: the product of the two ratios, with Q of the end state.
+        const Q0 = this.Q, sum0 = this.ratioSum, ti = this.t[i];
+        this.propose(i); this.flip(i);
+        const tj = this.t[j];
+        this.propose(j);
+        const ratio = (ti * ti * tj * tj * (1 + this.Qn / N)) / (1 + Q0 / N);
+        if (ratio >= 1 || rng() < ratio) { this.flip(j); this.accepted++; continue; }
+        this.propose(i); this.flip(i);
+        this.Q = Q0; this.ratioSum = sum0;
+        continue;
+      }
+      const i = Math.floor(rng() * N), ti = this.t[i];
+      this.propose(i);
+      const ratio = ti * ti * (1 + this.Qn / N) / (1 + this.Q / N);
       if (ratio < 1 && rng() >= ratio) continue;
       this.accepted++;
-      this.eDiag += s * (h[i] - this.mu);
-      this.occupied += s;
-      this.groupCount[A.group[i]] += s;
-      this.Q = Qn; this.ratioSum = sumN;
-      t[i] = 1 / ti;
-      n[i] ^= 1;
-      for (let p = start[i]; p < start[i + 1]; p++) {
-        const j = site[p], d = shell[p];
-        h[j] += s * V[p];
-        if (d < 0) continue;
-        G[j] += s * th[G0 + d];
-        t[j] *= (1 - 2 * n[j]) * s > 0 ? ev[d] : emv[d];
-        if (n[j]) this.shellCount[d] += s;
-      }
+      this.flip(i);
     }
     this.refreshRatios();
+  }
+
+  /** Q and sum t after a flip of i, into Qn and sumN: only i and its Jastrow neighbours change. */
+  private Qn = 0;
+  private sumN = 0;
+  private propose(i: number): void {
+    const A = this.ansatz, n = this.n, t = this.t, ev = this.ev, emv = this.emv, start = A.nbrStart, site = A.nbrSite, shell = A.nbrShell;
+    const s = 1 - 2 * n[i], ti = t[i];
+    let Qn = this.Q - ti * ti + 1 / (ti * ti), sumN = this.ratioSum - ti + 1 / ti;
+    for (let p = start[i]; p < start[i + 1]; p++) {
+      const d = shell[p];
+      if (d < 0) continue;
+      const j = site[p], f = (1 - 2 * n[j]) * s > 0 ? ev[d] : emv[d], tj = t[j];
+      sumN += tj * (f - 1); Qn += tj * tj * (f * f - 1);
+    }
+    this.Qn = Qn; this.sumN = sumN;
+  }
+
+  /** Flip n_i, taking Q and sum t from the last propose(i), and update every field at i's neighbours. */
+  private flip(i: number): void {
+    const A = this.ansatz, G0 = A.groups, th = this.theta, ev = this.ev, emv = this.emv;
+    const n = this.n, G = this.G, h = this.h, t = this.t, start = A.nbrStart, site = A.nbrSite, V = A.nbrV, shell = A.nbrShell;
+    const s = 1 - 2 * n[i];
+    this.eDiag += s * (h[i] - this.mu);
+    this.occupied += s;
+    this.groupCount[A.group[i]] += s;
+    this.Q = this.Qn; this.ratioSum = this.sumN;
+    t[i] = 1 / t[i];
+    n[i] ^= 1;
+    for (let p = start[i]; p < start[i + 1]; p++) {
+      const j = site[p], d = shell[p];
+      h[j] += s * V[p];
+      if (d < 0) continue;
+      G[j] += s * th[G0 + d];
+      t[j] *= (1 - 2 * n[j]) * s > 0 ? ev[d] : emv[d];
+      if (n[j]) this.shellCount[d] += s;
+    }
   }
 
   /** O_k = d ln psi / d theta_k into `out` (length P). */

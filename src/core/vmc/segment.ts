@@ -43,6 +43,8 @@ export interface SegmentRequest {
   mode: 'optimise' | 'measure';
   /** Number of bins of a 'measure' segment (sweeps divisible by it). */
   bins?: number;
+  /** Fraction of Metropolis proposals that are nearest-neighbour exchanges (default 0). */
+  exchange?: number;
 }
 
 /** Weighted sums for stochastic reconfiguration: W = sum w, W2 = sum w^2, E the total local energy. */
@@ -98,7 +100,7 @@ export function runSegment(sys: VmcSystem, req: SegmentRequest): SegmentResult {
     for (let i = 0; i < N; i++) n0[i] = stream.next() < 1 / (1 + Math.exp(-2 * theta[A.group[i]])) ? 1 : 0;
   }
   const chain = new JastrowChain(A, sys.mu, theta, n0);
-  for (let t = 0; t < req.discard; t++) chain.sweep(stream.next);
+  for (let t = 0; t < req.discard; t++) chain.sweep(stream.next, req.exchange);
   chain.attempted = 0; chain.accepted = 0;
   const out: SegmentResult = { chain: req.chain, state: { n: chain.n, stream: stream.state() }, attempted: 0, accepted: 0 };
   if (req.mode === 'optimise') out.optimise = sampleOptimise(chain, req, stream.next);
@@ -112,7 +114,7 @@ function sampleOptimise(chain: JastrowChain, req: SegmentRequest, rng: () => num
   const P = chain.ansatz.P, O = new Float64Array(P);
   const s: OptimiseSums = { samples: 0, W: 0, W2: 0, E: 0, E2: 0, X: 0, O: new Float64Array(P), OO: new Float64Array(P * P), EO: new Float64Array(P) };
   for (let t = 0; t < req.sweeps; t++) {
-    chain.sweep(rng);
+    chain.sweep(rng, req.exchange);
     const w = chain.weight(), E = chain.localEnergy(req.alpha);
     chain.logDerivatives(O);
     s.samples++; s.W += w; s.W2 += w * w; s.E += w * E; s.E2 += w * E * E; s.X += w * chain.ratioSum;
@@ -140,7 +142,7 @@ function sampleMeasure(sys: VmcSystem, chain: JastrowChain, req: SegmentRequest,
   };
   const occ = new Int32Array(N);
   for (let t = 0; t < req.sweeps; t++) {
-    chain.sweep(rng);
+    chain.sweep(rng, req.exchange);
     const b = Math.floor(t / L), w = chain.weight();
     const e = chain.localEnergy(req.alpha) / N;
     m.w[b] += w; m.e[b] += w * e; m.x[b] += (w * chain.ratioSum) / N; m.rho[b] += (w * chain.occupied) / N;

@@ -35,7 +35,7 @@ describe('Jastrow Metropolis chain', () => {
     expect(A.P).toBe(9);
     const ch = new JastrowChain(A, problem.mu, theta, new Uint8Array(6));
     const rng = chainStream(11, 0).next;
-    for (let t = 0; t < 500; t++) ch.sweep(rng);
+    for (let t = 0; t < 500; t++) ch.sweep(rng, 0.5); // flips and nearest-neighbour exchanges
     const fresh = new JastrowChain(A, problem.mu, theta, ch.n);
     // tolerance 1e-10: 500 sweeps of O(1) additions accumulate rounding ~1e-13.
     expectAbs(ch.eDiag, fresh.eDiag, 1e-10);
@@ -50,7 +50,7 @@ describe('Jastrow Metropolis chain', () => {
     expect(ch.accepted).toBeGreaterThan(0);
   });
 
-  it('weighted estimates equal the exact <psi|H|psi>/<psi|psi> and <n>, enumerated (within 4 sigma)', () => {
+  it.each([[0], [0.5]])('weighted estimates equal the exact <psi|H|psi>/<psi|psi> and <n>, enumerated (within 4 sigma), exchange fraction %s', (exchange) => {
     const sys = vmcSystem(problem), c = sys.cluster, N = 6, alpha = 0.4;
     let Z = 0, Hpsi = 0, rho = 0;
     for (let s = 0; s < 1 << N; s++) {
@@ -61,7 +61,7 @@ describe('Jastrow Metropolis chain', () => {
       for (let i = 0; i < N; i++) { const m = [...n]; m[i] ^= 1; off += Math.exp(logPsi(m)); }
       Z += p * p; Hpsi += p * (ed * p - alpha * off); rho += (p * p * n.reduce((a, b) => a + b, 0)) / N;
     }
-    const seg = runSegment(sys, { problem, seed: 5, chain: 0, state: null, theta, alpha, discard: 200, sweeps: 32768, mode: 'measure', bins: 64 });
+    const seg = runSegment(sys, { problem, seed: 5, chain: 0, state: null, theta, alpha, discard: 200, sweeps: 32768, mode: 'measure', bins: 64, exchange });
     const obs = measuredObservables(c, [seg.measure!]);
     // 4 sigma: a failure rate of 6e-5 for a correct sampler (common practice for MC checks).
     expect(Math.abs(obs.energyPerSite.value - Hpsi / Z / N)).toBeLessThan(4 * obs.energyPerSite.error);
