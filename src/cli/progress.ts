@@ -10,6 +10,7 @@ export class Progress {
   private readonly t0: number;
   private lastDraw = -Infinity;
   private drawn = false;
+  private first?: { s: number; done: number };
 
   constructor(private readonly io: CliIo, private readonly label: string, private readonly total: number, private readonly unit = 'points') {
     this.t0 = io.now();
@@ -46,11 +47,14 @@ export class Progress {
 
   private line(done: number, s: number): string {
     const frac = this.total > 0 ? done / this.total : 1;
-    const rate = s > 0 ? done / s : 0;
+    // rate and eta from the first point on, so worker start-up does not skew them
+    if (this.first === undefined) this.first = { s, done };
+    const ds = s - this.first.s, rate = ds > 0.5 ? (done - this.first.done) / ds : 0;
     const eta = rate > 0 ? (this.total - done) / rate : NaN;
     const tail = ` ${String(Math.floor(frac * 100)).padStart(3)}% ${done}/${this.total} ${this.unit}` +
       (rate > 0 ? `  ${formatRate(rate)}/s  eta ${formatTime(eta)}` : '');
-    const width = Math.max(10, Math.min(40, this.io.stderrColumns - this.label.length - tail.length - 4));
+    // a fixed bar width (the tail varies in length; the bar should not jitter)
+    const width = Math.max(10, Math.min(40, this.io.stderrColumns - this.label.length - 60));
     const full = Math.round(frac * width);
     return `${this.label} [${'#'.repeat(full)}${'.'.repeat(width - full)}]${tail}`;
   }
