@@ -17,7 +17,7 @@
  * clipped. Converged when a full step changes m and <sigma^x> by less than tol (1e-12).
  */
 import { gOf, qOf, occupation, levelFreeEnergy, photonDensity } from './emitter.ts';
-import { gaussSolve } from './dense-solve.ts';
+import { cholesky, choleskySolve, gaussSolve } from './dense-solve.ts';
 import type { CellProblem, SolveCellOptions } from './sublattice.ts';
 
 /** The solution's observables. */
@@ -87,6 +87,67 @@ function slope(p: CellProblem, t: Trial, h: Float64Array, d: Float64Array): numb
   return s / M;
 }
 
+/** Gradient of Phi at the evaluated trial t of fields h: (1/M) chi r, beta shared. */
+function gradient(p: CellProblem, t: Trial, h: Float64Array, out: Float64Array): void {
+  const M = p.M, rb = t.alpha - h[M];
+  let gb = 0;
+  for (let s = 0; s < M; s++) {
+    const rz = t.xi[s] - h[s];
+    out[s] = (rz * t.cmz[s] + rb * t.cmb[s]) / M;
+    gb += rz * t.cmb[s] + rb * t.cxb[s];
+  }
+  out[M] = gb / M;
+}
+
+/**
+ * Negative curvature of Phi at h, for leaving a saddle (a nearly symmetric state that is
+ * unstable towards modulation or condensation, which the Newton and plain steps leave only
+ * slowly). The Hessian is the central difference of the analytic gradient (steps 1e-6 of
+ * the field scale; only its sign structure and softest direction are used). Returns the
+ * downhill-signed direction of most negative curvature (inverse iteration with the shifted
+ * Cholesky factor), or null when the Hessian is positive definite.
+ */
+function negativeCurvature(p: CellProblem, h: Float64Array, cur: Trial, work: Trial): Float64Array | null {
+  const n = p.M + 1;
+  const H = new Float64Array(n * n), L = new Float64Array(n * n);
+  const gp = new Float64Array(n), gm = new Float64Array(n), hh = Float64Array.from(h);
+  let scale = p.T;
+  for (let i = 0; i < n; i++) scale = Math.max(scale, Math.abs(h[i]));
+  for (let j = 0; j < n; j++) {
+    const e = 1e-6 * (Math.abs(h[j]) + p.T);
+    hh[j] = h[j] + e; evaluate(p, hh, work, true); gradient(p, work, hh, gp);
+    hh[j] = h[j] - e; evaluate(p, hh, work, true); gradient(p, work, hh, gm);
+    hh[j] = h[j];
+    for (let i = 0; i < n; i++) H[i * n + j] = (gp[i] - gm[i]) / (2 * e);
+  }
+  let diagMax = 0;
+  for (let i = 0; i < n; i++) {
+    diagMax = Math.max(diagMax, Math.abs(H[i * n + i]));
+    for (let j = 0; j < i; j++) { const v = (H[i * n + j] + H[j * n + i]) / 2; H[i * n + j] = v; H[j * n + i] = v; }
+  }
+  if (cholesky(H, n, 0, L)) return null;
+  let shift = 1e-8 * (diagMax + 1e-300);
+  while (!cholesky(H, n, shift, L)) shift *= 4;
+  cholesky(H, n, 2 * shift, L);
+  const v = new Float64Array(n);
+  for (let i = 0; i < n; i++) v[i] = 1 + 0.5 * Math.sin(1.3 * i + 0.7);
+  for (let k = 0; k < 8; k++) {
+    choleskySolve(L, n, v);
+    let nv = 0;
+    for (let i = 0; i < n; i++) nv = Math.max(nv, Math.abs(v[i]));
+    for (let i = 0; i < n; i++) v[i] /= nv;
+  }
+  let curv = 0;
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) curv += v[i] * H[i * n + j] * v[j];
+  if (!(curv < 0)) return null;
+  gradient(p, cur, h, gp);
+  let gv = 0;
+  for (let i = 0; i < n; i++) gv += gp[i] * v[i];
+  if (gv > 0) for (let i = 0; i < n; i++) v[i] = -v[i];
+  for (let i = 0; i < n; i++) v[i] *= 0.1 * scale;
+  return v;
+}
+
 /** The Hartree fields of m and the photon alpha they support: h = (xi(m), alpha(xi)). */
 export function fieldsOf(p: CellProblem, m: ArrayLike<number>): Float64Array {
   const M = p.M, h = new Float64Array(M + 1);
@@ -101,10 +162,34 @@ export function fieldsOf(p: CellProblem, m: ArrayLike<number>): Float64Array {
 
 /** Newton iteration on the fields from the start m0 (T > 0; also valid at T = 0). */
 export function solveFields(p: CellProblem, m0: ArrayLike<number>, opts: SolveCellOptions = {}): FieldResult {
-  const M = p.M, n = M + 1, tol = opts.tol ?? 1e-12, maxIter = opts.maxIter ?? 100;
+  const M = p.M;
   let h = fieldsOf(p, m0);
   // Seed a small photon so that the start is not confined to the uncondensed subspace.
   if (h[M] === 0) h[M] = 1e-4 / Math.max(1, p.delta - p.mu);
+  let r = iterate(p, h, opts), iterations = r.iterations;
+  // alpha = 0 is an invariant subspace of the iteration: a state that reached it is kept only
+  // if it is stable against condensation (the photon equation has no root for its xi).
+  for (let k = 0; k < 3 && r.converged && Math.abs(r.h[M]) < 1e-13; k++) {
+    const a = photonDensity(r.cur.xi, p.delta - p.mu, p.T);
+    if (!(a > 0)) break;
+    h = new Float64Array(M + 1);
+    h.set(r.cur.xi);
+    h[M] = Math.sqrt(a);
+    r = iterate(p, h, opts);
+    iterations += r.iterations;
+  }
+  const { cur, converged, step } = r;
+  h = r.h;
+  const sign = h[M] < 0 ? -1 : 1;
+  return {
+    m: Float64Array.from(cur.m), sx: Float64Array.from(cur.x, (x) => sign * x), xi: Float64Array.from(cur.xi),
+    alpha: Math.abs(h[M]), converged, iterations, step,
+  };
+}
+
+/** The damped Newton iteration from fields h (see the module note). */
+function iterate(p: CellProblem, h: Float64Array, opts: SolveCellOptions): { h: Float64Array; cur: Trial; converged: boolean; iterations: number; step: number } {
+  const M = p.M, n = M + 1, tol = opts.tol ?? 1e-12, maxIter = opts.maxIter ?? 100;
   let cur = newTrial(M), next = newTrial(M);
   evaluate(p, h, cur, true);
   const A = new Float64Array(n * n), d = new Float64Array(n), trialH = new Float64Array(n);
@@ -128,9 +213,24 @@ export function solveFields(p: CellProblem, m0: ArrayLike<number>, opts: SolveCe
     for (let i = 0; i < n; i++) A[i * n + i] += 1;
     d[M] = cur.alpha - h[M];
     const plain = Float64Array.from(d);
-    let dir = gaussSolve(A, d, n) ? d : plain;
+    let dir: Float64Array = gaussSolve(A, d, n) ? d : plain;
     let g = slope(p, cur, h, dir);
-    if (!(g < 0)) { dir = plain; g = slope(p, cur, h, dir); }
+    let usedPlain = false;
+    if (!(g < 0)) { dir = plain; g = slope(p, cur, h, dir); usedPlain = true; }
+    // Slow progress suggests a saddle: step along its negative curvature instead.
+    if (usedPlain && it > 3 && step > tol) {
+      const v = negativeCurvature(p, h, cur, next);
+      if (v) { dir = v; g = slope(p, cur, h, dir); }
+    }
+    // Near convergence test the plain map itself: if h -> H(h) moves m and x by less than
+    // tol the state is self-consistent, whatever the rounding of Phi says about the step.
+    if (step < 1e-8) {
+      for (let i = 0; i < n; i++) trialH[i] = h[i] + plain[i];
+      evaluate(p, trialH, next, true);
+      let move = 0;
+      for (let s = 0; s < M; s++) move = Math.max(move, Math.abs(next.m[s] - cur.m[s]), Math.abs(next.x[s] - cur.x[s]));
+      if (move < tol) { h = Float64Array.from(trialH); [cur, next] = [next, cur]; step = move; converged = true; break; }
+    }
     // Backtracking (Armijo) on Phi, with a rounding allowance so that the last Newton
     // steps, whose gain is below the rounding of Phi, are taken.
     const slack = 1e-14 * (1 + Math.abs(cur.phi));
@@ -151,11 +251,16 @@ export function solveFields(p: CellProblem, m0: ArrayLike<number>, opts: SolveCe
     // A full step that no longer moves m: self-consistent (a shortened step proves nothing).
     if (step < tol && lambda === 1) { converged = true; break; }
     if (opts.abandon?.(cur.m, it)) break;
+    // Photon jump: Phi is flat in beta near beta = 0 (it falls like -beta^2 where the photon
+    // condenses), so Newton and plain steps escape the uncondensed region only slowly. Try
+    // the photon root for the present zeta (beta solved at fixed emitter fields) instead.
+    const bStar = Math.sqrt(photonDensity(h.subarray(0, M), p.delta - p.mu, p.T));
+    if (Math.abs(bStar - Math.abs(h[M])) > 1e-3 * (bStar + Math.abs(h[M]))) {
+      trialH.set(h); trialH[M] = bStar;
+      evaluate(p, trialH, next, true);
+      if (next.phi < cur.phi - slack) { h = Float64Array.from(trialH); [cur, next] = [next, cur]; }
+    }
   }
-  const sign = h[M] < 0 ? -1 : 1;
-  return {
-    m: Float64Array.from(cur.m), sx: Float64Array.from(cur.x, (x) => sign * x), xi: Float64Array.from(cur.xi),
-    alpha: Math.abs(h[M]), converged, iterations: Math.min(it, maxIter), step,
-  };
+  return { h, cur, converged, iterations: Math.min(it, maxIter), step };
 }
 
