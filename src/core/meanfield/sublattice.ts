@@ -13,7 +13,7 @@
  * Bloch angles (bloch-angles.ts), at T > 0 over the trial fields (thermal-fields.ts).
  * Converged when a full step changes every m_s and <sigma^x>_s by less than tol = 1e-12.
  */
-import { levelFreeEnergy } from './emitter.ts';
+import { gOf, levelFreeEnergy, occupation } from './emitter.ts';
 import { solveAngles } from './bloch-angles.ts';
 import { solveFields } from './thermal-fields.ts';
 
@@ -61,7 +61,32 @@ export const ALPHA_ZERO = 1e-13;
 export function solveCell(p: CellProblem, m0: ArrayLike<number>, opts: SolveCellOptions = {}): CellSolution {
   const r = p.T === 0 ? solveAngles(p, m0, opts) : solveFields(p, m0, opts);
   if (r.alpha < ALPHA_ZERO) { r.alpha = 0; r.sx.fill(0); }
+  if (r.converged && !selfConsistent(p, r.m, r.alpha)) r.converged = false;
   return { m: r.m, sx: r.sx, alpha: r.alpha, omega: grandPotential(p, r.m, r.xi, r.alpha), converged: r.converged, iterations: r.iterations, step: r.step };
+}
+
+/** Residual allowed in the final check of the mean-field equations (rounding amplified by J). */
+const CHECK_TOL = 1e-9;
+
+/**
+ * Final guard against a false convergence: the state must satisfy the equations as written
+ * in DESIGN.md, m_s = (1 - xi_s tanh(E_s/T)/(2E_s))/2 with xi from m, and for alpha > 0 the
+ * photon equation (delta - mu) = mean tanh(E_s/T)/(2E_s), to CHECK_TOL.
+ */
+function selfConsistent(p: CellProblem, m: Float64Array, alpha: number): boolean {
+  const { M, J, mu, T } = p;
+  const a = alpha * alpha;
+  let G = 0;
+  for (let s = 0; s < M; s++) {
+    let xi = -mu;
+    for (let t = 0; t < M; t++) xi += J[s * M + t] * m[t];
+    const E = Math.sqrt(xi * xi / 4 + a);
+    if (E === 0) return false;
+    const g = gOf(E, T);
+    G += g / M;
+    if (!(Math.abs(occupation(xi, a, E, g, T) - m[s]) <= CHECK_TOL)) return false;
+  }
+  return alpha === 0 || Math.abs(G - (p.delta - mu)) <= CHECK_TOL * (p.delta - mu);
 }
 
 /**

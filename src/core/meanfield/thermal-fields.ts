@@ -215,12 +215,12 @@ function iterate(p: CellProblem, h: Float64Array, opts: SolveCellOptions): { h: 
     const plain = Float64Array.from(d);
     let dir: Float64Array = gaussSolve(A, d, n) ? d : plain;
     let g = slope(p, cur, h, dir);
-    let usedPlain = false;
+    let usedPlain = false, curvatureDir: Float64Array | null = null;
     if (!(g < 0)) { dir = plain; g = slope(p, cur, h, dir); usedPlain = true; }
     // Slow progress suggests a saddle: step along its negative curvature instead.
     if (usedPlain && it > 3 && step > tol) {
       const v = negativeCurvature(p, h, cur, next);
-      if (v) { dir = v; g = slope(p, cur, h, dir); }
+      if (v) { dir = v; curvatureDir = v; g = slope(p, cur, h, dir); }
     }
     // Near convergence test the plain map itself: if h -> H(h) moves m and x by less than
     // tol the state is self-consistent, whatever the rounding of Phi says about the step.
@@ -248,8 +248,9 @@ function iterate(p: CellProblem, h: Float64Array, opts: SolveCellOptions): { h: 
     h = Float64Array.from(trialH);
     [cur, next] = [next, cur];
     opts.trace?.(cur.m, h[M], cur.phi, lambda);
-    // A full step that no longer moves m: self-consistent (a shortened step proves nothing).
-    if (step < tol && lambda === 1) { converged = true; break; }
+    // A full Newton or plain step that no longer moves m: self-consistent (a shortened step,
+    // or one along the negative curvature, proves nothing).
+    if (step < tol && lambda === 1 && dir !== curvatureDir) { converged = true; break; }
     if (opts.abandon?.(cur.m, it)) break;
     // Photon jump: Phi is flat in beta near beta = 0 (it falls like -beta^2 where the photon
     // condenses), so Newton and plain steps escape the uncondensed region only slowly. Try
