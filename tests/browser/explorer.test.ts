@@ -180,6 +180,25 @@ describe('staircase', () => {
   });
 });
 
+describe('modes', () => {
+  it('shows the branches, the margin and k* of the CLI spectrum for the same point', async () => {
+    // the uniform condensate forced (cell 1) at mu = 0.1, Rb = 1.2 goes soft at k* = pi
+    await open('?view=modes&mu=0.1&rb=1.2&modes.cell=1&modes.points=65');
+    await page.locator('modes-view[data-status="complete"]').waitFor({ state: 'attached', timeout: 60_000 });
+    const { text } = await download(page, () => page.locator('modes-view data-export button', { hasText: 'JSON' }).click());
+    const mine = JSON.parse(text);
+    const command = await page.locator('modes-view data-export code.command').textContent();
+    const cli = JSON.parse(await runCliLine(command ?? ''));
+    expect(mine.branches.length).toBe(65);
+    // same code on the same inputs in two V8 builds: equal to rounding (1e-9 on margins of order 1)
+    expect(Math.abs(mine.softMode.margin - cli.softMode.margin)).toBeLessThan(1e-9);
+    expect(Math.abs(mine.softMode.k - cli.softMode.k)).toBeLessThan(1e-6);
+    expect(mine.softMode.stable).toBe(false);
+    expect(await page.locator('modes-view figure-panel.branches svg path').count()).toBeGreaterThan(0);
+    await screenshot(page, 'modes');
+  });
+});
+
 describe('correlated check', () => {
   /** Run the view's method and return the page's JSON and the CLI's JSON for the offered command. */
   async function pageAndCli(query: string) {

@@ -1,12 +1,17 @@
 /**
  * Reactive controller of the soft-mode lines drawn over the map: for each ticked
- * interaction range, the curves where the phase's own solution first goes unstable,
- * traced by the spectrum engine over the map's plane.
+ * interaction range, the lines where the uniform condensate's and the normal state's own
+ * solutions first go unstable (src/core/softmode/soft-lines.ts), one pool task per range
+ * and phase, traced from a seed grid by bisection and continuation over the map's plane.
+ * The tasks queue behind the map's own, so the map comes first. A change of model, axes or
+ * ticks aborts the old traces; lines already traced for unchanged inputs are kept.
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
 import type { ModelParams } from '../../core/model.ts';
 import type { Axis } from '../../core/scan/axes.ts';
-import type { EngineClient } from '../engine/engine-client.ts';
+import { PLANE_AXES, type PlaneAxis, type PlaneAxisName } from '../../core/softmode/plane.ts';
+import type { SoftLineRequest, SoftLineResult } from '../../core/softmode/soft-lines.ts';
+import { type EngineClient, isAbort } from '../engine/engine-client.ts';
 import type { SoftLineOverlay } from '../figures/phase-map-figure.ts';
 
 /** The interaction ranges a user can tick, with a line style each (colour + dash). */
@@ -19,28 +24,113 @@ export const SOFT_RANGES: { key: string; label: string; stroke: string; dash?: s
   { key: 'dipolar', label: 'dipolar', stroke: '#8a4b00', dash: '1 2' },
 ];
 
+/** Phases whose own solutions are followed. */
+export const FOLLOWED = ['condensate', 'normal'] as const;
+
+/** Seed-grid nodes per axis of the trace (lines shorter than a seed spacing are missed). */
+export const SOFT_SEED = 10;
+
 export class SoftLinesController implements ReactiveController {
   status = '';
-  private lines: SoftLineOverlay[] = [];
+  /** Finished traces by task key. */
+  private results = new Map<string, SoftLineResult>();
+  private wanted: { key: string; range: string }[] = [];
+  private ctrl: AbortController | null = null;
+  private runningKey = '';
 
   constructor(private readonly host: ReactiveControllerHost, private readonly engine: () => EngineClient) {
     host.addController(this);
   }
 
-  /** Inputs changed: recompute the lines of the ticked ranges (aborting older work). */
-  update(_p: ModelParams, _x: Axis, _y: Axis, ticked: string): void {
-    const want = ticked.split(',').filter(Boolean);
-    this.status = want.length ? 'soft-mode lines: waiting for the spectrum engine' : '';
-    void this.engine;
-    void this.host;
+  /** The plane axes of the map, or null when an axis is not a soft-line axis (density). */
+  static plane(x: Axis, y: Axis): [PlaneAxis, PlaneAxis] | null {
+    const ok = (a: Axis) => (PLANE_AXES as readonly string[]).includes(a.name);
+    if (!ok(x) || !ok(y)) return null;
+    const ax = (a: Axis): PlaneAxis => ({ name: a.name as PlaneAxisName, start: a.start, stop: a.stop, count: SOFT_SEED });
+    return [ax(x), ax(y)];
+  }
+
+  /** The tasks for these inputs. */
+  static tasks(p: ModelParams, x: Axis, y: Axis, ticked: string): SoftLineRequest[] | null {
+    const plane = SoftLinesController.plane(x, y);
+    if (!plane || p.mu === undefined && x.name !== 'mu' && y.name !== 'mu') return null;
+    const base = { lattice: p.lattice, interaction: p.interaction, mu: p.mu ?? 0, delta: p.delta, T: p.T };
+    const ranges = ticked.split(',').filter(Boolean);
+    return ranges.flatMap((range) => FOLLOWED.map((phase) => ({ base, x: plane[0], y: plane[1], range, phase, tol: 1e-3 })));
+  }
+
+  /** Inputs changed: trace what is ticked and not yet known (aborting older work). */
+  update(p: ModelParams, x: Axis, y: Axis, ticked: string): void {
+    const tasks = SoftLinesController.tasks(p, x, y, ticked);
+    if (!ticked) { this.cancel(); this.wanted = []; this.status = ''; return; }
+    if (!tasks) {
+      this.cancel();
+      this.wanted = [];
+      this.status = 'soft-mode lines need axes among mu, detuning, temperature, rb, v1 and a fixed mu';
+      return;
+    }
+    const keyed = tasks.map((t) => ({ key: JSON.stringify(t), range: t.range, t }));
+    this.wanted = keyed.map(({ key, range }) => ({ key, range }));
+    const todo = keyed.filter((k) => !this.results.has(k.key));
+    const runKey = todo.map((k) => k.key).join('|');
+    if (runKey === this.runningKey && this.ctrl) return;
+    this.cancel();
+    if (!todo.length) { this.status = this.summary(); return; }
+    const ctrl = new AbortController();
+    this.ctrl = ctrl;
+    this.runningKey = runKey;
+    this.status = `tracing ${todo.length} soft-mode line sets\u2026`;
+    this.engine().scan(todo, (remote, k) => remote.spectrum.softLines(k.t), {
+      signal: ctrl.signal,
+      onResult: (r, _i, k) => { this.results.set(k.key, r); this.host.requestUpdate(); },
+    }).then(() => {
+      if (this.ctrl !== ctrl) return;
+      this.ctrl = null;
+      this.runningKey = '';
+      this.status = this.summary();
+      this.host.requestUpdate();
+    }, (e: unknown) => {
+      if (this.ctrl !== ctrl) return;
+      this.ctrl = null;
+      this.runningKey = '';
+      this.status = isAbort(e) ? '' : `soft-mode lines failed: ${e instanceof Error ? e.message : String(e)}`;
+      this.host.requestUpdate();
+    });
+  }
+
+  private summary(): string {
+    const n = this.current().reduce((a, r) => a + r.lines.length, 0);
+    return `${n} soft-mode line${n === 1 ? '' : 's'}`;
+  }
+
+  /** Finished results of the inputs now wanted. */
+  current(): SoftLineResult[] {
+    return this.wanted.map((w) => this.results.get(w.key)).filter((r): r is SoftLineResult => !!r);
+  }
+
+  /** Stop tracing (finished lines stay). */
+  cancel(): void {
+    if (this.ctrl) { const c = this.ctrl; this.ctrl = null; this.runningKey = ''; c.abort(); }
   }
 
   hostDisconnected(): void {
-    this.lines = this.lines.slice();
+    this.cancel();
   }
 
-  /** The lines to draw. */
+  /** The lines to draw: one polyline per traced line, broken where the margin jumps. */
   overlays(): SoftLineOverlay[] {
-    return this.lines;
+    const out: SoftLineOverlay[] = [];
+    for (const r of this.current()) {
+      const style = SOFT_RANGES.find((s) => s.key === r.range) ?? { label: r.range, stroke: '#000000' };
+      for (const L of r.lines) {
+        const x: number[] = [], y: number[] = [];
+        for (const p of L.points) {
+          if (p.jump) { x.push(NaN); y.push(NaN); continue; }
+          x.push(p.x); y.push(p.y);
+        }
+        out.push({ label: style.label, stroke: style.stroke, dash: (style as { dash?: string }).dash, x, y });
+      }
+    }
+    return out;
   }
 }

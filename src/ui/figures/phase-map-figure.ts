@@ -113,7 +113,12 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
     : [0, 0.25, 0.5, 0.75, 1].map((t) => ({
       label: Number.isFinite(lo) ? (lo + t * (hi - lo)).toPrecision(3) : '', swatch: { kind: 'fill' as const, fill: rampColour(t) },
     }));
-  for (const l of o.lines) entries.push({ label: l.label, swatch: { kind: 'line', stroke: l.stroke, dash: l.dash, width: 2.2 } });
+  const seen = new Set<string>();
+  for (const l of o.lines) {
+    if (seen.has(l.label)) continue;
+    seen.add(l.label);
+    entries.push({ label: `soft: ${l.label}`, swatch: { kind: 'line', stroke: l.stroke, dash: l.dash, width: 2.2 } });
+  }
   marks.push(legend(entries, { title: o.shade === 'phase' ? 'Phase' : o.shade === 'photon' ? 'Photon density \u03b1\u00b2' : 'Excitation density \u03c1' }));
   const { svg, frame } = renderFigure({
     id, width: o.width, height: o.height, margin: { right: 190 },

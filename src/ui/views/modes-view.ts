@@ -1,8 +1,117 @@
-/** <modes-view>: under construction. */
-import { LitElement, html } from 'lit';
+/**
+ * <modes-view>: the fluctuation spectrum of the model's point: the branches omega_n(k)
+ * along the zone path, the stability margin against k, the softest wavevector k* and
+ * whether the state is dynamically stable. `cell` restricts the state to supercells of
+ * that size (1: follow the uniform state where it is not the ground state).
+ */
+import { LitElement, html, css, nothing } from 'lit';
+import type { AppState, ModelInputs } from '../state/app-state.ts';
+import type { ParsedModel } from '../model/model-inputs.ts';
+import { parseNumber } from '../model/model-inputs.ts';
+import type { StateSpectrum } from '../../core/spectrum/state-spectrum.ts';
+import type { EngineClient } from '../engine/engine-client.ts';
+import { EngineTask } from '../controllers/engine-task.ts';
+import { branchesFigure, marginFigure } from '../figures/spectrum-figure.ts';
+import { sharedStyles } from '../app/shared-styles.ts';
+import { cliLine, modelFlags } from '../export/cli-command.ts';
+import type { Table } from '../export/table.ts';
+import { PHASE_NAMES } from '../plot/phase-palette.ts';
+import '../app/figure-panel.ts';
+import '../app/data-export.ts';
+import '../app/limits-note.ts';
+
+type Section = AppState['modes'];
+const f = (x: number) => (Math.abs(x) < 1e-12 ? '0' : Number(x.toPrecision(6)).toString());
+const kText = (k: number | [number, number]) => (typeof k === 'number' ? f(k) : `(${f(k[0])}, ${f(k[1])})`);
+
+/** Branch table: one row a path point (k, arc length, margin, growth, omega_1..n). */
+export function spectrumTable(sp: StateSpectrum): Table {
+  const n = Math.max(...sp.branches.map((b) => b.omega.length));
+  const oneD = typeof sp.branches[0]?.k === 'number';
+  return {
+    columns: [...(oneD ? ['k'] : ['kx', 'ky']), 's', 'margin', 'growth', ...Array.from({ length: n }, (_, i) => `omega${i + 1}`)],
+    rows: sp.branches.map((b, i) => [...(typeof b.k === 'number' ? [b.k] : b.k), b.s, sp.margins[i], b.growth, ...Array.from({ length: n }, (_, j) => b.omega[j] ?? null)]),
+  };
+}
 
 export class ModesView extends LitElement {
-  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false } };
-  override render() { return html`<p>Under construction.</p>`; }
+  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false }, width: { state: true } };
+  declare section: Section;
+  declare model: ParsedModel;
+  declare inputs: ModelInputs;
+  declare engine: EngineClient;
+  declare width: number;
+  private task = new EngineTask<StateSpectrum>(this);
+  private inputError: string | null = null;
+  private resize = new ResizeObserver((e) => { this.width = Math.round(e[0].contentRect.width); });
+
+  constructor() {
+    super();
+    this.width = 900;
+  }
+
+  static override styles = [sharedStyles, css`
+    :host { display: block; }
+    .controls { display: flex; gap: 16px; flex-wrap: wrap; align-items: flex-end; margin-bottom: 8px; }
+    .controls label { display: block; font-size: 13px; }
+    .controls input { width: 90px; }
+    .summary { font-size: 14px; margin: 6px 0; }
+  `];
+
+  override connectedCallback() { super.connectedCallback(); this.resize.observe(this); }
+  override disconnectedCallback() { super.disconnectedCallback(); this.resize.disconnect(); }
+
+  private patch(p: Partial<Section>) {
+    this.dispatchEvent(new CustomEvent('section-change', { detail: { section: 'modes', patch: p }, bubbles: true, composed: true }));
+  }
+
+  override willUpdate() {
+    const p = this.model.params;
+    this.inputError = null;
+    const points = parseNumber(this.section.points);
+    const cellText = this.section.cell.trim();
+    const cell = cellText === '' ? undefined : parseNumber(cellText);
+    if (!Number.isInteger(points) || points < 2 || points > 2000) { this.inputError = 'path points must be a whole number 2..2000'; return; }
+    if (cell !== undefined && !(Number.isInteger(cell) && cell >= 1)) { this.inputError = 'cell must be empty (ground state) or a whole number M >= 1'; return; }
+    if (!p || !this.engine) return;
+    const req = { params: { ...p, ...(cell !== undefined ? { cell } : {}) }, seed: 1, points };
+    this.task.run(JSON.stringify(req), (signal) => this.engine.call((r) => r.spectrum.spectrum(req), signal));
+  }
+
+  override updated() {
+    this.dataset.status = this.task.status;
+  }
+
+  override render() {
+    const sp = this.task.value;
+    const w = Math.max(340, Math.min(this.width, 1000));
+    const h = Math.round(Math.min(420, Math.max(260, w * 0.42)));
+    const st = sp?.state;
+    const cmd = cliLine('spectrum', [...modelFlags(this.inputs), ...(this.section.cell.trim() ? ['--cell', this.section.cell.trim()] : []), '--points', this.section.points.trim(), '--json']);
+    return html`
+      <div class="controls">
+        <div><label for="md-points">Points along the path</label><input id="md-points" name="modes-points" .value=${this.section.points}
+          @input=${(e: Event) => this.patch({ points: (e.target as HTMLInputElement).value })}></div>
+        <div><label for="md-cell">Only supercells of M sites (empty: ground state)</label><input id="md-cell" name="modes-cell" .value=${this.section.cell}
+          @input=${(e: Event) => this.patch({ cell: (e.target as HTMLInputElement).value })}></div>
+        <div aria-live="polite">${this.task.status === 'pending' ? html`computing\u2026 <button @click=${() => this.task.abort()}>Cancel</button>` : nothing}</div>
+      </div>
+      ${this.inputError ? html`<p class="err" role="alert">${this.inputError}</p>` : nothing}
+      ${this.task.error ? html`<p class="err" role="alert">${this.task.error}</p>` : nothing}
+      ${!this.model.params ? html`<p class="err">The model has an invalid entry: showing the last good spectrum.</p>` : nothing}
+      ${sp && st ? html`
+        <p class="summary" role="status">State: <strong>${PHASE_NAMES[st.phase]}${st.fraction ? ' ' + st.fraction : ''}</strong> (M = ${st.cellSize}).
+          Softest mode at <strong class="kstar">k* = ${kText(sp.softMode.k)}</strong> (${sp.softMode.kind}), margin
+          <strong class="margin">${f(sp.softMode.margin)}</strong>: ${sp.softMode.stable ? 'thermodynamically stable' : 'UNSTABLE (a lower state exists in the cell of k*)'};
+          ${sp.dynamicallyStable ? 'dynamically stable (real frequencies).' : html`<span class="err">dynamically unstable, growth rate ${f(sp.growth)} g.</span>`}</p>
+        <figure-panel class="branches" .figure=${branchesFigure(sp, w, h, `Fluctuation branches of the ${PHASE_NAMES[st.phase]} state`)}></figure-panel>
+        <figure-panel class="margin" .figure=${marginFigure(sp, w, Math.round(h * 0.8))}></figure-panel>
+        <p class="muted">At k = 0: ${sp.zoneCentre.omega.map((o, i) => `${f(o)} g (photon weight ${f(sp.zoneCentre.photonWeight[i])})`).join(', ')}.
+          Margin: lowest eigenvalue of the static stability matrix, 1 for free emitters, 0 on a soft-mode line.</p>
+        <data-export class="modes-export" .table=${spectrumTable(sp)} .json=${sp} name="spectrum" .command=${cmd}></data-export>` : nothing}
+      <limits-note lattice=${this.model.params?.lattice ?? this.inputs.lattice} temperature=${this.model.params?.T ?? 0}></limits-note>`;
+  }
 }
 customElements.define('modes-view', ModesView);
+
+declare global { interface HTMLElementTagNameMap { 'modes-view': ModesView } }

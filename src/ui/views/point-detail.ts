@@ -15,6 +15,10 @@ import { stateRows, sublatticeTable } from './state-numbers.ts';
 import '../app/figure-panel.ts';
 import '../app/data-export.ts';
 import { PHASE_NAMES } from '../plot/phase-palette.ts';
+import type { StateSpectrum } from '../../core/spectrum/state-spectrum.ts';
+import { branchesFigure } from '../figures/spectrum-figure.ts';
+
+const fmtK = (k: number | [number, number]) => (typeof k === 'number' ? k.toFixed(4) : `(${k[0].toFixed(3)}, ${k[1].toFixed(3)})`);
 
 export class PointDetail extends LitElement {
   static override properties = {
@@ -28,6 +32,7 @@ export class PointDetail extends LitElement {
   declare width: number;
   declare command: string;
   private task = new EngineTask<SolveResult>(this);
+  private spectrum = new EngineTask<StateSpectrum>(this);
 
   constructor() {
     super();
@@ -49,6 +54,8 @@ export class PointDetail extends LitElement {
     if ((changed.has('params') || changed.has('seed')) && this.params && this.engine) {
       const req = { params: this.params, seed: this.seed };
       this.task.run(JSON.stringify(req), (signal) => this.engine.call((r) => r.meanfield.solve(req), signal));
+      const sreq = { ...req, points: 65 };
+      this.spectrum.run(JSON.stringify(sreq), (signal) => this.engine.call((r) => r.spectrum.spectrum(sreq), signal));
     }
   }
 
@@ -72,7 +79,12 @@ export class PointDetail extends LitElement {
             <data-export .table=${sublatticeTable(s)} .json=${s} name="point" .command=${this.command}></data-export>
           </div>
         </div>` : html`<p class="muted">Solving\u2026</p>`}
-      <slot></slot>
+      ${this.spectrum.value ? html`<figure-panel class="point-spectrum"
+          .figure=${branchesFigure(this.spectrum.value, Math.max(380, this.width - 30), 260, `Fluctuation branches at this point`)}></figure-panel>
+        <p class="muted soft">Softest mode k* = ${fmtK(this.spectrum.value.softMode.k)} (${this.spectrum.value.softMode.kind}), margin
+          ${this.spectrum.value.softMode.margin.toPrecision(4)}${this.spectrum.value.softMode.stable ? ', stable' : ', unstable'};
+          ${this.spectrum.value.dynamicallyStable ? 'real frequencies.' : 'complex frequencies (dynamically unstable).'}</p>`
+        : this.spectrum.error ? html`<p class="err">${this.spectrum.error}</p>` : html`<p class="muted">Spectrum…</p>`}
     </section>`;
   }
 }
