@@ -178,6 +178,21 @@ describe('staircase', () => {
     expect(widths).toBeGreaterThanOrEqual(2);
     await screenshot(page, 'staircase');
   });
+
+  it('its plateaus, edges bisected, equal those of the CLI staircase', async () => {
+    await open('?view=staircase&staircase.mu=-1%3A2.9%3A80&staircase.compare=');
+    await page.locator('staircase-view[data-refined="yes"]').waitFor({ state: 'attached', timeout: 90_000 });
+    const { text } = await download(page, () => page.locator('staircase-view data-export.points-export button', { hasText: 'JSON' }).click());
+    const mine = JSON.parse(text).series[0].plateaus as { fraction: string; muLow: number; muHigh: number }[];
+    const command = await page.locator('staircase-view data-export.points-export code.command').textContent();
+    const cli = JSON.parse(await runCliLine(command ?? '')).plateaus as typeof mine;
+    expect(mine.map((p) => p.fraction)).toEqual(cli.map((p) => p.fraction));
+    // both bisect to 1e-9 from the same grid brackets; 2e-9 allows one bisection step either way
+    mine.forEach((p, i) => {
+      expect(Math.abs(p.muLow - cli[i].muLow)).toBeLessThan(2e-9);
+      expect(Math.abs(p.muHigh - cli[i].muHigh)).toBeLessThan(2e-9);
+    });
+  });
 });
 
 describe('modes', () => {

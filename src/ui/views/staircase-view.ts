@@ -12,6 +12,11 @@ import { findPlateaus, type Plateau } from '../../core/meanfield/plateaus.ts';
 import type { ModelParams } from '../../core/model.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
 import { LineScansController } from '../controllers/line-scans.ts';
+import { EngineTask } from '../controllers/engine-task.ts';
+import { SCAN_SEED } from '../controllers/map-scan.ts';
+
+/** Plateau edge tolerance of the bisection (units of g), the CLI's default. */
+const EDGE_TOL = 1e-9;
 import { plateauLabel, staircaseFigure, type StaircaseSeries } from '../figures/staircase-figure.ts';
 import { sharedStyles } from '../app/shared-styles.ts';
 import { cliLine, modelFlags } from '../export/cli-command.ts';
@@ -39,6 +44,8 @@ export class StaircaseView extends LitElement {
   declare engine: EngineClient;
   declare width: number;
   private scans = new LineScansController(this, () => this.engine);
+  /** Plateau edges bisected to 1e-9 (as the CLI's staircase does), per series. */
+  private refined = new EngineTask<Plateau[][]>(this);
   private rangeError: string | null = null;
   private resize = new ResizeObserver((e) => { this.width = Math.round(e[0].contentRect.width); });
 
@@ -71,6 +78,7 @@ export class StaircaseView extends LitElement {
   }
 
   override willUpdate() {
+    this.refine();
     const p = this.model.params;
     this.rangeError = null;
     let r;
@@ -90,6 +98,24 @@ export class StaircaseView extends LitElement {
 
   override updated() {
     this.dataset.scan = this.scans.status;
+    this.dataset.refined = this.refined.status === 'complete' && this.refined.valueKey === this.scans.value?.key ? 'yes' : 'no';
+  }
+
+  /** Once a scan is complete, bisect its plateau edges on the scan workers. */
+  private refine() {
+    const v = this.scans.value;
+    if (v && this.scans.status === 'done') {
+      const maxCell = v.series[0].points[0].maxCell;
+      this.refined.run(v.key, (signal) => Promise.all(v.series.map((s) => {
+        const sorted = [...s.states].sort((a, b) => a.mu - b.mu);
+        const plateaus = findPlateaus(s.states, maxCell);
+        const { mu: _mu, ...base } = s.points[0];
+        return this.engine.scan(plateaus, (remote, plateau) => remote.meanfield.refinePlateau({
+          base: { ...base, mu: sorted[0].mu }, plateau, seed: SCAN_SEED, muTol: EDGE_TOL,
+          below: sorted.filter((x) => x.mu < plateau.muLow).pop(), above: sorted.find((x) => x.mu > plateau.muHigh),
+        }), { signal });
+      })));
+    }
   }
 
   private plateauTable(s: StaircaseSeries[]): Table {
@@ -101,9 +127,10 @@ export class StaircaseView extends LitElement {
   override render() {
     const v = this.scans.value;
     const maxCell = this.model.params?.maxCell ?? 12;
-    const series: StaircaseSeries[] = v ? v.series.map((s) => ({
+    const refined = v && this.refined.valueKey === v.key ? this.refined.value : undefined;
+    const series: StaircaseSeries[] = v ? v.series.map((s, i) => ({
       label: s.label, mu: s.states.map((x) => x.mu), rho: s.states.map((x) => x.excitationDensity),
-      filling: s.states.map((x) => x.emitterDensity), plateaus: findPlateaus(s.states, maxCell),
+      filling: s.states.map((x) => x.emitterDensity), plateaus: refined?.[i] ?? findPlateaus(s.states, maxCell),
     })) : [];
     const w = Math.max(340, Math.min(this.width, 1100));
     const fig = series.length ? staircaseFigure(series[0], series[1] ?? null, v!.series[0].points[0].delta, w, Math.round(Math.min(480, Math.max(300, w * 0.5)))) : null;
@@ -112,7 +139,7 @@ export class StaircaseView extends LitElement {
       rows: v ? v.series.flatMap((s) => s.states.map((x) => [s.label, x.mu, x.phase, x.fraction ?? '', x.excitationDensity, x.emitterDensity, x.photonDensity, x.cellSize])) : [],
     };
     const p = this.model.params;
-    const cmds = p ? this.ranges(p).map((rmax) => cliLine('staircase', [...modelFlags({ ...this.inputs, range: rmax === undefined ? '' : String(rmax) }, ['mu']), `--mu=${this.section.mu}`])) : [];
+    const cmds = p ? this.ranges(p).map((rmax) => cliLine('staircase', [...modelFlags({ ...this.inputs, range: rmax === undefined ? '' : String(rmax) }, ['mu']), `--mu=${this.section.mu}`, '--json'])) : [];
     return html`
       <div class="controls">
         <div><label for="st-mu">\u03bc scan start:stop:count (g)</label>
@@ -129,8 +156,9 @@ export class StaircaseView extends LitElement {
       </div>
       <figure-panel class="staircase" .figure=${fig}></figure-panel>
       <p class="muted">Plateaus are read from the solutions: no condensate and every sublattice empty or full, the fraction from the
-        cell's integer occupation confirmed by continued fractions with denominators \u2264 Mmax. Edges are those of the grid
-        (within one step ${series.length ? `= ${fmt((series[0].mu.at(-1)! - series[0].mu[0]) / Math.max(1, series[0].mu.length - 1))} g` : ''}).</p>
+        cell's integer occupation confirmed by continued fractions with denominators \u2264 Mmax.
+        ${refined ? html`Edges bisected to ${EDGE_TOL} g.` : html`Edges at the grid (within one step ${series.length ? `= ${fmt((series[0].mu.at(-1)! - series[0].mu[0]) / Math.max(1, series[0].mu.length - 1))} g` : ''});
+          ${this.refined.status === 'pending' ? 'bisecting\u2026' : ''}`}</p>
       <div class="tables">${series.map((s) => this.widths(s))}</div>
       <limits-note lattice=${p?.lattice ?? this.inputs.lattice} temperature=${p?.T ?? 0}></limits-note>
       ${v ? html`<data-export class="points-export" .table=${pts} .json=${{ series: series.map((s, i) => ({ label: s.label, plateaus: s.plateaus, points: v.series[i].states })) }}
