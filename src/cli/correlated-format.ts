@@ -25,11 +25,13 @@ function clusterJson(c: ClusterSpec): Record<string, unknown> {
 }
 
 export function edJson(c: ClusterSpec, r: EdResult): Record<string, unknown> {
-  return { ...r, cluster: clusterJson(c), structureFactor: momenta(c, r.structureFactor) };
+  const orderParameter = r.orderParameter && momenta(c, [r.orderParameter])[0];
+  return { ...r, cluster: clusterJson(c), structureFactor: momenta(c, r.structureFactor), orderParameter };
 }
 
 export function vmcJson(c: ClusterSpec, r: VmcResult): Record<string, unknown> {
-  return { ...r, cluster: clusterJson(c), structureFactor: momenta(c, r.structureFactor) };
+  const orderParameter = r.orderParameter && momenta(c, [r.orderParameter])[0];
+  return { ...r, cluster: clusterJson(c), structureFactor: momenta(c, r.structureFactor), orderParameter };
 }
 
 const f = (x: number, d = 6) => (Math.abs(x) < 1e-13 ? '0' : Number(x.toFixed(d)).toString());
@@ -51,6 +53,7 @@ export function edText(c: ClusterSpec, r: EdResult): string {
     r.grandPotentialPerSite !== null && !r.selfConsistent ? `  grand potential      ${f(r.grandPotentialPerSite, 10)}` : '',
     `  density <n>          ${f(r.density)}     photon alpha^2 ${f(r.photonDensity)}     <sigma^x> ${f(r.sigmaX)}`,
     peak ? `  S(k) peak            S(${kLabel(peak.k, ring)}) = ${f(peak.value)}` : '',
+    r.orderParameter ? `  density-wave order   m^2 = ${f(r.orderParameter.value)} at k = ${kLabel(r.orderParameter.k, ring)}   (<|n_k|^2>/N^2)` : '',
     `  site densities       ${r.siteDensities.map((x) => f(x, 4)).join(' ')}`,
     `  C(r)                 ${r.correlation.slice(0, 8).map((p) => `${f(p.r, 3)}:${f(p.value, 4)}`).join('  ')}`,
     `  Lanczos              ${r.lanczos.iterations} steps, residual ${r.lanczos.residual.toExponential(1)}, ${r.lanczos.evaluations} ground states`,
@@ -68,6 +71,7 @@ export function vmcText(c: ClusterSpec, r: VmcResult): string {
     `  energy per site      ${pm(r.energyPerSite, 8)}${r.selfConsistent ? '   (e = (delta-mu) alpha^2 + <H>/N)' : '   (<H(alpha)>/N)'}`,
     `  density <n>          ${pm(r.density)}     <sigma^x> ${pm(r.sigmaX)}`,
     peak ? `  S(k) peak            S(${kLabel(peak.k, ring)}) = ${pm(peak)}` : '',
+    r.orderParameter ? `  density-wave order   m^2 = ${pm(r.orderParameter)} at k = ${kLabel(r.orderParameter.k, ring)}   (<|n_k|^2>/N^2)` : '',
     `  site densities       ${r.siteDensities.map((x) => f(x.value, 3)).join(' ')}`,
     `  C(r)                 ${r.correlation.slice(0, 6).map((p) => `${f(p.r, 3)}:${f(p.value, 4)}`).join('  ')}`,
     `  acceptance ${f(r.acceptance, 3)}, tau_int ${f(r.tauInt, 2)} sweeps; optimisation ${r.trace.length} steps${last ? `, last step e = ${f(last.energyPerSite)}` : ''}`,

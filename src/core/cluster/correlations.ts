@@ -55,3 +55,25 @@ export function densityCorrelation(c: Cluster, density: ArrayLike<number>, pair:
   }
   return Array.from(c.shells, (r, d) => ({ r, value: sums[d] / counts[d], pairs: counts[d] }));
 }
+
+/**
+ * Density-wave order parameter m^2 = <|n_k*|^2>/N^2 = (1/N^2) sum_ij cos(k*.(r_i - r_j)) <n_i n_j>
+ * at the momentum k* != 0 where it is largest: the same whether the state keeps the
+ * cluster's symmetry (order in S(k)) or breaks it (order in <n_i>); 1/4 for a perfect
+ * half-filled period-2 crystal, O(1/N) without order. null on a cluster with only k = 0.
+ */
+export function densityWaveOrder(c: Cluster, density: ArrayLike<number>, pair: ArrayLike<number>): { k: [number, number]; m: [number, number]; value: number } | null {
+  const N = c.N;
+  let best: { k: [number, number]; m: [number, number]; value: number } | null = null;
+  for (let q = 0; q < c.momenta.length / 2; q++) {
+    if (c.momentumLabels[2 * q] === 0 && c.momentumLabels[2 * q + 1] === 0) continue;
+    const kx = c.momenta[2 * q], ky = c.momenta[2 * q + 1];
+    let sum = 0;
+    for (let i = 0; i < N; i++) for (let j = 0; j < N; j++) {
+      const ph = kx * (c.positions[2 * i] - c.positions[2 * j]) + ky * (c.positions[2 * i + 1] - c.positions[2 * j + 1]);
+      sum += Math.cos(ph) * (i === j ? density[i] : pair[i * N + j]);
+    }
+    if (!best || sum / (N * N) > best.value) best = { k: [kx, ky], m: [c.momentumLabels[2 * q], c.momentumLabels[2 * q + 1]], value: sum / (N * N) };
+  }
+  return best;
+}

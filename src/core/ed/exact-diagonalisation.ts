@@ -9,7 +9,7 @@
 import { InputError, requireFinite } from '../input-error.ts';
 import type { Cluster } from '../cluster/cluster.ts';
 import { type ClusterSpec, buildCluster } from '../cluster/spec.ts';
-import { type CorrelationPoint, type StructureFactorPoint, densityCorrelation, structureFactor } from '../cluster/correlations.ts';
+import { type CorrelationPoint, type StructureFactorPoint, densityCorrelation, densityWaveOrder, structureFactor } from '../cluster/correlations.ts';
 import { edSystem, groundState, type GroundState } from './exact-ground-state.ts';
 import { selfConsistentGround } from './self-consistent-alpha.ts';
 import { groundExpectations } from './ground-observables.ts';
@@ -47,6 +47,8 @@ export interface EdResult {
   sigmaX: number;
   siteDensities: number[];
   structureFactor: StructureFactorPoint[];
+  /** m^2 = <|n_k*|^2>/N^2 at the k* != 0 maximising it (correlations.ts). */
+  orderParameter: { k: [number, number]; m: [number, number]; value: number } | null;
   correlation: CorrelationPoint[];
   lanczos: { iterations: number; residual: number; evaluations: number };
 }
@@ -85,6 +87,7 @@ export function exactDiagonalisation(req: EdRequest, cluster: Cluster = buildClu
     density: mean(ex.density), photonDensity: g.alpha * g.alpha, sigmaX,
     siteDensities: Array.from(ex.density),
     structureFactor: structureFactor(cluster, ex.density, ex.pair),
+    orderParameter: densityWaveOrder(cluster, ex.density, ex.pair),
     correlation: densityCorrelation(cluster, ex.density, ex.pair),
     lanczos: { iterations: g.iterations, residual: g.residual, evaluations },
   };

@@ -9,7 +9,8 @@
  *        = (1/N) sum_ij e^{i k.(r_i - r_j)} (<n_i n_j> - <n_i><n_j>),
  *   C(r) = [ <sum_{i != j at r} n_i n_j> - sum_{i != j at r} <n_i><n_j> ] / (number of such pairs),
  *
- * and tau_int of the energy in sweeps from its jackknife and naive errors.
+ * the density-wave order m^2 = <|n_k|^2>/N^2 at its largest k != 0, and tau_int of the energy
+ * in sweeps from its jackknife and naive errors.
  */
 import type { Cluster } from '../cluster/cluster.ts';
 import { shellPairCounts } from '../cluster/cluster.ts';
@@ -26,6 +27,8 @@ export interface MeasuredObservables {
   siteDensities: Estimate[];
   structureFactor: { k: [number, number]; m: [number, number]; value: number; error: number }[];
   correlation: { r: number; value: number; error: number; pairs: number }[];
+  /** m^2 = <|n_k*|^2>/N^2 at the k* != 0 maximising it (see cluster/correlations.ts). */
+  orderParameter: { k: [number, number]; m: [number, number]; value: number; error: number } | null;
 }
 
 /** Merge the bins of every chain into estimates. */
@@ -54,6 +57,12 @@ export function measuredObservables(c: Cluster, parts: MeasureBins[]): MeasuredO
     for (let q = 0; q < K; q++) out[q] = (nk2(q, b) / W - (re(q, b) / W) ** 2 - (im(q, b) / W) ** 2) / N;
     return out;
   });
+  const m2 = jackknife(B, (b) => Float64Array.from({ length: K }, (_, q) => nk2(q, b) / w(0, b) / (N * N)));
+  let qBest = -1;
+  for (let q = 0; q < K; q++) {
+    if (c.momentumLabels[2 * q] === 0 && c.momentumLabels[2 * q + 1] === 0) continue;
+    if (qBest < 0 || m2[q].value > m2[qBest].value) qBest = q;
+  }
   const counts = shellPairCounts(c);
   const cr = jackknife(B, (b) => {
     const W = w(0, b), rhoI = Float64Array.from({ length: N }, (_, i) => site(i, b) / W), out = new Float64Array(S);
@@ -74,5 +83,8 @@ export function measuredObservables(c: Cluster, parts: MeasureBins[]): MeasuredO
       m: [c.momentumLabels[2 * q], c.momentumLabels[2 * q + 1]] as [number, number], value: s.value, error: s.error,
     })),
     correlation: cr.map((s, d) => ({ r: c.shells[d], value: s.value, error: s.error, pairs: counts[d] })),
+    orderParameter: qBest < 0 ? null : {
+      k: [c.momenta[2 * qBest], c.momenta[2 * qBest + 1]], m: [c.momentumLabels[2 * qBest], c.momentumLabels[2 * qBest + 1]], ...m2[qBest],
+    },
   };
 }

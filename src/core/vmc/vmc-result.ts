@@ -31,6 +31,8 @@ export interface VmcResult {
   siteDensities: Estimate[];
   structureFactor: { k: [number, number]; m: [number, number]; value: number; error: number }[];
   correlation: { r: number; value: number; error: number; pairs: number }[];
+  /** Density-wave order m^2 = <|n_k*|^2>/N^2 at the k* != 0 maximising it. */
+  orderParameter: { k: [number, number]; m: [number, number]; value: number; error: number } | null;
   acceptance: number;
   /** Integrated autocorrelation time of the energy (sweeps). */
   tauInt: number;
@@ -66,7 +68,7 @@ export function vmcResult(r: VmcResultInput): VmcResult {
     energyPerSite: selfConsistent ? (grand as Estimate) : h, hamiltonianPerSite: h, grandPotentialPerSite: grand,
     dEdAlpha: gap === null ? null : { value: 2 * gap * alpha - obs.sigmaX.value, error: obs.sigmaX.error },
     density: obs.density, photonDensity: { value: alpha * alpha, error: 2 * alpha * r.alphaError }, sigmaX: obs.sigmaX,
-    siteDensities: obs.siteDensities, structureFactor: obs.structureFactor, correlation: obs.correlation,
+    siteDensities: obs.siteDensities, structureFactor: obs.structureFactor, correlation: obs.correlation, orderParameter: obs.orderParameter,
     acceptance: r.acceptance, tauInt: obs.tauInt, samples: obs.samples,
     parameters: {
       oneBody: Array.from(r.theta.subarray(0, G)),

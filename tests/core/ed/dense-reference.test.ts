@@ -69,6 +69,14 @@ describe('ED against the dense eigensolver of ml-matrix (N <= 8)', () => {
       expectAbs(ed.energyPerSite * d.N, d.E0, 1e-10);
       for (let i = 0; i < d.N; i++) expectAbs(ed.siteDensities[i], d.pair[i * d.N + i], 1e-8);
       for (const p of ed.structureFactor) expectAbs(p.value, denseS(d, p.k[0], p.k[1]), 1e-8);
+      // m^2 = S(k)/N + |(1/N) sum_i e^{ik r_i} <n_i>|^2 at the reported k (identity of the definitions).
+      const o = ed.orderParameter!, N = d.N;
+      let re = 0, im = 0;
+      for (let i = 0; i < N; i++) {
+        const ph = o.k[0] * d.cluster.positions[2 * i] + o.k[1] * d.cluster.positions[2 * i + 1];
+        re += Math.cos(ph) * d.pair[i * N + i] / N; im += Math.sin(ph) * d.pair[i * N + i] / N;
+      }
+      expectAbs(o.value, denseS(d, o.k[0], o.k[1]) / N + re * re + im * im, 1e-8);
     });
   }
 
