@@ -7,9 +7,13 @@
 import type { ModelParams } from '../../core/model.ts';
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import type { EngineClient } from './engine-client.ts';
+import type { FollowedPhase } from '../../core/softmode/own-solution.ts';
+import type { SoftLineRequest } from '../../core/softmode/soft-lines.ts';
 
 export interface PhaseMargin {
   state: SolveResult;
+  /** Nearest soft-mode line of the state's own phase along mu (null: none within the window). */
+  soft?: SoftDistance | null;
   /** Distance in mu (g) to the nearest boundary below and above (null: none within the window). */
   below: { distance: number; phase: string } | null;
   above: { distance: number; phase: string } | null;
@@ -41,5 +45,61 @@ export async function phaseMargin(engine: EngineClient, p: ModelParams, signal: 
     }
     return { distance: Math.abs((a + b) / 2 - mu), phase: keyOf(other) };
   };
-  return { state, below: await side(-1), above: await side(1) };
+  const below = await side(-1), above = await side(1);
+  const soft = await softLineDistance(engine, p, state, signal, window).catch((e: unknown) => {
+    if (e instanceof Error && e.name === 'AbortError') throw e;
+    return null; // a softcore or unusual model the tracer refuses: the verdict stands without it
+  });
+  return { state, below, above, soft };
+}
+
+/** The phase a state's soft-mode line follows: uniform condensate, normal, or its crystal (null for a supersolid). */
+export function followedPhaseOf(s: SolveResult): FollowedPhase | null {
+  if (s.phase === 'superradiant') return 'condensate';
+  if (s.phase === 'empty' || s.phase === 'filled' || s.phase === 'normal') return 'normal';
+  if (s.phase === 'density-wave') return { cell: s.cell, pattern: s.sublatticeDensities.map((m) => (m > 0.5 ? 1 : 0)) };
+  return null;
+}
+
+export interface SoftDistance {
+  /** Distance in mu (g) from the point to the nearest soft-mode line of its own phase, at fixed delta. */
+  distance: number;
+  k: number | [number, number];
+  kind: string;
+}
+
+/**
+ * Distance along mu to the nearest soft-mode line of the point's own phase: trace the
+ * lines (softLines, one pool task) in the plane mu +- window by delta +- 0.25 around the
+ * point and cut them with the line delta = const. Null when the phase has no own line here.
+ */
+export async function softLineDistance(engine: EngineClient, p: ModelParams, s: SolveResult, signal: AbortSignal, window = 2): Promise<SoftDistance | null> {
+  const phase = followedPhaseOf(s);
+  if (!phase || p.mu === undefined) return null;
+  const mu = p.mu, delta = p.delta;
+  const req: SoftLineRequest = {
+    base: { lattice: p.lattice, interaction: p.interaction, mu, delta, T: p.T },
+    x: { name: 'mu', start: mu - window, stop: Math.min(mu + window, delta + 0.25 - 1e-6), count: 12 },
+    y: { name: 'detuning', start: delta - 0.25, stop: delta + 0.25, count: 12 },
+    range: rangeToken(p), phase, tol: 1e-3,
+  };
+  const r = await engine.call((e) => e.spectrum.softLines(req), signal);
+  let best: SoftDistance | null = null;
+  for (const L of r.lines) {
+    for (let i = 1; i < L.points.length; i++) {
+      const a = L.points[i - 1], b = L.points[i];
+      if ((a.y - delta) * (b.y - delta) > 0 || a.y === b.y) continue;
+      const x = a.x + ((delta - a.y) / (b.y - a.y)) * (b.x - a.x);
+      const d = Math.abs(x - mu);
+      if (!best || d < best.distance) best = { distance: d, k: a.k, kind: a.kind };
+    }
+  }
+  return best;
+}
+
+/** The range token (src/core/softmode/plane.ts) of the model's own interaction. */
+function rangeToken(p: ModelParams): string {
+  const i = p.interaction;
+  const r = i.rmax === undefined || !Number.isFinite(i.rmax) ? 'inf' : String(i.rmax);
+  return i.shape === 'nn' ? 'nn' : `${i.shape}:${r}`;
 }

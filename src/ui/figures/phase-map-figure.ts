@@ -10,7 +10,7 @@ import { renderFigure } from '../plot/figure.ts';
 import { type CellPaint, type Grid, heatmap, halfStep } from '../plot/heatmap.ts';
 import { categoryContour } from '../plot/contour.ts';
 import { axisX, axisY } from '../plot/axis.ts';
-import { legend, type LegendEntry } from '../plot/legend.ts';
+import { legend, legendBelowHeight, type LegendEntry } from '../plot/legend.ts';
 import { line } from '../plot/line.ts';
 import { dots } from '../plot/dot.ts';
 import { textLabels } from '../plot/text-label.ts';
@@ -98,7 +98,7 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
   }
   marks.push(categoryContour(g, key, { stroke: '#1d2430', width: 1 }));
   // fraction labels where there is room for the text (about 9 px from the region's edge)
-  const cellPx = Math.min((o.width - 220) / g.nx, (o.height - 70) / g.ny);
+  const cellPx = Math.min((o.width - (o.width < 640 ? 70 : 250)) / g.nx, (o.height - 70) / g.ny);
   const minDepth = Math.max(1, Math.ceil(9 / Math.max(cellPx, 1)));
   const labels = regionLabels(g.nx, g.ny, key, (k) => k.startsWith('density-wave') || k.startsWith('supersolid'), minDepth);
   const cx = (i: number) => (g.nx > 1 ? g.x[0] + (i * (g.x[1] - g.x[0])) / (g.nx - 1) : g.x[0]);
@@ -119,9 +119,11 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
     seen.add(l.label);
     entries.push({ label: `soft: ${l.label}`, swatch: { kind: 'line', stroke: l.stroke, dash: l.dash, width: 2.2 } });
   }
-  marks.push(legend(entries, { title: o.shade === 'phase' ? 'Phase' : o.shade === 'photon' ? 'Photon density \u03b1\u00b2' : 'Excitation density \u03c1' }));
+  const narrow = o.width < 640;
+  marks.push(legend(entries, { below: narrow, title: o.shade === 'phase' ? 'Phase' : o.shade === 'photon' ? 'Photon density \u03b1\u00b2' : 'Excitation density \u03c1' }));
+  const extra = narrow ? legendBelowHeight(entries.length, o.width) : 0;
   const { svg, frame } = renderFigure({
-    id, width: o.width, height: o.height, margin: { right: 190 },
+    id, width: o.width, height: o.height + extra, margin: narrow ? { right: 12, bottom: 46 + extra } : { right: 190 },
     x: [g.x[0] - hx, g.x[1] + hx], y: [g.y[0] - hy, g.y[1] + hy],
     marks, defs: textureDefs, title: o.title,
   });

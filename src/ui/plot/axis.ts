@@ -33,7 +33,7 @@ export function axisX(o: AxisOptions): Mark {
         out += el('line', { x1: X, x2: X, y1, y2: y1 + 5, stroke: INK });
         out += el('text', { x: X, y: y1 + 18, 'text-anchor': 'middle', fill: INK }, esc(t.label));
       }
-      out += el('text', { x: (x0 + x1) / 2, y: f.height - 8, 'text-anchor': 'middle', fill: INK, 'font-size': 13 }, esc(o.label));
+      out += el('text', { x: (x0 + x1) / 2, y: y1 + 38, 'text-anchor': 'middle', fill: INK, 'font-size': 13 }, esc(o.label));
       return `<g class="axis axis-x">${out}</g>`;
     },
   };

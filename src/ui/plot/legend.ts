@@ -16,6 +16,16 @@ export interface LegendOptions {
   title?: string;
   /** Left edge in px from the plot area's right edge. */
   gap?: number;
+  /** Rows under the x axis instead of a column at the right (narrow figures); reserve legendBelowHeight(). */
+  below?: boolean;
+}
+
+const ENTRY_W = 150, ROW_H = 18;
+
+/** Bottom space a legend below the axis needs for `n` entries in a figure `width` wide. */
+export function legendBelowHeight(n: number, width: number): number {
+  const perRow = Math.max(1, Math.floor((width - 16) / ENTRY_W));
+  return Math.ceil(n / perRow) * ROW_H + 8;
 }
 
 /** The legend column. Reserve about 150 px of right margin for it. */
@@ -23,10 +33,13 @@ export function legend(entries: LegendEntry[], o: LegendOptions = {}): Mark {
   return {
     clip: false,
     render(f: Frame) {
-      const x = f.inner.x1 + (o.gap ?? 14);
+      let x = f.inner.x1 + (o.gap ?? 14);
       let y = f.inner.y0 + 4, out = '';
-      if (o.title) { out += el('text', { x, y: y + 10, 'font-weight': 'bold', fill: '#1d2430' }, esc(o.title)); y += 20; }
-      for (const e of entries) {
+      const perRow = Math.max(1, Math.floor((f.width - 16) / ENTRY_W));
+      if (o.below) y = f.inner.y1 + 48;
+      else if (o.title) { out += el('text', { x, y: y + 10, 'font-weight': 'bold', fill: '#1d2430' }, esc(o.title)); y += 20; }
+      entries.forEach((e, n) => {
+        if (o.below) { x = 8 + (n % perRow) * ENTRY_W; y = f.inner.y1 + 48 + Math.floor(n / perRow) * ROW_H; }
         const s = e.swatch;
         if (s.kind === 'fill') {
           out += el('rect', { x, y, width: 18, height: 14, fill: s.fill, stroke: s.outline ?? '#5b6577', 'stroke-width': 0.8 });
@@ -37,8 +50,8 @@ export function legend(entries: LegendEntry[], o: LegendOptions = {}): Mark {
           out += el('circle', { cx: x + 9, cy: y + 7, r: 5, fill: s.fill, stroke: s.stroke ?? '#1d2430' });
         }
         out += el('text', { x: x + 24, y: y + 11, fill: '#1d2430', 'font-size': 11.5 }, esc(e.label));
-        y += 20;
-      }
+        if (!o.below) y += 20;
+      });
       return `<g class="legend">${out}</g>`;
     },
   };

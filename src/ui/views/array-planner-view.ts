@@ -52,6 +52,7 @@ export class ArrayPlannerView extends LitElement {
     @media (max-width: 900px) { .cols { grid-template-columns: 1fr; } }
     .field { display: grid; grid-template-columns: 1fr 110px 70px; gap: 2px 8px; align-items: center; margin: 5px 0; }
     .field .msg { grid-column: 1 / -1; }
+    .field.wide { grid-template-columns: 1fr 188px; }
     .verdict { font-size: 15px; padding: 8px 12px; border: 2px solid #165a78; border-radius: 6px; background: #eef5f8; }
     fieldset { border: 1px solid var(--line); border-radius: 6px; margin: 0 0 10px; }
   `];
@@ -125,6 +126,9 @@ export class ArrayPlannerView extends LitElement {
       (\u03c1 = ${fmt(s.excitationDensity)}, \u03b1\u00b2 = ${fmt(s.photonDensity)}),
       ${near ? html`<strong>${fmt(near.distance, 2)} g</strong> (${mhz(near.distance)} MHz in \u03bc) from the nearest phase boundary, to ${near.phase}${near === v.below ? ' below' : ' above'}.`
         : html`with no phase boundary within \u00b12 g of pump.`}
+      ${v.soft ? html` Its own solution goes soft <strong class="soft-distance">${fmt(v.soft.distance, 2)} g</strong> (${mhz(v.soft.distance)} MHz) away in \u03bc
+        (the nearest soft-mode line, at k* = ${typeof v.soft.k === 'number' ? fmt(v.soft.k, 4) : `(${fmt(v.soft.k[0], 3)}, ${fmt(v.soft.k[1], 3)})`}, ${v.soft.kind}).`
+        : v.soft === null ? html` No soft-mode line of its own phase within \u00b12 g.` : nothing}
       ${this.verdict.status === 'pending' ? html`<span class="muted">(updating)</span>` : nothing}</p>`;
   }
 
@@ -148,10 +152,10 @@ export class ArrayPlannerView extends LitElement {
     return html`<div class="cols">
       <section aria-label="Lab numbers">
         <fieldset><legend>Lab numbers (frequencies as \u03bd = E/h)</legend>
-          <div class="field"><label for="lab-coupling">Coupling given as</label>
+          <div class="field wide"><label for="lab-coupling">Coupling given as</label>
             <select id="lab-coupling" name="lab-coupling" @change=${(e: Event) => this.patch({ coupling: (e.target as HTMLSelectElement).value })}>
               <option value="single" ?selected=${s.coupling !== 'collective'}>g0 and N (g = g0 \u221aN)</option>
-              <option value="collective" ?selected=${s.coupling === 'collective'}>collective splitting 2g</option></select><span></span></div>
+              <option value="collective" ?selected=${s.coupling === 'collective'}>collective splitting 2g</option></select></div>
           ${shown.map((f) => this.field(f, field, error))}
           ${error && !shown.some((f) => f.key === field) ? html`<p class="err" role="alert">${error}</p>` : nothing}
         </fieldset>
@@ -169,7 +173,7 @@ export class ArrayPlannerView extends LitElement {
             <tr><th class="l">temperature T</th><td>${fmt(model.T)}</td><td class="l">g</td></tr>
           </tbody></table>
           <p>Regime on the ${lat}: ${sitesInsideBlockade(lat, model.rbOverA)} sites inside one blockade disc
-            (${shellsInsideBlockade(lat, model.rbOverA).length} neighbour shells with V &gt; 2g).
+            (${shellsInsideBlockade(lat, model.rbOverA).length} neighbour shell${shellsInsideBlockade(lat, model.rbOverA).length === 1 ? '' : 's'} with V &gt; 2g).
             ${model.rbOverA < 1 ? 'Below nearest-neighbour blockade: neighbours cost less than the Rabi splitting.' : ''}</p>
           ${this.verdictText(model)}
           ${back ? html`<h3>And back: the model's current point in lab units</h3>
