@@ -19,7 +19,7 @@ export const MAX_TRUNCATED_SITES = 30;
 /** Largest dimension of any basis: the full basis at N = 20. */
 export const MAX_DIMENSION = 1 << MAX_FULL_SITES;
 
-/** Bytes of the double-precision vectors a Lanczos run holds: diagonal, 4 work vectors, ground vector. */
+/** Double-precision vectors a full-basis Lanczos run holds: diagonal, 4 work vectors, ground vector and one spare. */
 export const LANCZOS_VECTORS = 7;
 
 export interface Basis {
@@ -36,9 +36,9 @@ export function fullBasis(N: number): Basis {
   if (N > MAX_FULL_SITES) {
     const gb = (LANCZOS_VECTORS * 8 * 2 ** N) / 2 ** 30;
     throw new InputError(
-      `exact diagonalisation is limited to N <= ${MAX_FULL_SITES} sites: N = ${N} has 2^${N} = ${2 ** N} states and ` +
-      `the Lanczos vectors alone need ${LANCZOS_VECTORS} x 8 x 2^${N} bytes = ${gb.toFixed(1)} GiB and every Lanczos step ` +
-      `N 2^N = ${(N * 2 ** N).toExponential(1)} operations, both doubling per site; ` +
+      `exact diagonalisation is limited to N <= ${MAX_FULL_SITES} sites: N = ${N} has 2^${N} = ${2 ** N} states, which take up to ` +
+      `${LANCZOS_VECTORS} x 8 x 2^${N} bytes = ${gb.toFixed(1)} GiB (Lanczos vectors) and N 2^N = ${(N * 2 ** N).toExponential(1)} ` +
+      'operations per Lanczos step, both doubling per site; ' +
       'use a smaller cluster, the blockade-truncated basis, or vmc', 'size');
   }
   return { N, dimension: 2 ** N, states: null, blockade: null };

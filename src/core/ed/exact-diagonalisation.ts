@@ -10,7 +10,7 @@ import { InputError, requireFinite } from '../input-error.ts';
 import type { Cluster } from '../cluster/cluster.ts';
 import { type ClusterSpec, buildCluster } from '../cluster/spec.ts';
 import { type CorrelationPoint, type StructureFactorPoint, densityCorrelation, densityWaveOrder, structureFactor } from '../cluster/correlations.ts';
-import { edSystem, groundState, type GroundState } from './exact-ground-state.ts';
+import { edSystem, fullVector, groundState, type GroundState } from './exact-ground-state.ts';
 import { selfConsistentGround } from './self-consistent-alpha.ts';
 import { groundExpectations } from './ground-observables.ts';
 
@@ -23,12 +23,16 @@ export interface EdRequest {
   delta?: number;
   /** Blockade threshold Vb of the truncated basis (omit for the full 2^N basis). */
   blockade?: number;
+  /** Use the k = 0 sector of a periodic cluster (default true; false: the whole 2^N basis). */
+  symmetric?: boolean;
 }
 
 export interface EdResult {
   method: 'ed';
   sites: number;
-  basis: 'full' | 'blockade';
+  /** 'translation': the k = 0 sector of the full basis of a periodic cluster. */
+  basis: 'full' | 'translation' | 'blockade';
+  /** Number of basis states Lanczos works in. */
   dimension: number;
   mu: number;
   delta: number | null;
@@ -65,7 +69,7 @@ export function exactDiagonalisation(req: EdRequest, cluster: Cluster = buildClu
       throw new InputError(`mu = ${mu} must be below the detuning ${req.delta}: for mu >= delta the photon number is unbounded`, 'mu');
     }
   }
-  const sys = edSystem(cluster, mu, req.blockade);
+  const sys = edSystem(cluster, mu, req.blockade, req.symmetric ?? true);
   let g: GroundState, evaluations = 1;
   if (req.alpha !== undefined) g = groundState(sys, req.alpha);
   else {
@@ -73,13 +77,13 @@ export function exactDiagonalisation(req: EdRequest, cluster: Cluster = buildClu
     g = sc.ground; evaluations = sc.evaluations;
   }
   const N = cluster.N;
-  const ex = groundExpectations(sys.basis, g.vector, sys.flips);
+  const ex = groundExpectations(sys.basis, fullVector(sys, g), sys.flips);
   const mean = (a: Float64Array) => a.reduce((s, v) => s + v, 0) / N;
   const sigmaX = mean(ex.sigmaX), hPerSite = g.energy / N;
   const gap = req.delta === undefined ? null : req.delta - mu;
   const grand = gap === null ? null : gap * g.alpha * g.alpha + hPerSite;
   return {
-    method: 'ed', sites: N, basis: sys.basis.states === null ? 'full' : 'blockade', dimension: sys.basis.dimension,
+    method: 'ed', sites: N, basis: sys.sector ? 'translation' : sys.basis.states === null ? 'full' : 'blockade', dimension: sys.diag.length,
     mu, delta: req.delta ?? null, alpha: g.alpha, selfConsistent: req.alpha === undefined,
     energyPerSite: req.alpha === undefined ? (grand as number) : hPerSite,
     hamiltonianPerSite: hPerSite, grandPotentialPerSite: grand,
