@@ -98,7 +98,7 @@ function lanczos(ctx: BenchContext) {
   const MB = 2 ** 20;
   ctx.log(`20-site vdw ring (Rb 1.5, mu 1.5, alpha 0.3): E0/N = ${m.e.toFixed(10)}, ${m.it} Lanczos steps in the ${m.basis} basis of ${m.dim} states, residual ${m.res.toExponential(1)}`);
   ctx.figure('Lanczos ground state + observables, 20-site ring', m.s, 's', { note: `(wall; the process used ${m.cpu.toFixed(1)} s of CPU in all)` });
-  ctx.figure('peak resident memory of that process', m.peak / MB, 'MB', { note: `(resident before the run ${(m.rss0 / MB).toFixed(0)} MB; the k = 0 sector's vectors take ~2 MB, the orbit table of 2^20 ints 4 MB, the full ground vector and the diagonal of 2^20 doubles 8 MB each)` });
+  ctx.figure('peak resident memory of that process', m.peak / MB, 'MB', { note: `(resident before the run ${(m.rss0 / MB).toFixed(0)} MB; the k = 0 sector's vectors take ~2 MB, the orbit table of 2^20 ints 4 MB, the expanded ground vector of 2^20 doubles 8 MB)` });
 }
 
 const bench: Bench = {
