@@ -2,8 +2,9 @@
  * Lines where a function f(u, v) on the unit square changes sign, traced rather than read
  * off a dense grid (the soft-mode lines of soft-lines.ts; f = the stability margin):
  *
- *  1. seeds: f on a coarse n x n grid; on every grid edge whose ends have opposite signs
- *     the crossing is located by bisection to `tol`;
+ *  1. seeds: f on a coarse n x n grid; every grid edge whose ends have opposite signs is a
+ *     seed, and a line starts from a seed not yet passed by an earlier line (its crossing
+ *     located by bisection to `tol` only then);
  *  2. from each seed not yet passed, the line is followed both ways by predictor-corrector
  *     continuation: step h along the tangent, then bracket the sign change along the normal
  *     (from a width set by the previous correction, growing x4 up to h; first on the side
@@ -11,9 +12,11 @@
  *     shows that linear interpolation inside it is good to tol/4; the point is that
  *     interpolation;
  *  3. step control on the chord error: a step that turns by theta over length L departs
- *     from the curve by about L theta / 4 (the sagitta of the arc); it is rejected above
- *     2 tol and the next h is scaled by 0.9 sqrt(tol/error) (at most x1.6, at most the grid
- *     spacing); a step that finds no bracket or turns by more than 45 degrees is halved;
+ *     from the curve by about L theta / 4 (the sagitta of the arc), or L^2 kappa / 8 with
+ *     kappa the curvature of the circle through the last three points, whichever is
+ *     larger; it is rejected above tol and the next h is scaled by 0.9 sqrt(tol/(2 error))
+ *     (at most x1.6, at most half the seed spacing); a step that finds no bracket or turns
+ *     by more than 45 degrees is halved;
  *     below 4 tol the line ends (the function no longer changes sign there, or is
  *     undefined: f = null, the followed phase does not exist);
  *  4. a line ends at the boundary of the square (its last point corrected along the
@@ -56,7 +59,8 @@ type P2 = [number, number];
 /** Sign classes: a zero counts as positive, so a node exactly on a line brackets once. */
 const pos = (x: number) => x >= 0;
 
-interface Seed<P> { at: LinePoint<P>; a: P2; b: P2; visited: boolean }
+/** A seed-grid edge with a sign change; `guess` is the linear interpolation of its end values (no evaluation). */
+interface Seed<P> { a: P2; b: P2; fa: Sampled<P>; fb: Sampled<P>; guess: P2; visited: boolean }
 
 /** Trace every zero line of f found from the seed grid. */
 export function traceZeroLines<P>(f: (u: number, v: number) => Sampled<P>, o: TraceOptions): { lines: ZeroLine<P>[]; evaluations: number } {
@@ -71,7 +75,8 @@ export function traceZeroLines<P>(f: (u: number, v: number) => Sampled<P>, o: Tr
     const fa = grid[j0 * n + i0], fb = grid[j1 * n + i1];
     if (fa.value === null || fb.value === null || pos(fa.value) === pos(fb.value)) return;
     const a: P2 = [i0 * dx, j0 * dx], b: P2 = [i1 * dx, j1 * dx];
-    seeds.push({ at: bisect(a, fa, b, fb), a, b, visited: false });
+    const t = (fa.value as number) / ((fa.value as number) - (fb.value as number));
+    seeds.push({ a, b, fa, fb, guess: [a[0] + t * (b[0] - a[0]), a[1] + t * (b[1] - a[1])], visited: false });
   };
   const inside = (p: P2) => p[0] >= -1e-12 && p[0] <= 1 + 1e-12 && p[1] >= -1e-12 && p[1] <= 1 + 1e-12;
 
@@ -126,7 +131,10 @@ export function traceZeroLines<P>(f: (u: number, v: number) => Sampled<P>, o: Tr
   function markVisited(p: P2, r: P2): void {
     for (const s of seeds) {
       if (s.visited) continue;
-      if (toSegment([s.at.u, s.at.v], p, r) < 4 * tol || segmentsCross(p, r, s.a, s.b)) s.visited = true;
+      // passed: the chord crosses the seed's edge, or ends on it (a line ending on the
+      // boundary), or runs through its interpolated crossing (a line through a grid node).
+      if (segmentsCross(p, r, s.a, s.b) || toSegment(r, s.a, s.b) < 4 * tol || toSegment(p, s.a, s.b) < 4 * tol ||
+        toSegment(s.guess, p, r) < 4 * tol) s.visited = true;
     }
   }
 
@@ -134,6 +142,7 @@ export function traceZeroLines<P>(f: (u: number, v: number) => Sampled<P>, o: Tr
   function march(p0: P2, t0: P2, sigma: number): { pts: LinePoint<P>[]; closed: boolean } {
     const pts: LinePoint<P>[] = [];
     let prev = p0, t = t0, h = dx / 2, w0 = dx / 8;
+    let before: P2 | null = null;
     const hmin = 4 * tol;
     while (evaluations < maxEval) {
       let q: P2 = [prev[0] + h * t[0], prev[1] + h * t[1]];
@@ -142,6 +151,7 @@ export function traceZeroLines<P>(f: (u: number, v: number) => Sampled<P>, o: Tr
       if (!inside(q)) {
         const hb = stepToBoundary(prev, t);
         if (hb < hmin / 4) break;
+        h = hb;
         q = [prev[0] + hb * t[0], prev[1] + hb * t[1]];
         dir = Math.abs(q[0]) < 1e-9 || Math.abs(q[0] - 1) < 1e-9 ? [0, 1] : [1, 0];
         atEdge = true;
@@ -155,8 +165,12 @@ export function traceZeroLines<P>(f: (u: number, v: number) => Sampled<P>, o: Tr
       const cosT = len > 0 ? (d[0] * t[0] + d[1] * t[1]) / len : -1;
       const theta = Math.acos(Math.max(-1, Math.min(1, cosT)));
       if (theta > Math.PI / 4 || len < 0.2 * h) { h /= 2; if (h < hmin) break; continue; }
-      const err = (len * theta) / 4;
-      if (err > 2 * tol && h > hmin && !atEdge) { h = Math.max(hmin, h * Math.max(0.25, 0.8 * Math.sqrt(tol / err))); continue; }
+      // Sagitta from the turn against the predicted tangent, and from the curvature of the
+      // circle through the last three points (Menger curvature 4 area / (abc)), whichever is larger.
+      let err = (len * theta) / 4;
+      if (before) err = Math.max(err, (len * len * menger(before, prev, [c.u, c.v])) / 8);
+      if (err > tol && atEdge && h > 2 * hmin) { h /= 2; continue; } // step inside first, then to the edge
+      if (err > tol && h > hmin && !atEdge) { h = Math.max(hmin, h * Math.max(0.25, 0.8 * Math.sqrt(0.5 * tol / err))); continue; }
       const r: P2 = [c.u, c.v];
       // The next bracket: four times this correction, at least 2 tol.
       w0 = Math.max(2 * tol, 4 * Math.hypot(c.u - q[0], c.v - q[1]));
@@ -167,9 +181,10 @@ export function traceZeroLines<P>(f: (u: number, v: number) => Sampled<P>, o: Tr
       const tn: P2 = [2 * dh[0] - t[0], 2 * dh[1] - t[1]];
       const tl = Math.hypot(tn[0], tn[1]) || 1;
       t = [tn[0] / tl, tn[1] / tl];
-      h = Math.min(dx, h * Math.min(1.6, 0.9 * Math.sqrt(tol / Math.max(err, 1e-16))));
+      h = Math.min(dx / 2, h * Math.min(1.6, 0.9 * Math.sqrt(0.5 * tol / Math.max(err, 1e-16))));
       if (atEdge) break;
       if (pts.length >= 3 && Math.hypot(r[0] - p0[0], r[1] - p0[1]) < Math.max(h, 4 * tol)) return { pts, closed: true };
+      before = prev;
       prev = r;
     }
     return { pts, closed: false };
@@ -181,14 +196,16 @@ export function traceZeroLines<P>(f: (u: number, v: number) => Sampled<P>, o: Tr
   for (const s of seeds) {
     if (s.visited || evaluations >= maxEval) continue;
     s.visited = true;
-    const p0: P2 = [s.at.u, s.at.v];
+    // Seeds are bisected only when a line starts from them; the others are passed by a march.
+    const at = bisect(s.a, s.fa, s.b, s.fb);
+    const p0: P2 = [at.u, at.v];
     const t0 = tangentAt(p0, s);
-    if (!t0) { lines.push({ points: [s.at], closed: false }); continue; }
+    if (!t0) { lines.push({ points: [at], closed: false }); continue; }
     // t0 = (-g_v, g_u)/|g|: the normal (-t_v, t_u) is -g going forward (f falls along it), +g back.
     const fwd = march(p0, t0, -1);
-    if (fwd.closed) { lines.push({ points: [s.at, ...fwd.pts], closed: true }); continue; }
+    if (fwd.closed) { lines.push({ points: [at, ...fwd.pts], closed: true }); continue; }
     const back = march(p0, [-t0[0], -t0[1]], 1);
-    lines.push({ points: [...back.pts.reverse(), s.at, ...fwd.pts], closed: false });
+    lines.push({ points: [...back.pts.reverse(), at, ...fwd.pts], closed: false });
   }
   return { lines, evaluations };
 
@@ -214,6 +231,13 @@ function stepToBoundary(p: P2, t: P2): number {
     else if (t[a] < 0) h = Math.min(h, -p[a] / t[a]);
   }
   return Math.max(0, h);
+}
+
+/** Curvature of the circle through three points. */
+function menger(a: P2, b: P2, c: P2): number {
+  const area2 = Math.abs((b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0]));
+  const l = Math.hypot(b[0] - a[0], b[1] - a[1]) * Math.hypot(c[0] - b[0], c[1] - b[1]) * Math.hypot(c[0] - a[0], c[1] - a[1]);
+  return l > 0 ? (2 * area2) / l : 0;
 }
 
 /** Distance from x to the segment pq. */

@@ -42,10 +42,12 @@ describe('soft-mode lines against the mean-field solver', () => {
     expect(after!.gain).toBeGreaterThan(1e-7);
   });
 
-  it('thermal normal state -> density wave at k* = pi (nn chain at half filling, T_c = V1/2)', () => {
-    const V1 = 1, mu = 1, delta = 51;
+  it('thermal normal state -> density wave at k* = pi (nn chain near half filling)', () => {
+    // mu = 1.05 with V(0) = 2: off the exactly half-filled point xi = 0.
+    const V1 = 1, mu = 1.05, delta = 51;
     const margin = (T: number) => marginAt('normal', { lattice: 'chain', interaction: { shape: 'nn', V1 }, mu, delta, T });
     const Tc = root((T) => margin(T).value as number, 0.2, 1);
+    expect(margin(Tc * 0.99).k).toBeCloseTo(Math.PI, 12);
     const at = (T: number): ModelParams => ({ lattice: 'chain', interaction: { shape: 'nn', V1 }, delta, mu, T, maxCell: 2 });
     const above = modulatedGain(at(Tc * 1.01));
     expect(above === null || (above.modulation < 1e-6 && above.gain <= 1e-12)).toBe(true);
@@ -53,7 +55,10 @@ describe('soft-mode lines against the mean-field solver', () => {
     expect(below).not.toBeNull();
     expect(below!.modulation).toBeGreaterThan(1e-2);
     expect(below!.gain).toBeGreaterThan(1e-6);
-    // Bragg-Williams T_c = V1/2 (stability test); here to the bisection's precision.
-    expect(Math.abs(Tc - V1 / 2)).toBeLessThan(1e-12);
+    // Bragg-Williams: T_c = 2 V1 m(1 - m) with the self-consistent m = (1 - tanh((2 V1 m - mu)/(2 T_c)))/2
+    // (stability test); m by bisection here, to the precision of the root.
+    let lo = 0, hi = 1;
+    for (let i = 0; i < 60; i++) { const m = (lo + hi) / 2; if (m - (1 - Math.tanh((2 * V1 * m - mu) / (2 * Tc))) / 2 < 0) lo = m; else hi = m; }
+    expect(Math.abs(Tc - 2 * V1 * lo * (1 - lo))).toBeLessThan(1e-10);
   });
 });
