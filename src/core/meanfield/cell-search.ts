@@ -26,6 +26,12 @@ export interface SearchOptions {
   randomStarts?: number;
   /** Phase-label tolerances. */
   tolerances?: Partial<PhaseTolerances>;
+  /**
+   * Keep solutions of a smaller period than the cell (default false: the search over all
+   * cells finds them in the smaller cell). solveInCell sets it, so that the state of one
+   * given cell is returned even when it is uniform.
+   */
+  reducible?: boolean;
 }
 
 /** The resolved model: lattice, potential and the cells searched. */
@@ -70,16 +76,20 @@ export function cellCandidates(ctx: Context, cell: Supercell, mu: number, o: Sea
     starts.unshift({ kind: 'guess', m: Float64Array.from(g.sublatticeDensities) });
   }
   const out: Candidate[] = [];
+  const keep = o.reducible === true || cell.M === 1;
+  if (keep && cell.M > 1) {
+    for (const v of [0, 0.5, 1]) starts.push({ kind: 'uniform', m: new Float64Array(cell.M).fill(v) });
+  }
   // A start is abandoned once its iterate has a smaller period (that solution belongs to a
   // smaller cell, searched there) or comes within DUPLICATE of a solution already found here.
   const abandon = cell.M === 1 ? undefined : (m: Float64Array) => {
-    if (!isPrimitive(cell, [m], SYMMETRIC)) return true;
+    if (!keep && !isPrimitive(cell, [m], SYMMETRIC)) return true;
     for (const c of out) if (sameUpToTranslation(cell, c.sol.m, m, DUPLICATE)) return true;
     return false;
   };
   for (const s of starts) {
     const sol = solveCell(prob, s.m, { abandon });
-    if (sol.converged && (cell.M === 1 || isPrimitive(cell, [sol.m], SYMMETRIC))) out.push({ cell, start: s.kind, sol });
+    if (sol.converged && (keep || isPrimitive(cell, [sol.m], SYMMETRIC))) out.push({ cell, start: s.kind, sol });
   }
   return out;
 }
@@ -89,13 +99,23 @@ const SYMMETRIC = 1e-9;
 /** Iterates this close (max |dm|, up to translation) to a found solution are duplicates. */
 const DUPLICATE = 1e-5;
 
-/** Lowest-Omega converged solution in one given cell, or null if no start converged. */
+/**
+ * Lowest-Omega converged solution restricted to one given cell (states of a smaller period
+ * included, e.g. the uniform state written on 12 sublattices), or null if no start
+ * converged. p.mu must be set (fixed mu); p is not validated here.
+ */
 export function solveInCell(p: ModelParams, cell: Supercell | { a: number; b: number; c: number }, o: SearchOptions = {}): Candidate | null {
   const ctx = context(p);
   const sc = 'sites' in cell ? cell : supercell(cell.a, cell.b, cell.c);
   let best: Candidate | null = null;
-  for (const c of cellCandidates(ctx, sc, p.mu as number, o)) if (better(c.sol, best?.sol ?? null)) best = c;
+  for (const c of cellCandidates(ctx, sc, p.mu as number, { ...o, reducible: true })) if (better(c.sol, best?.sol ?? null)) best = c;
   return best;
+}
+
+/** The plain-data state of solveInCell, on the given cell (not reduced). */
+export function stateInCell(p: ModelParams, cell: Supercell | { a: number; b: number; c: number }, o: SearchOptions = {}): MeanFieldState | null {
+  const c = solveInCell(p, cell, o);
+  return c ? toState(context(p), c, p.mu as number, o.tolerances, false) : null;
 }
 
 /** Lowest-Omega candidate over all cells of the context at chemical potential mu. */
@@ -108,10 +128,12 @@ export function searchCells(ctx: Context, mu: number, o: SearchOptions = {}): Ca
   return best;
 }
 
-/** The plain-data state of a candidate, reduced to its primitive cell and labelled. */
-export function toState(ctx: Context, c: Candidate, mu: number, tol: Partial<PhaseTolerances> = {}): MeanFieldState {
+/** The plain-data state of a candidate, labelled, reduced to its primitive cell unless reduce = false. */
+export function toState(ctx: Context, c: Candidate, mu: number, tol: Partial<PhaseTolerances> = {}, reduce = true): MeanFieldState {
   const modTol = tol.modulation ?? 1e-4;
-  const red = reduceToPrimitive(c.cell, [c.sol.m, c.sol.sx], Math.min(modTol, 1e-8));
+  const red = reduce
+    ? reduceToPrimitive(c.cell, [c.sol.m, c.sol.sx], Math.min(modTol, 1e-8))
+    : { cell: c.cell, arrays: [Array.from(c.sol.m), Array.from(c.sol.sx)] };
   const [m, sx] = red.arrays;
   const a = c.sol.alpha * c.sol.alpha;
   const mean = m.reduce((x, y) => x + y, 0) / m.length;

@@ -10,7 +10,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { solveGroundState } from '../../../src/core/meanfield/ground-state.ts';
-import { solveInCell } from '../../../src/core/meanfield/cell-search.ts';
+import { solveInCell, stateInCell } from '../../../src/core/meanfield/cell-search.ts';
 import { couplings } from '../../../src/core/interaction/lattice-sums.ts';
 import { lattice } from '../../../src/core/lattice/geometry.ts';
 import { supercell } from '../../../src/core/lattice/supercells.ts';
@@ -76,6 +76,16 @@ describe('one given cell', () => {
     // The fixed-cell entry of the model (p.cell) agrees.
     const only1 = solveGroundState({ ...p, cell: 1 });
     expect(Math.abs(only1.grandPotential - uni.sol.omega)).toBeLessThan(1e-12);
+  });
+
+  it('a uniform ground state is returned on a larger given cell too', () => {
+    const p = models[1]; // uniform superradiant
+    const gs = solveGroundState(p);
+    expect(gs.cellSize).toBe(1);
+    const s = stateInCell(p, { a: 12, b: 0, c: 1 })!;
+    expect(s.cellSize).toBe(12);
+    expect(Math.abs(s.grandPotential - gs.grandPotential)).toBeLessThan(1e-12);
+    for (const m of s.sublatticeDensities) expect(Math.abs(m - gs.emitterDensity)).toBeLessThan(1e-10);
   });
 });
 
