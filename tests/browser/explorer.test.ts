@@ -7,6 +7,7 @@
  */
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import type { Page } from 'playwright-core';
+import { readFile } from 'node:fs/promises';
 import { buildApp } from './harness/build-app.ts';
 import { serveStatic, type StaticServer } from './harness/static-server.ts';
 import { launchChromium, type Browser } from './harness/launch-chromium.ts';
@@ -67,6 +68,34 @@ describe('phase atlas', () => {
     await pointAt(page, 'figure-panel.map', 1.6, 1.4);
     await expect.poll(() => readout.textContent()).not.toBe(first);
     expect(await readout.textContent()).toMatch(/density wave|supersolid/);
+  });
+
+  it('the map is keyboard operable: arrows move the readout, Enter opens the point', async () => {
+    const readout = page.locator('phase-atlas-view .readout');
+    await page.locator('figure-panel.map .host').focus();
+    await page.keyboard.press('ArrowRight');
+    const a = await readout.textContent();
+    await page.keyboard.press('Shift+ArrowRight');
+    await expect.poll(() => readout.textContent()).not.toBe(a);
+    expect(await readout.textContent()).toMatch(/\u03bc = .*, Rb = /);
+    await page.keyboard.press('Enter');
+    await page.locator('point-detail .phase-name').waitFor({ timeout: 20_000 });
+    await page.locator('point-detail button', { hasText: 'Close' }).click();
+    expect(await page.locator('point-detail').count()).toBe(0);
+  });
+
+  it('the map saves as SVG and as PNG', async () => {
+    const svg = await download(page, () => page.locator('figure-panel.map button', { hasText: 'SVG' }).click());
+    expect(svg.name).toBe('phase-map.svg');
+    expect(svg.text).toContain('<svg xmlns="http://www.w3.org/2000/svg"');
+    expect(svg.text).toContain('chemical potential \u03bc (g)');
+    expect(svg.text).toContain('class="legend"');
+    const [d] = await Promise.all([page.waitForEvent('download'), page.locator('figure-panel.map button', { hasText: 'PNG' }).click()]);
+    expect(d.suggestedFilename()).toBe('phase-map.png');
+    const bytes = await readFile(await d.path());
+    // the PNG signature (ISO/IEC 15948, 5.2): 89 50 4E 47 0D 0A 1A 0A
+    expect([...bytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+    expect(bytes.length).toBeGreaterThan(10_000);
   });
 
   it('a click opens the point with its sublattice pattern', async () => {
@@ -270,6 +299,24 @@ describe('array planner', () => {
 });
 
 describe('whole page', () => {
+  it('fits a narrow window and 1280 x 800 without sideways scrolling, every view', async () => {
+    for (const [w, h] of [[420, 900], [1280, 800]]) {
+      await page.setViewportSize({ width: w, height: h });
+      for (const view of ['atlas', 'staircase', 'modes', 'correlated', 'planner']) {
+        await open(`?view=${view}`);
+        await page.locator('atlas-app').waitFor();
+        await page.waitForTimeout(300);
+        const scroll = await page.evaluate(() => document.documentElement.scrollWidth);
+        expect(scroll, `${view} at ${w} px`).toBeLessThanOrEqual(w);
+      }
+      if (w === 420) {
+        await open('?view=atlas');
+        await waitForScan(page, 'done', 90_000);
+        await screenshot(page, 'atlas-narrow');
+      }
+    }
+  });
+
   it('no console errors', () => {
     expect(browser.errors).toEqual([]);
   });
