@@ -256,7 +256,7 @@ function iterate(p: CellProblem, h: Float64Array, opts: SolveCellOptions): { h: 
     // condenses), so Newton and plain steps escape the uncondensed region only slowly. Try
     // the photon root for the present zeta (beta solved at fixed emitter fields) instead.
     const bStar = Math.sqrt(photonDensity(h.subarray(0, M), p.delta - p.mu, p.T));
-    if (Math.abs(bStar - Math.abs(h[M])) > 1e-3 * (bStar + Math.abs(h[M]))) {
+    if (bStar > 1.5 * Math.abs(h[M])) {
       trialH.set(h); trialH[M] = bStar;
       evaluate(p, trialH, next, true);
       if (next.phi < cur.phi - slack) { h = Float64Array.from(trialH); [cur, next] = [next, cur]; }
