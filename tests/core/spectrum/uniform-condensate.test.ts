@@ -110,3 +110,26 @@ describe('uniform condensate at T > 0', () => {
     }
   });
 });
+
+describe('uniform condensate on the square and triangular lattices', () => {
+  // nn Fourier sums in closed form: square 2V1(cos kx + cos ky); triangular
+  // 2V1(cos kx + 2 cos(kx/2) cos(sqrt3 ky/2)) (six neighbours at unit distance).
+  const cases = [
+    { lat: 'square' as const, V: (k: [number, number]) => 2 * (Math.cos(k[0]) + Math.cos(k[1])) },
+    { lat: 'triangular' as const, V: (k: [number, number]) => 2 * (Math.cos(k[0]) + 2 * Math.cos(k[0] / 2) * Math.cos((Math.sqrt(3) * k[1]) / 2)) },
+  ];
+  for (const c of cases) {
+    it(`${c.lat}, nn V1 = 1: omega(k)^2 = 4E^2 + V(k) alpha^2/E along the path`, () => {
+      const delta = 1, mu = 0.3;
+      const s = condensate(c.V([0, 0]), mu, delta, 0);
+      const sp = fluctuationSpectrum({ lattice: c.lat, interaction: { shape: 'nn', V1: 1 }, cell: { a: 1, b: 0, c: 1 }, densities: [s.m], alpha: s.alpha, mu, delta, T: 0 }, { points: 40 });
+      for (const b of sp.branches) {
+        const k = b.k as [number, number];
+        if (Math.hypot(k[0], k[1]) < 1e-12) continue; // Gamma: photon joins
+        const w2 = 4 * s.E ** 2 + (c.V(k) * s.alpha ** 2) / s.E;
+        if (w2 > 0) expectRel(b.omega[0], Math.sqrt(w2), 1e-10);
+        else expectRel(b.growth, Math.sqrt(-w2), 1e-10);
+      }
+    });
+  }
+});
