@@ -16,9 +16,10 @@
  * iteration converges to minima and never cycles. Fields are unbounded, so no step is
  * clipped. Converged when a full step changes m and <sigma^x> by less than tol (1e-12).
  */
-import { gOf, qOf, occupation, levelFreeEnergy, photonDensity } from './emitter.ts';
-import { cholesky, choleskySolve, gaussSolve } from './dense-solve.ts';
+import { photonDensity } from './emitter.ts';
+import { gaussSolve } from './dense-solve.ts';
 import type { CellProblem, SolveCellOptions } from './sublattice.ts';
+import { type Trial, evaluate, negativeCurvature, newTrial, slope } from './trial-state.ts';
 
 /** The solution's observables. */
 export interface FieldResult {
@@ -26,127 +27,6 @@ export interface FieldResult {
   converged: boolean; iterations: number; step: number;
 }
 
-/** The trial state of fields h: occupations m, coherences x, their derivatives, Phi. */
-interface Trial {
-  m: Float64Array; x: Float64Array;
-  cmz: Float64Array; cmb: Float64Array; cxb: Float64Array;
-  /** Hartree fields xi(m) and the photon alpha(x). */
-  xi: Float64Array; alpha: number;
-  phi: number;
-}
-
-function newTrial(M: number): Trial {
-  const f = () => new Float64Array(M);
-  return { m: f(), x: f(), cmz: f(), cmb: f(), cxb: f(), xi: f(), alpha: 0, phi: 0 };
-}
-
-/** Evaluate the trial state of fields h into t (and, if `deriv`, chi). */
-function evaluate(p: CellProblem, h: Float64Array, t: Trial, deriv: boolean): void {
-  const { M, J, mu, T } = p;
-  const beta = h[M], dmu = p.delta - mu;
-  let entropyTerm = 0, xSum = 0;
-  for (let s = 0; s < M; s++) {
-    const z = h[s];
-    const E = Math.sqrt(z * z / 4 + beta * beta);
-    if (E === 0) { // T = 0 degenerate level: no preferred state; take the midpoint.
-      t.m[s] = 0.5; t.x[s] = 0; t.cmz[s] = 0; t.cmb[s] = 0; t.cxb[s] = 0;
-      continue;
-    }
-    const g = gOf(E, T);
-    const m = occupation(z, beta * beta, E, g, T);
-    const x = -2 * beta * g;
-    t.m[s] = m; t.x[s] = x; xSum += x;
-    if (T > 0) entropyTerm += levelFreeEnergy(E, T) + z / 2 - z * m - beta * x;
-    if (deriv) {
-      const q = qOf(E, T);
-      t.cmz[s] = -(g + z * z * q / 4) / 2;
-      t.cmb[s] = -z * beta * q / 2;
-      t.cxb[s] = -2 * g - 2 * beta * beta * q;
-    }
-  }
-  let e = 0;
-  for (let s = 0; s < M; s++) {
-    let xi = -mu;
-    for (let u = 0; u < M; u++) xi += J[s * M + u] * t.m[u];
-    t.xi[s] = xi;
-    e += t.m[s] * (xi - mu); // m (J m) - 2 mu m, halved below
-  }
-  const xMean = xSum / M;
-  t.alpha = -xMean / (2 * dmu);
-  t.phi = entropyTerm / M + e / (2 * M) - (xMean * xMean) / (4 * dmu);
-}
-
-/** Directional derivative of Phi along d: (1/M) sum_s r_s . chi_s . d_s (beta shared). */
-function slope(p: CellProblem, t: Trial, h: Float64Array, d: Float64Array): number {
-  const M = p.M, rb = t.alpha - h[M], db = d[M];
-  let s = 0;
-  for (let i = 0; i < M; i++) {
-    const rz = t.xi[i] - h[i];
-    s += rz * (t.cmz[i] * d[i] + t.cmb[i] * db) + rb * (t.cmb[i] * d[i] + t.cxb[i] * db);
-  }
-  return s / M;
-}
-
-/** Gradient of Phi at the evaluated trial t of fields h: (1/M) chi r, beta shared. */
-function gradient(p: CellProblem, t: Trial, h: Float64Array, out: Float64Array): void {
-  const M = p.M, rb = t.alpha - h[M];
-  let gb = 0;
-  for (let s = 0; s < M; s++) {
-    const rz = t.xi[s] - h[s];
-    out[s] = (rz * t.cmz[s] + rb * t.cmb[s]) / M;
-    gb += rz * t.cmb[s] + rb * t.cxb[s];
-  }
-  out[M] = gb / M;
-}
-
-/**
- * Negative curvature of Phi at h, for leaving a saddle (a nearly symmetric state that is
- * unstable towards modulation or condensation, which the Newton and plain steps leave only
- * slowly). The Hessian is the central difference of the analytic gradient (steps 1e-6 of
- * the field scale; only its sign structure and softest direction are used). Returns the
- * downhill-signed direction of most negative curvature (inverse iteration with the shifted
- * Cholesky factor), or null when the Hessian is positive definite.
- */
-function negativeCurvature(p: CellProblem, h: Float64Array, cur: Trial, work: Trial): Float64Array | null {
-  const n = p.M + 1;
-  const H = new Float64Array(n * n), L = new Float64Array(n * n);
-  const gp = new Float64Array(n), gm = new Float64Array(n), hh = Float64Array.from(h);
-  let scale = p.T;
-  for (let i = 0; i < n; i++) scale = Math.max(scale, Math.abs(h[i]));
-  for (let j = 0; j < n; j++) {
-    const e = 1e-6 * (Math.abs(h[j]) + p.T);
-    hh[j] = h[j] + e; evaluate(p, hh, work, true); gradient(p, work, hh, gp);
-    hh[j] = h[j] - e; evaluate(p, hh, work, true); gradient(p, work, hh, gm);
-    hh[j] = h[j];
-    for (let i = 0; i < n; i++) H[i * n + j] = (gp[i] - gm[i]) / (2 * e);
-  }
-  let diagMax = 0;
-  for (let i = 0; i < n; i++) {
-    diagMax = Math.max(diagMax, Math.abs(H[i * n + i]));
-    for (let j = 0; j < i; j++) { const v = (H[i * n + j] + H[j * n + i]) / 2; H[i * n + j] = v; H[j * n + i] = v; }
-  }
-  if (cholesky(H, n, 0, L)) return null;
-  let shift = 1e-8 * (diagMax + 1e-300);
-  while (!cholesky(H, n, shift, L)) shift *= 4;
-  cholesky(H, n, 2 * shift, L);
-  const v = new Float64Array(n);
-  for (let i = 0; i < n; i++) v[i] = 1 + 0.5 * Math.sin(1.3 * i + 0.7);
-  for (let k = 0; k < 8; k++) {
-    choleskySolve(L, n, v);
-    let nv = 0;
-    for (let i = 0; i < n; i++) nv = Math.max(nv, Math.abs(v[i]));
-    for (let i = 0; i < n; i++) v[i] /= nv;
-  }
-  let curv = 0;
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) curv += v[i] * H[i * n + j] * v[j];
-  if (!(curv < 0)) return null;
-  gradient(p, cur, h, gp);
-  let gv = 0;
-  for (let i = 0; i < n; i++) gv += gp[i] * v[i];
-  if (gv > 0) for (let i = 0; i < n; i++) v[i] = -v[i];
-  for (let i = 0; i < n; i++) v[i] *= 0.1 * scale;
-  return v;
-}
 
 /** The Hartree fields of m and the photon alpha they support: h = (xi(m), alpha(xi)). */
 export function fieldsOf(p: CellProblem, m: ArrayLike<number>): Float64Array {
