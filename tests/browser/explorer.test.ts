@@ -7,7 +7,9 @@
  */
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import type { Page } from 'playwright-core';
-import { readFile } from 'node:fs/promises';
+import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { buildApp } from './harness/build-app.ts';
 import { serveStatic, type StaticServer } from './harness/static-server.ts';
 import { launchChromium, type Browser } from './harness/launch-chromium.ts';
@@ -281,6 +283,40 @@ describe('correlated check', () => {
     expect(mine.trace.length).toBe(30);
     expect(await page.locator('correlated-view figure-panel.trace svg .error-bars circle').count()).toBe(30);
     await screenshot(page, 'correlated-vmc');
+  });
+});
+
+describe('correlated check on an uploaded array', () => {
+  it('draws the CSV array to scale and its ED equals the CLI on the same file', async () => {
+    // an invented six-site zig-zag, coordinates in um with a = 4 um
+    const dir = await mkdtemp(join(tmpdir(), 'atlas-sites-'));
+    const csv = join(dir, 'zigzag.csv');
+    await writeFile(csv, 'x,y\n0,0\n4,2\n8,0\n12,2\n16,0\n20,2\n');
+    await open('?view=correlated&correlated.method=ed&correlated.cluster=array&correlated.alpha=0.2');
+    await page.locator('correlated-view input[name="correlated-spacing"]').fill('4');
+    await page.locator('correlated-view input[type="file"]').setInputFiles(csv);
+    await page.locator('correlated-view[data-status="complete"]').waitFor({ state: 'attached', timeout: 60_000 });
+    const circles = await page.locator('correlated-view figure-panel.cluster svg .dots circle').count();
+    expect(circles).toBe(6);
+    // drawn to scale: neighbouring sites 1.118 a apart (sqrt(1 + 0.5^2)), the axis spans 5 a
+    const xs = await page.locator('correlated-view figure-panel.cluster svg .dots circle').evaluateAll((cs) => cs.map((c) => Number(c.getAttribute('cx'))));
+    const ys = await page.locator('correlated-view figure-panel.cluster svg .dots circle').evaluateAll((cs) => cs.map((c) => Number(c.getAttribute('cy'))));
+    const dx = xs[1] - xs[0], dy = ys[1] - ys[0];
+    // equal scales on both axes: the pixel step is 2:1 like the data step (0.5 a up per 1 a along), to 0.02 px rounding
+    expect(Math.abs(Math.abs(dx) - 2 * Math.abs(dy))).toBeLessThan(0.05);
+    const { text } = await download(page, () => page.locator('correlated-view data-export button', { hasText: 'JSON' }).click());
+    const mine = JSON.parse(text);
+    const command = (await page.locator('correlated-view data-export code.command').textContent()) ?? '';
+    expect(command).toContain('--sites sites.csv');
+    const saved = await download(page, () => page.locator('correlated-view button', { hasText: 'Save sites.csv' }).click());
+    const savedPath = join(dir, 'sites.csv');
+    await writeFile(savedPath, saved.text);
+    const cli = JSON.parse(await runCliLine(command.replace('--sites sites.csv', `--sites ${savedPath}`)));
+    expect(mine.sites).toBe(6);
+    // the same Lanczos on the same six sites: equal to rounding (1e-12)
+    expect(Math.abs(mine.energyPerSite - cli.energyPerSite)).toBeLessThan(1e-12);
+    await rm(dir, { recursive: true, force: true });
+    await screenshot(page, 'correlated-array');
   });
 });
 

@@ -29,7 +29,7 @@ function values(v: Correlated): Record<string, [number, number] | null> {
 }
 
 /** Rows [quantity, correlated, mean field]. */
-export function comparisonRows(v: Correlated | undefined, mf: SolveResult | undefined): [string, string, string][] {
+export function comparisonRows(v: Correlated | undefined, mf: SolveResult | undefined, fixedAlpha = false): [string, string, string][] {
   const x = v ? values(v) : null;
   const show = (k: string) => {
     const e = x?.[k];
@@ -38,7 +38,9 @@ export function comparisonRows(v: Correlated | undefined, mf: SolveResult | unde
   };
   const mfSigmaX = mf ? mf.sublatticeCoherences.reduce((a, b) => a + b, 0) / mf.sublatticeCoherences.length : NaN;
   return [
-    ['energy per site e (g)', show('energyPerSite'), f(mf?.grandPotential, 10)],
+    fixedAlpha
+      ? ['energy per site \u27e8H(\u03b1)\u27e9/N (g)', show('energyPerSite'), 'not comparable: \u03b1 fixed']
+      : ['energy per site e (g)', show('energyPerSite'), f(mf?.grandPotential, 10)],
     ['emitter density \u27e8n\u27e9', show('density'), f(mf?.emitterDensity)],
     ['photon amplitude \u03b1', show('alpha'), f(mf?.alpha)],
     ['photon density \u03b1\u00b2', show('photonDensity'), f(mf?.photonDensity)],

@@ -247,7 +247,7 @@ export class CorrelatedView extends LitElement {
   }
 
   private comparison(v: Correlated | undefined, mf: SolveResult | undefined) {
-    const rows = comparisonRows(v, mf);
+    const rows = comparisonRows(v, mf, this.job?.alpha !== undefined);
     const method = v?.kind === 'vmc' ? 'VMC' : 'ED';
     return html`<table class="comparison" aria-label="Correlated result beside mean field">
       <thead><tr><th class="l">quantity</th><th>${method} (cluster)</th><th>mean field (infinite lattice)</th></tr></thead>
@@ -265,7 +265,7 @@ export class CorrelatedView extends LitElement {
     return html`
       <figure-panel class="sk" .figure=${seriesFigure({
         id: 'sk', name: 'structure-factor', title: 'Structure factor S(k) on the cluster momenta', width: w, height: 280,
-        series: [{ label: `S(k), ${v.kind.toUpperCase()}`, x: order.map((i) => kx[i]), y: order.map((i) => sk[i].value), err: order.map((i) => sk[i].error), stroke: '#5a2ca0', points: true }],
+        series: [{ label: `S(k), ${v.kind.toUpperCase()}`, x: order.map((i) => kx[i]), y: order.map((i) => sk[i].value), err: order.map((i) => sk[i].error), stroke: '#5a2ca0', points: true, noLine: !oneD }],
         x: { label: oneD ? 'k (1/a)' : '|k| (1/a)' }, y: { label: 'S(k) (per site)' },
       })}></figure-panel>
       <figure-panel class="cr" .figure=${seriesFigure({
