@@ -40,8 +40,8 @@ export function isZoneCentre(l: Lattice, cell: Supercell, k: Vec2): boolean {
 
 /**
  * The representative of k in the first Brillouin zone of the supercell (the shortest
- * k - G), with k -> -k used to fix a sign: 1D returns |k| in [0, pi/M]; 2D the shorter of
- * k, -k ordered by (kx, ky) so that kx >= 0 (ties: ky >= 0).
+ * k - G), with k -> -k used to fix a sign: 1D returns |k| in [0, pi/M]; 2D the shortest
+ * vector equivalent to k or -k, ties broken as below.
  */
 export function reduceToZone(l: Lattice, cell: Supercell, k: Vec2): [number, number] {
   const [B1, B2] = reciprocalSuperlattice(l, cell);
@@ -62,19 +62,23 @@ export function reduceToZone(l: Lattice, cell: Supercell, k: Vec2): [number, num
   const det = u[0] * v[1] - u[1] * v[0];
   const c1 = Math.round((k[0] * v[1] - k[1] * v[0]) / det);
   const c2 = Math.round((u[0] * k[1] - u[1] * k[0]) / det);
-  let best: [number, number] = [k[0], k[1]], bestN = Infinity;
-  for (let i = -2; i <= 2; i++) {
-    for (let j = -2; j <= 2; j++) {
-      const x = k[0] - (c1 + i) * u[0] - (c2 + j) * v[0];
-      const y = k[1] - (c1 + i) * u[1] - (c2 + j) * v[1];
-      const n = x * x + y * y;
-      if (n < bestN - 1e-12) { bestN = n; best = [x, y]; }
+  // Shortest representatives of k and of -k (same spectrum); ties (zone corners) go to the
+  // smallest |ky|, then the largest kx, then the largest ky: K as (4pi/3, 0), M as (pi, pi).
+  const cands: [number, number][] = [];
+  for (const sg of [1, -1]) {
+    for (let i = -2; i <= 2; i++) {
+      for (let j = -2; j <= 2; j++) {
+        cands.push([sg * k[0] - (sg * c1 + i) * u[0] - (sg * c2 + j) * v[0], sg * k[1] - (sg * c1 + i) * u[1] - (sg * c2 + j) * v[1]]);
+      }
     }
   }
+  const n2 = (q: [number, number]) => q[0] * q[0] + q[1] * q[1];
+  const shortest = Math.min(...cands.map(n2));
+  const tie = 1e-9 * Math.max(shortest, 1e-300);
   const clean = (x: number) => (Math.abs(x) < 1e-12 ? 0 : x);
-  let [x, y] = [clean(best[0]), clean(best[1])];
-  if (x < 0 || (x === 0 && y < 0)) [x, y] = [clean(-x), clean(-y)];
-  return [x, y];
+  const best = cands.filter((q) => n2(q) <= shortest + tie).map((q) => [clean(q[0]), clean(q[1])] as [number, number])
+    .sort((a, b) => Math.abs(a[1]) - Math.abs(b[1]) || b[0] - a[0] || b[1] - a[1]);
+  return best[0];
 }
 
 /** A wavevector as the CLI and the page print it: a number in 1D, [kx, ky] in 2D. */

@@ -72,7 +72,7 @@ describe(`normal state at T > 0: density-wave spinodal (${SOURCES.braggWilliams}
         expectAbs(sm.margin, 1 + c.Vmin / (4 * T), 1e-12);
         expect(sm.kind).toBe('density');
         if (typeof c.k === 'number' && c.lat === 'chain') expectAbs(sm.k as number, c.k, 1e-12);
-        else if (typeof c.k === 'number') expectAbs(Math.hypot(...(sm.k as [number, number])), c.k, 1e-6); // |K| = 4 pi/3
+        else if (typeof c.k === 'number') { const k = sm.k as [number, number]; expectAbs(k[0], c.k, 1e-12); expectAbs(k[1], 0, 1e-12); } // K = (4 pi/3, 0)
         else { const k = sm.k as [number, number]; expectAbs(k[0], Math.PI, 1e-12); expectAbs(k[1], Math.PI, 1e-12); }
       }
     });
