@@ -81,7 +81,8 @@ function selfConsistent(p: CellProblem, m: Float64Array, alpha: number): boolean
     let xi = -mu;
     for (let t = 0; t < M; t++) xi += J[s * M + t] * m[t];
     const E = Math.sqrt(xi * xi / 4 + a);
-    if (E === 0) return false;
+    // E = 0 (xi = 0, no photon) is a regular half-filled level at T > 0; at T = 0 it is degenerate.
+    if (E === 0 && T === 0) return false;
     const g = gOf(E, T);
     G += g / M;
     if (!(Math.abs(occupation(xi, a, E, g, T) - m[s]) <= CHECK_TOL)) return false;
