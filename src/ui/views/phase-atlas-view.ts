@@ -206,7 +206,7 @@ export class PhaseAtlasView extends LitElement {
       grid: { nx: g.nx, ny: g.ny, x: [g.plan.x.start, g.plan.x.stop], y: [g.plan.y.start, g.plan.y.stop] },
       stateAt: (i, j) => g.paint(i, j), xLabel: AXIS_LABELS[g.plan.x.name], yLabel: AXIS_LABELS[g.plan.y.name],
       shade: this.section.shade as MapShade, lines: this.soft.overlays(), cursor: this.hover, selected: sel,
-      width: w, height: Math.round(Math.min(560, Math.max(300, w * 0.56))),
+      width: w, height: Math.round(Math.min(540, Math.max(300, w * 0.5))),
       title: `Phase map over ${AXIS_SYMBOLS[g.plan.x.name]} and ${AXIS_SYMBOLS[g.plan.y.name]}`,
     }) : null;
     const cmdAxes = g ? [g.plan.x.name, g.plan.y.name] : [];

@@ -45,7 +45,7 @@ export class PointDetail extends LitElement {
 
   static override styles = [sharedStyles, css`
     :host { display: block; border: 1px solid var(--line); border-radius: 6px; padding: 8px 12px; background: var(--panel); }
-    .cols { display: grid; grid-template-columns: minmax(0, 3fr) minmax(240px, 2fr); gap: 12px; }
+    .cols { display: grid; grid-template-columns: minmax(0, 3fr) minmax(260px, 2fr); gap: 12px; align-items: start; }
     @media (max-width: 900px) { .cols { grid-template-columns: 1fr; } }
     header { display: flex; justify-content: space-between; align-items: baseline; gap: 8px; }
   `];
@@ -71,7 +71,7 @@ export class PointDetail extends LitElement {
         <button @click=${this.close} aria-label="Close the opened point">Close</button></header>
       ${this.task.error ? html`<p class="err" role="alert">${this.task.error}</p>` : nothing}
       ${s ? html`<div class="cols">
-          <figure-panel class="pattern" .figure=${patternFigure(lat, s, Math.max(380, this.width * 0.58), lat === 'chain' ? 220 : 340)}></figure-panel>
+          <figure-panel class="pattern" .figure=${patternFigure(lat, s, Math.max(380, this.width * 0.58), lat === 'chain' ? 190 : 360)}></figure-panel>
           <div>
             <table aria-label="Numbers of the opened point"><tbody>
               ${stateRows(s).map(([k, v, u]) => html`<tr><th class="l" scope="row">${k}</th><td>${v}</td><td class="l muted">${u}</td></tr>`)}
