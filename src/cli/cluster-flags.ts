@@ -16,7 +16,7 @@ const SHARED = ['lattice', 'interaction', 'rb', 'v1', 'v2', 'v0', 'rc', 'range']
 
 export const CLUSTER_FLAGS: readonly FlagSpec[] = [
   ...MODEL_FLAGS.filter((f) => SHARED.includes(f.name)),
-  { name: 'size', kind: 'string', value: 'L|LxxLy', help: 'periodic cluster: L sites of a ring, or Lx x Ly cells (e.g. 4x4)' },
+  { name: 'size', kind: 'string', value: 'L|LXxLY', help: 'periodic cluster: L sites of a ring, or Lx x Ly cells (e.g. 4x4)' },
   { name: 'sites', kind: 'string', value: 'file.csv', help: 'a user array instead: one "x,y" per line (units of a, or um with --spacing), open boundaries' },
   { name: 'spacing', kind: 'number', value: 'um', help: 'lattice spacing a in micrometres: --sites coordinates are then in um' },
   { name: 'mu', kind: 'number', value: 'mu', help: 'chemical potential of excitations (units of g)' },

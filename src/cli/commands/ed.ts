@@ -17,7 +17,7 @@ const ED_FLAGS: readonly FlagSpec[] = [
 export const edCommand: Command = {
   name: 'ed',
   summary: 'exact ground state of a finite cluster or array (Lanczos)',
-  usage: 'ed (--size L|LxxLy | --sites file.csv) --mu mu (--alpha a | --detuning delta) [--rb Rb ...] [flags]',
+  usage: 'ed (--size L|LXxLY | --sites file.csv) --mu mu (--alpha a | --detuning delta) [--rb Rb ...] [flags]',
   description:
     'Ground state of H(alpha) = sum_i [-mu n_i - alpha sigma^x_i] + sum_{i<j} V_ij n_i n_j by Lanczos on the\n' +
     '2^N occupation basis (N <= 20), on a periodic cluster (V_ij summed over all images) or your own array\n' +

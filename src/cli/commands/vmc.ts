@@ -38,7 +38,7 @@ function oneBodyFromArgs(a: ParsedArgs): OneBodySpec {
 export const vmcCommand: Command = {
   name: 'vmc',
   summary: 'variational Monte Carlo of a finite cluster or array (Jastrow, SR)',
-  usage: 'vmc (--size L|LxxLy | --sites file.csv) --mu mu (--alpha a | --detuning delta) [--rb Rb ...] [--seed n] [flags]',
+  usage: 'vmc (--size L|LXxLY | --sites file.csv) --mu mu (--alpha a | --detuning delta) [--rb Rb ...] [--seed n] [flags]',
   description:
     'Optimises psi(n) = exp(sum_i a_s(i) n_i + sum_{i<j} v(d_ij) n_i n_j) by stochastic reconfiguration and\n' +
     'measures energy per site, density, <sigma^x>, per-site densities, S(k) and C(r), each with its error\n' +
