@@ -230,12 +230,12 @@ export class CorrelatedView extends LitElement {
         ${job.cluster.kind === 'array' ? html`<button @click=${() => downloadText('x,y\n' + s.sites.split(';').join('\n') + '\n', 'sites.csv', 'text/csv')}>Save sites.csv for the command</button>` : nothing}` : nothing}`;
   }
 
-  /** The optimisation trace; the first tenth of the steps (far above) is left out of the y range. */
+  /** The optimisation trace; the first quarter of the steps (far above) is left out of the y range. */
   private traceFigure(trace: VmcResult['trace'], mf: SolveResult | undefined, w: number) {
     const refs: { axis: 'y'; value: number; label: string; stroke: string; dash?: string }[] = [];
     if (mf) refs.push({ axis: 'y', value: mf.grandPotential, label: 'mean-field \u03a9', stroke: '#c46a00' });
     if (this.lastEd && this.job && this.lastEd.key === physicsKey(this.job)) refs.push({ axis: 'y', value: this.lastEd.r.energyPerSite, label: 'ED (exact)', stroke: '#1d2430', dash: '2 2' });
-    const tail = trace.slice(Math.floor(trace.length / 10));
+    const tail = trace.slice(Math.floor(trace.length / 4));
     const ys = [...tail.flatMap((t) => [t.energyPerSite - t.error, t.energyPerSite + t.error]), ...refs.map((r) => r.value)];
     const lo = Math.min(...ys), hi = Math.max(...ys), pad = (hi - lo) * 0.08 || 1e-3;
     return html`<figure-panel class="trace" .figure=${seriesFigure({

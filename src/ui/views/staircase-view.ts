@@ -163,6 +163,7 @@ export class StaircaseView extends LitElement {
       <limits-note lattice=${p?.lattice ?? this.inputs.lattice} temperature=${p?.T ?? 0}></limits-note>
       ${v ? html`<data-export class="points-export" .table=${pts} .json=${{ series: series.map((s, i) => ({ label: s.label, plateaus: s.plateaus, points: v.series[i].states })) }}
         name="staircase" .command=${cmds.join('\n')}></data-export>
+        <h3>Plateau table</h3>
         <data-export class="plateau-export" .table=${this.plateauTable(series)} .json=${this.plateauTable(series)} name="plateaus"></data-export>` : nothing}
     `;
   }

@@ -45,6 +45,8 @@ export async function download(page: Page, click: () => Promise<void>): Promise<
 export async function screenshot(page: Page, name: string): Promise<string> {
   await mkdir(SCREENSHOTS, { recursive: true });
   const path = join(SCREENSHOTS, `${name}.png`);
+  // from the top, so the sticky model form sits where a reader expects it
+  await page.evaluate('window.scrollTo(0, 0)');
   await page.screenshot({ path, fullPage: true });
   return path;
 }
