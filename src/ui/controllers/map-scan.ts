@@ -146,14 +146,14 @@ export class MapScanController implements ReactiveController {
   /** Smoothed cost of one redraw of the host (ms), reported by the host after each update. */
   private renderCost = 0;
 
-  /** The host says how long its last redraw took; redraws are spaced to keep their share of the main thread under ~20%. */
+  /** The host says how long its last redraw took; redraws are spaced ten times their script cost apart, which with layout and paint (about as much again) keeps their share of a core near 20%. */
   reportRender(ms: number): void {
     this.renderCost = this.renderCost === 0 ? ms : 0.7 * this.renderCost + 0.3 * ms;
   }
 
   private schedule() {
     if (this.timer === null) {
-      const delay = Math.min(1000, Math.max(this.throttleMs, 4 * this.renderCost));
+      const delay = Math.min(1500, Math.max(this.throttleMs, 10 * this.renderCost));
       this.timer = setTimeout(() => this.flush(), delay);
     }
   }
