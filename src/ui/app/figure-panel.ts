@@ -21,12 +21,15 @@ export class FigurePanel extends LitElement {
     interactive: { type: Boolean },
     keyStep: { attribute: false },
     busy: { type: Boolean },
+    cursor: { attribute: false },
   };
   declare figure: RenderedFigure | null;
   declare interactive: boolean;
   declare keyStep: [number, number] | null;
   declare busy: boolean;
-  private cursor: [number, number] | null = null;
+  /** A cursor mark at data (x, y), drawn over the figure (not part of it, so never exported). */
+  declare cursor: [number, number] | null;
+  private keyCursor: [number, number] | null = null;
 
   constructor() {
     super();
@@ -34,6 +37,7 @@ export class FigurePanel extends LitElement {
     this.interactive = false;
     this.keyStep = null;
     this.busy = false;
+    this.cursor = null;
   }
 
   static override styles = [sharedStyles, css`
@@ -44,6 +48,8 @@ export class FigurePanel extends LitElement {
     .tools { display: flex; gap: 6px; justify-content: flex-end; margin-top: 4px; }
     .tools button { font-size: 12.5px; padding: 2px 8px; }
     .host:focus-visible { outline: 3px solid #d9a21b; }
+    .cursor { position: absolute; width: 9px; height: 9px; margin: -5px 0 0 -5px; border: 1.5px solid #000;
+      background: #fff; border-radius: 50%; pointer-events: none; }
   `];
 
   /** Data coordinates of a client position, or null outside the plot area. */
@@ -75,7 +81,7 @@ export class FigurePanel extends LitElement {
 
   private onMove = (e: PointerEvent) => {
     const d = this.toData(e.clientX, e.clientY);
-    if (d) { this.cursor = d; this.emit('plot-hover', { x: d[0], y: d[1] }); } else this.emit('plot-leave');
+    if (d) { this.keyCursor = d; this.emit('plot-hover', { x: d[0], y: d[1] }); } else this.emit('plot-leave');
   };
 
   private onClick = (e: MouseEvent) => {
@@ -88,20 +94,28 @@ export class FigurePanel extends LitElement {
     if (!f || !this.interactive) return;
     const [dx, dy] = this.keyStep ?? [(f.x.domain[1] - f.x.domain[0]) / 50, (f.y.domain[1] - f.y.domain[0]) / 50];
     const m = e.shiftKey ? 5 : 1;
-    const c = this.cursor ?? [(f.x.domain[0] + f.x.domain[1]) / 2, (f.y.domain[0] + f.y.domain[1]) / 2];
+    const c = this.keyCursor ?? [(f.x.domain[0] + f.x.domain[1]) / 2, (f.y.domain[0] + f.y.domain[1]) / 2];
     const moves: Record<string, [number, number]> = { ArrowLeft: [-dx, 0], ArrowRight: [dx, 0], ArrowUp: [0, dy], ArrowDown: [0, -dy] };
     if (moves[e.key]) {
       e.preventDefault();
       const clampX = (v: number) => Math.min(Math.max(v, Math.min(...f.x.domain)), Math.max(...f.x.domain));
       const clampY = (v: number) => Math.min(Math.max(v, Math.min(...f.y.domain)), Math.max(...f.y.domain));
-      this.cursor = [clampX(c[0] + m * moves[e.key][0]), clampY(c[1] + m * moves[e.key][1])];
-      this.emit('plot-hover', { x: this.cursor[0], y: this.cursor[1] });
+      this.keyCursor = [clampX(c[0] + m * moves[e.key][0]), clampY(c[1] + m * moves[e.key][1])];
+      this.emit('plot-hover', { x: this.keyCursor[0], y: this.keyCursor[1] });
     } else if (e.key === 'Enter' || e.key === ' ') {
       e.preventDefault();
-      this.cursor = c;
+      this.keyCursor = c;
       this.emit('plot-select', { x: c[0], y: c[1] });
     }
   };
+
+  /** The cursor, placed in percent of the figure so it follows the figure's scaling. */
+  private cursorMark(fig: RenderedFigure) {
+    if (!this.cursor) return null;
+    const f = fig.frame;
+    const left = (f.x(this.cursor[0]) / f.width) * 100, top = (f.y(this.cursor[1]) / f.height) * 100;
+    return html`<div class="cursor" style="left:${left}%;top:${top}%"></div>`;
+  }
 
   private async save(kind: 'svg' | 'png') {
     const fig = this.figure;
@@ -118,7 +132,7 @@ export class FigurePanel extends LitElement {
         aria-label=${fig.title + (this.interactive ? ' (arrow keys move the cursor, Enter opens the point)' : '')}
         tabindex=${this.interactive ? '0' : '-1'} aria-busy=${this.busy ? 'true' : 'false'}
         @pointermove=${this.interactive ? this.onMove : null} @pointerleave=${() => this.emit('plot-leave')}
-        @click=${this.interactive ? this.onClick : null} @keydown=${this.onKey}>${unsafeHTML(fig.svg)}</div>
+        @click=${this.interactive ? this.onClick : null} @keydown=${this.onKey}>${unsafeHTML(fig.svg)}${this.cursorMark(fig)}</div>
       <div class="tools">
         <button @click=${() => this.save('svg')} aria-label="Save ${fig.title} as SVG">SVG</button>
         <button @click=${() => this.save('png')} aria-label="Save ${fig.title} as PNG">PNG</button>

@@ -1,8 +1,7 @@
 /**
  * The phase map: a heatmap of the phase at each grid point (or of a continuous quantity),
  * region boundaries as a categorical contour, the fraction written on density-wave and
- * supersolid regions, soft-mode lines as polylines, the cursor and the opened point as
- * dots, axes with units and a legend. Built from marks only.
+ * supersolid regions, soft-mode lines as polylines, the opened point as a ring, axes with units and a legend. Built from marks only.
  */
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import type { PhaseLabel } from '../../core/meanfield/state.ts';
@@ -32,7 +31,6 @@ export interface PhaseMapInput {
   yLabel: string;
   shade: MapShade;
   lines: SoftLineOverlay[];
-  cursor?: [number, number] | null;
   selected?: [number, number] | null;
   width: number;
   height: number;
@@ -106,7 +104,6 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
   marks.push(textLabels(labels.map((r) => ({ x: cx(r.ix), y: cy(r.iy), text: r.key.split(' ')[1] ?? '', size: 12 })), 'fraction-labels'));
   for (const l of o.lines) marks.push(line(l.x, l.y, { stroke: l.stroke, width: 2.2, dash: l.dash, halo: '#ffffff' }));
   if (o.selected) marks.push(dots([{ x: o.selected[0], y: o.selected[1], r: 6, fill: 'none', stroke: '#000000', strokeWidth: 2.5 }]));
-  if (o.cursor) marks.push(dots([{ x: o.cursor[0], y: o.cursor[1], r: 3.5, fill: '#ffffff', stroke: '#000000', strokeWidth: 1.5 }]));
   marks.push(axisX({ label: o.xLabel }), axisY({ label: o.yLabel }));
   const entries: LegendEntry[] = o.shade === 'phase'
     ? phaseLegend(id, present, coexistence)

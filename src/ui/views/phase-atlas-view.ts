@@ -21,6 +21,7 @@ import { cliLine, modelFlags } from '../export/cli-command.ts';
 import type { Table } from '../export/table.ts';
 import { SoftLinesController, SOFT_RANGES } from '../controllers/soft-lines.ts';
 import '../app/figure-panel.ts';
+import type { RenderedFigure } from '../app/figure-panel.ts';
 import '../app/data-export.ts';
 import '../app/limits-note.ts';
 import './point-detail.ts';
@@ -43,6 +44,8 @@ export class PhaseAtlasView extends LitElement {
   private scan = new MapScanController(this, () => this.engine);
   private soft = new SoftLinesController(this, () => this.engine);
   private axisErrors: { x?: string; y?: string } = {};
+  private fig: RenderedFigure | null = null;
+  private figKey = '';
   private resize = new ResizeObserver((e) => { this.width = Math.round(e[0].contentRect.width); });
 
   constructor() {
@@ -202,13 +205,21 @@ export class PhaseAtlasView extends LitElement {
     const ticked = new Set(this.section.lines.split(',').filter(Boolean));
     const sel = this.section.point ? this.section.point.split(',').map(Number) as [number, number] : null;
     const w = Math.max(320, Math.min(this.width, 1100));
-    const fig = g ? phaseMapFigure({
-      grid: { nx: g.nx, ny: g.ny, x: [g.plan.x.start, g.plan.x.stop], y: [g.plan.y.start, g.plan.y.stop] },
-      stateAt: (i, j) => g.paint(i, j), xLabel: AXIS_LABELS[g.plan.x.name], yLabel: AXIS_LABELS[g.plan.y.name],
-      shade: this.section.shade as MapShade, lines: this.soft.overlays(), cursor: this.hover, selected: sel,
-      width: w, height: Math.round(Math.min(540, Math.max(300, w * 0.5))),
-      title: `Phase map over ${AXIS_SYMBOLS[g.plan.x.name]} and ${AXIS_SYMBOLS[g.plan.y.name]}`,
-    }) : null;
+    const lines = this.soft.overlays();
+    // the figure is rebuilt only when what it shows changes (not when the cursor moves:
+    // the cursor is drawn over it by <figure-panel>)
+    const figKey = g ? [g.key, g.count, this.section.shade, lines.length, lines.map((l) => l.x.length).join(','), this.section.point, w].join('|') : '';
+    if (g && figKey !== this.figKey) {
+      this.figKey = figKey;
+      this.fig = phaseMapFigure({
+        grid: { nx: g.nx, ny: g.ny, x: [g.plan.x.start, g.plan.x.stop], y: [g.plan.y.start, g.plan.y.stop] },
+        stateAt: (i, j) => g.paint(i, j), xLabel: AXIS_LABELS[g.plan.x.name], yLabel: AXIS_LABELS[g.plan.y.name],
+        shade: this.section.shade as MapShade, lines, selected: sel,
+        width: w, height: Math.round(Math.min(540, Math.max(300, w * 0.5))),
+        title: `Phase map over ${AXIS_SYMBOLS[g.plan.x.name]} and ${AXIS_SYMBOLS[g.plan.y.name]}`,
+      });
+    }
+    const fig = g ? this.fig : null;
     const cmdAxes = g ? [g.plan.x.name, g.plan.y.name] : [];
     const command = cliLine('map', [...modelFlags(this.inputs, cmdAxes), '--x', this.section.x, '--y', this.section.y]);
     const selParams = g && sel ? (() => { const [ix, iy] = this.cellAt(g, sel[0], sel[1]); return { p: g.point(ix, iy), seed: pointSeed(SCAN_SEED, iy * g.nx + ix) }; })() : null;
@@ -236,7 +247,7 @@ export class PhaseAtlasView extends LitElement {
         ${this.scan.error ? html`<span class="err" role="alert">${this.scan.error}</span>` : nothing}
         ${!this.model.params ? html`<span class="err stale">The model has an invalid entry: showing the last good map.</span>` : nothing}
       </div>
-      <figure-panel class="map" interactive .figure=${fig} ?busy=${running}
+      <figure-panel class="map" interactive .figure=${fig} .cursor=${this.hover} ?busy=${running}
         .keyStep=${g ? [(g.plan.x.stop - g.plan.x.start) / Math.max(1, g.nx - 1), (g.plan.y.stop - g.plan.y.start) / Math.max(1, g.ny - 1)] : null}
         @plot-hover=${(e: CustomEvent) => { this.hover = [e.detail.x, e.detail.y]; }}
         @plot-leave=${() => { this.hover = null; }}
