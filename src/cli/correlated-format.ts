@@ -56,7 +56,7 @@ export function edText(c: ClusterSpec, r: EdResult): string {
     r.orderParameter ? `  density-wave order   m^2 = ${f(r.orderParameter.value)} at k = ${kLabel(r.orderParameter.k, ring)}   (<|n_k|^2>/N^2)` : '',
     `  site densities       ${r.siteDensities.map((x) => f(x, 4)).join(' ')}`,
     `  C(r)                 ${r.correlation.slice(0, 8).map((p) => `${f(p.r, 3)}:${f(p.value, 4)}`).join('  ')}`,
-    `  Lanczos              ${r.lanczos.iterations} steps, residual ${r.lanczos.residual.toExponential(1)}, ${r.lanczos.evaluations} ground states`,
+    `  Lanczos              ${r.lanczos.iterations} steps, residual ${r.lanczos.residual.toExponential(1)}, ${r.lanczos.evaluations} ground-state solves`,
   ];
   return lines.filter(Boolean).join('\n') + '\n';
 }

@@ -13,6 +13,9 @@ import { InputError } from '../input-error.ts';
 import { boundedMinimum } from './bounded-minimum.ts';
 import { type EdSystem, type GroundState, groundState } from './exact-ground-state.ts';
 
+/** Relative energy difference below which two candidates of alpha count as tied. */
+const TIE_TOL = 1e-11;
+
 export interface SelfConsistentGround {
   ground: GroundState;
   /** e(alpha*) per site. */
@@ -47,9 +50,11 @@ export function selfConsistentGround(sys: EdSystem, delta: number, scan = 8): Se
   for (let i = 1; i < grid.length; i++) if (values[i] < values[best]) best = i;
   const lo = grid[Math.max(0, best - 1)], hi = grid[Math.min(scan, best + 1)];
   const refined = boundedMinimum(e, lo, hi, 1e-9, 1e-12);
-  // Ties go to the earlier candidate, so a normal state reports alpha = 0 exactly.
+  // Ties go to the earlier candidate, so a normal state reports alpha = 0 exactly. A tie is
+  // a difference below TIE_TOL: Lanczos energies carry rounding of ~1e-14 per site, which
+  // otherwise lets Brent's alpha ~ 1e-8 (where e - e(0) ~ 1e-16) win over alpha = 0.
   const candidates = [0, grid[best], refined.x];
   let alpha = candidates[0];
-  for (const c of candidates) if (e(c) < e(alpha)) alpha = c;
+  for (const c of candidates) if (e(c) < e(alpha) - TIE_TOL * Math.max(1, Math.abs(e(alpha)))) alpha = c;
   return { ground: solve(alpha), e: e(alpha), evaluations };
 }

@@ -211,7 +211,7 @@ export class CorrelatedView extends LitElement {
         ${s.cluster === 'array'
           ? html`<div><label for="cr-file">Array CSV (x,y per line)</label><input id="cr-file" type="file" accept=".csv,text/csv,text/plain" style="width:220px" @change=${this.upload}></div>
               <div><label for="cr-spacing">coordinates in \u00b5m: spacing a</label><input id="cr-spacing" name="correlated-spacing" placeholder="units of a"></div>`
-          : this.field('size', 'Cluster size L or LxxLy')}
+          : this.field('size', 'Cluster size L (ring) or Lx x Ly (e.g. 4x4)')}
         ${this.field('alpha', '\u03b1 fixed (empty: self-consistent)', 150)}
         ${s.method === 'vmc' ? html`${this.field('seed', 'Seed')} ${this.field('steps', 'SR steps')} ${this.field('samples', 'Samples (sweeps)')}` : nothing}
         <div aria-live="polite">${this.task.status === 'pending' ? html`<span class="running">running\u2026</span> <button @click=${() => this.task.abort()}>Cancel</button>` : nothing}</div>
