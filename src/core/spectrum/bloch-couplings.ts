@@ -9,32 +9,19 @@
  */
 import type { Lattice, Vec2 } from '../lattice/geometry.ts';
 import type { Supercell } from '../lattice/supercells.ts';
-import { type InteractionSpec, type Potential, resolvePotential } from '../interaction/potential.ts';
+import type { InteractionSpec, Potential } from '../interaction/potential.ts';
+import { unitStrength } from '../interaction/unit-strength.ts';
 import { type CouplingMatrix, couplings } from '../interaction/lattice-sums.ts';
 
 const LIMIT = 20000;
 const cache = new Map<string, CouplingMatrix>();
-
-function unitOf(l: Lattice, spec: InteractionSpec, pot: Potential): { key: string; unit: Potential; scale: number } {
-  const range = Number.isFinite(pot.rmax) ? String(pot.rmax) : 'inf';
-  if (pot.powerLaw) {
-    const unit = resolvePotential({ shape: pot.shape, V1: 1, rmax: spec.rmax }, l);
-    return { key: `${l.name}|${pot.shape}|${range}`, unit, scale: pot.powerLaw.C };
-  }
-  if (pot.softcore) {
-    const { V0, Rc } = pot.softcore;
-    const unit = resolvePotential({ shape: 'softcore', V0: 1, Rc, rmax: spec.rmax }, l);
-    return { key: `${l.name}|softcore|${Rc}|${range}`, unit, scale: V0 };
-  }
-  return { key: `${l.name}|${pot.shape}|${spec.V1}|${spec.V2 ?? 0}|${range}`, unit: pot, scale: 1 };
-}
 
 /**
  * J_st(k) of `cell` (row-major re/im, Hermitian). The returned arrays are fresh copies
  * scaled to the strength of `spec`; callers may modify them.
  */
 export function blochCouplings(l: Lattice, spec: InteractionSpec, pot: Potential, cell: Supercell, k: Vec2): CouplingMatrix {
-  const { key, unit, scale } = unitOf(l, spec, pot);
+  const { key, unit, scale } = unitStrength(l, spec, pot);
   const full = `${key}|${cell.a},${cell.b},${cell.c}|${k[0].toPrecision(15)},${k[1].toPrecision(15)}`;
   let base = cache.get(full);
   if (base) {
