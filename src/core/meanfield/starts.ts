@@ -10,7 +10,9 @@
  *   - seeded random states m_s uniform in [0, 1] (seedrandom, stream `seed|cell|k`), so
  *     results are fixed by the seed.
  * Duplicate patterns (equal up to a translation) are dropped. The continuation guess is
- * added by the caller, as one start among these.
+ * added by the caller, as one start among these. The integer starts depend on the point
+ * only through J (not on mu, delta or T), so they are cached per J array: along a scan row
+ * at fixed interaction they are built once (plain memoisation: the same starts either way).
  */
 import seedrandom from 'seedrandom';
 import type { Supercell } from '../lattice/supercells.ts';
@@ -36,12 +38,19 @@ function gcd(x: number, y: number): number {
   return x;
 }
 
-/** The deterministic (uniform, classical, Wigner) and seeded random starts of one cell. */
-export function cellStarts(cell: Supercell, J: Float64Array, o: StartOptions): Start[] {
+/** Integer starts per J array (J arrays come from the coupling cache, one per cell and interaction). */
+const integerCache = new WeakMap<Float64Array, Map<string, Start[]>>();
+
+/**
+ * The classical and Wigner starts of a cell with M > 1 (deduplicated, primitive), cached per
+ * (J, cell, dim). The returned list and its m arrays are shared: callers must not modify them.
+ */
+function integerStarts(cell: Supercell, J: Float64Array, dim: 1 | 2): Start[] {
+  const key = `${dim}|${cell.a},${cell.b},${cell.c}`;
+  let byCell = integerCache.get(J);
+  const hit = byCell?.get(key);
+  if (hit) return hit;
   const M = cell.M;
-  if (M === 1) {
-    return [0, 0.5, 1].map((v) => ({ kind: 'uniform' as const, m: Float64Array.of(v) }));
-  }
   const out: Start[] = [];
   const add = (kind: Start['kind'], n: Uint8Array) => {
     if (!isPrimitive(cell, [n])) return;
@@ -52,9 +61,24 @@ export function cellStarts(cell: Supercell, J: Float64Array, o: StartOptions): S
     const minima = classicalMinima(J, M);
     for (let p = 1; p < M; p++) add('classical', minima[p]);
   }
-  if (o.dim === 1) {
+  if (dim === 1) {
     for (let p = 1; p < M; p++) if (gcd(p, M) === 1) add('wigner', wignerLattice(p, M));
   }
+  if (!byCell) integerCache.set(J, byCell = new Map());
+  byCell.set(key, out);
+  return out;
+}
+
+/**
+ * The deterministic (uniform, classical, Wigner) and seeded random starts of one cell, in
+ * that order. A fresh list (the caller may add to it); the m arrays must not be modified.
+ */
+export function cellStarts(cell: Supercell, J: Float64Array, o: StartOptions): Start[] {
+  const M = cell.M;
+  if (M === 1) {
+    return [0, 0.5, 1].map((v) => ({ kind: 'uniform' as const, m: Float64Array.of(v) }));
+  }
+  const out: Start[] = integerStarts(cell, J, o.dim).slice();
   const nr = o.randomStarts ?? 1;
   for (let k = 0; k < nr; k++) {
     const rng = seedrandom(`${o.seed}|${cell.a},${cell.b},${cell.c}|${k}`);
