@@ -76,6 +76,18 @@ function classicalDescent(p: CellProblem, n0: ArrayLike<number>): Float64Array {
 }
 
 /**
+ * The integer pattern solveAngles really starts from when m0 is an integer pattern: m0
+ * after the single-flip descent (classicalDescent), or null when m0 is not integer. The
+ * angle solver's result depends on an integer start only through this pattern (the descent
+ * of a descended pattern is itself), so two integer starts with the same descended pattern
+ * give the same solution and the search solves only the first.
+ */
+export function descendedPattern(p: CellProblem, m0: ArrayLike<number>): Float64Array | null {
+  for (let s = 0; s < p.M; s++) if (m0[s] !== 0 && m0[s] !== 1) return null;
+  return classicalDescent(p, m0);
+}
+
+/**
  * Near a saddle the gradient can lie in a symmetric subspace that Newton steps never leave
  * (a uniform state in a 2-site cell, say). Add the direction of most negative curvature,
  * found by inverse iteration with the shifted factor L from a vector with no symmetry,

@@ -2,7 +2,8 @@
  * Fixed-mu search over supercells and starts (DESIGN.md: lowest Omega over all supercells
  * up to Mmax, never stopping at a metastable solution). Every cell with M <= Mmax (or
  * exactly M = cell) is solved from each of its starts (starts.ts) plus the continuation
- * guess where it fits; among converged solutions the lowest Omega per site wins. Ties
+ * guess where it fits (at T = 0 integer starts that descend to one pattern are solved once);
+ * among converged solutions the lowest Omega per site wins. Ties
  * within 1e-12 relative keep the first found (smaller cells come first), so the result is
  * fixed by the inputs and the seed. The winner is reported on its primitive cell.
  */
@@ -12,6 +13,7 @@ import { type Potential, resolvePotential } from '../interaction/potential.ts';
 import type { ModelParams } from '../model.ts';
 import { cellCouplings } from './coupling-cache.ts';
 import { type CellSolution, solveCell } from './sublattice.ts';
+import { descendedPattern } from './bloch-angles.ts';
 import { type Start, cellStarts } from './starts.ts';
 import { classifyPhase, type PhaseTolerances } from './phase.ts';
 import { isPrimitive, reduceToPrimitive, sameUpToTranslation } from './pattern.ts';
@@ -87,8 +89,20 @@ export function cellCandidates(ctx: Context, cell: Supercell, mu: number, o: Sea
     for (const c of out) if (sameUpToTranslation(cell, c.sol.m, m, DUPLICATE)) return true;
     return false;
   };
+  // At T = 0 integer starts that descend to the same pattern run the same iteration; the
+  // later ones could only repeat a candidate already found (or abandoned), so they are skipped.
+  const descended: Float64Array[] = [];
   for (const s of starts) {
-    const sol = solveCell(prob, s.m, { abandon });
+    let m0 = s.m;
+    if (prob.T === 0) {
+      const n = descendedPattern(prob, m0);
+      if (n) {
+        if (descended.some((d) => d.every((v, i) => v === n[i]))) continue;
+        descended.push(n);
+        m0 = n;
+      }
+    }
+    const sol = solveCell(prob, m0, { abandon });
     if (sol.converged && (keep || isPrimitive(cell, [sol.m], SYMMETRIC))) out.push({ cell, start: s.kind, sol });
   }
   return out;
