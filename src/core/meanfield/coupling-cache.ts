@@ -10,33 +10,19 @@
  */
 import type { Lattice } from '../lattice/geometry.ts';
 import type { Supercell } from '../lattice/supercells.ts';
-import { type InteractionSpec, type Potential, resolvePotential } from '../interaction/potential.ts';
+import type { InteractionSpec, Potential } from '../interaction/potential.ts';
+import { unitStrength } from '../interaction/unit-strength.ts';
 import { couplings } from '../interaction/lattice-sums.ts';
 
 const LIMIT = 4096;
 const cache = new Map<string, Float64Array>();
-
-/** Unit-strength potential and the scale factor that multiplies its sums. */
-function unitPotential(pot: Potential, spec: InteractionSpec, l: Lattice): { key: string; unit: Potential; scale: number } {
-  const range = Number.isFinite(pot.rmax) ? String(pot.rmax) : 'inf';
-  if (pot.powerLaw) {
-    const unit = resolvePotential({ shape: pot.shape, V1: 1, rmax: spec.rmax }, l);
-    return { key: `${l.name}|${pot.shape}|${range}`, unit, scale: pot.powerLaw.C };
-  }
-  if (pot.softcore) {
-    const { V0, Rc } = pot.softcore;
-    const unit = resolvePotential({ shape: 'softcore', V0: 1, Rc, rmax: spec.rmax }, l);
-    return { key: `${l.name}|softcore|${Rc}|${range}`, unit, scale: V0 };
-  }
-  return { key: `${l.name}|${pot.shape}|${spec.V1}|${spec.V2 ?? 0}|${range}`, unit: pot, scale: 1 };
-}
 
 /**
  * J_st(0) = sum_R V(|r_t - r_s + R|) (r = 0 left out) of `cell`, row-major M x M, real
  * (Hermitian and real at k = 0: symmetric). Do not modify the returned array.
  */
 export function cellCouplings(l: Lattice, spec: InteractionSpec, pot: Potential, cell: Supercell): Float64Array {
-  const { key, unit, scale } = unitPotential(pot, spec, l);
+  const { key, unit, scale } = unitStrength(l, spec, pot);
   const full = `${key}|${cell.a},${cell.b},${cell.c}|${scale}`;
   const hit = cache.get(full);
   if (hit) { cache.delete(full); cache.set(full, hit); return hit; }
