@@ -11,13 +11,13 @@
 import { execFileSync } from 'node:child_process';
 import { pathToFileURL } from 'node:url';
 import { fileURLToPath } from 'node:url';
-import { localSegmentRunner, variationalMonteCarlo, type VmcRequest } from '../src/core/vmc/variational-monte-carlo.ts';
+import { variationalMonteCarlo, type VmcRequest } from '../src/core/vmc/variational-monte-carlo.ts';
 import { vmcSystem } from '../src/core/vmc/segment.ts';
 import { JastrowChain } from '../src/core/vmc/markov-chain.ts';
 import { chainStream } from '../src/core/vmc/random-stream.ts';
 import type { ClusterSpec } from '../src/core/cluster/spec.ts';
 import { nodeEnginePool } from '../workers/node-spawn.ts';
-import { poolSegmentRunner } from '../workers/vmc-chains.ts';
+import { variationalMonteCarloOnPool } from '../workers/vmc-chains.ts';
 import type { Bench, BenchContext } from './harness.ts';
 
 const ring = (L: number, rmax?: number): ClusterSpec =>
@@ -26,7 +26,7 @@ const ring = (L: number, rmax?: number): ClusterSpec =>
 /** Flip attempts per second of the sweep kernel after a short optimisation (40 SR steps). */
 async function flipRate(cluster: ClusterSpec, jastrowRange: number | undefined, seconds: number) {
   const req: VmcRequest = { cluster, mu: 1.5, alpha: 0.3, seed: 1, steps: 40, sweepsPerStep: 100, sweeps: 64, bins: 2, ansatz: { oneBody: 'site', jastrowRange } };
-  const r = await variationalMonteCarlo(req, localSegmentRunner());
+  const r = variationalMonteCarlo(req);
   const sys = vmcSystem({ cluster, mu: req.mu, ansatz: req.ansatz! });
   const theta = Float64Array.from([...r.parameters.oneBody, ...r.parameters.jastrow.map((j) => j.v)]);
   const ch = new JastrowChain(sys.ansatz, req.mu, theta, new Uint8Array(sys.cluster.N));
@@ -66,7 +66,7 @@ async function parallel(ctx: BenchContext, repeat: number) {
     // process.cpuUsage counts every thread, so cpu / wall is the number of cores the run obtained.
     const time = async (pool: typeof one, chains: number) => {
       const t0 = performance.now(), c0 = process.cpuUsage();
-      await variationalMonteCarlo({ ...base, chains }, poolSegmentRunner(pool));
+      await variationalMonteCarloOnPool({ ...base, chains }, pool);
       const c = process.cpuUsage(c0), s = (performance.now() - t0) / 1000;
       return { s, cpu: (c.user + c.system) / 1e6, cores: (c.user + c.system) / 1e6 / s };
     };

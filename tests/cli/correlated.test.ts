@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { cli } from './test-io.ts';
 import { exactDiagonalisation } from '../../src/core/ed/exact-diagonalisation.ts';
-import { localSegmentRunner, variationalMonteCarlo } from '../../src/core/vmc/variational-monte-carlo.ts';
+import { variationalMonteCarlo } from '../../src/core/vmc/variational-monte-carlo.ts';
 import { parseSiteCsv } from '../../src/core/cluster/site-array.ts';
 
 const RING = ['--lattice', 'chain', '--size', '8', '--interaction', 'vdw', '--rb', '1.5', '--mu', '1.5'];
@@ -50,7 +50,7 @@ describe('vmc command', () => {
     const r = await cli(args);
     expect(r.code).toBe(0);
     const j = JSON.parse(r.out);
-    const direct = await variationalMonteCarlo({ cluster: ringSpec, mu: 1.5, alpha: 0.3, seed: 7, chains: 2, steps: 20, sweeps: 1024, ansatz: { oneBody: 'site' } }, localSegmentRunner());
+    const direct = variationalMonteCarlo({ cluster: ringSpec, mu: 1.5, alpha: 0.3, seed: 7, chains: 2, steps: 20, sweeps: 1024, ansatz: { oneBody: 'site' } });
     expect(j.energyPerSite).toEqual(direct.energyPerSite);
     expect(j.siteDensities).toEqual(direct.siteDensities);
     expect(j.trace).toEqual(direct.trace);

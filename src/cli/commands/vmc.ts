@@ -5,8 +5,8 @@
  */
 import { InputError } from '../../core/input-error.ts';
 import type { OneBodySpec } from '../../core/vmc/ansatz.ts';
-import { variationalMonteCarlo, type VmcRequest } from '../../core/vmc/variational-monte-carlo.ts';
-import { poolSegmentRunner } from '../../../workers/vmc-chains.ts';
+import type { VmcRequest } from '../../core/vmc/variational-monte-carlo.ts';
+import { variationalMonteCarloOnPool } from '../../../workers/vmc-chains.ts';
 import { HELP_FLAG, type Command } from '../command.ts';
 import { bool, int, num, str, type FlagSpec, type ParsedArgs } from '../flags.ts';
 import { CLUSTER_FLAGS, clusterFromArgs, photonFromArgs } from '../cluster-flags.ts';
@@ -66,7 +66,7 @@ export const vmcCommand: Command = {
     const progress = new Progress(io, 'vmc', (req.steps ?? 200) + 1, 'steps');
     let done = 0;
     try {
-      const r = await variationalMonteCarlo(req, poolSegmentRunner(pool, io.interrupt), (d) => { done = d; progress.update(d); });
+      const r = await variationalMonteCarloOnPool(req, pool, { signal: io.interrupt, onProgress: (d) => { done = d; progress.update(d); } });
       progress.finish(done, `, ${workers} worker(s)`);
       io.stdout(bool(args, 'json') ? JSON.stringify(vmcJson(cluster, r)) + '\n' : vmcText(cluster, r));
       return 0;

@@ -7,7 +7,7 @@
 import type { Estimate } from './binning.ts';
 import type { MeasuredObservables } from './measured-observables.ts';
 import type { VmcSystem } from './segment.ts';
-import type { VmcRequest } from './variational-monte-carlo.ts';
+import type { VmcRequest, VmcSettings } from './vmc-request.ts';
 
 export interface VmcResult {
   method: 'vmc';
@@ -45,25 +45,24 @@ export interface VmcResult {
 export interface VmcResultInput {
   sys: VmcSystem;
   req: VmcRequest;
+  set: VmcSettings;
   obs: MeasuredObservables;
   theta: Float64Array;
   alpha: number;
   alphaError: number;
-  gap: number | null;
-  chains: number;
   acceptance: number;
   trace: VmcResult['trace'];
 }
 
 /** Assemble the result. */
 export function vmcResult(r: VmcResultInput): VmcResult {
-  const { obs, gap, alpha } = r;
+  const { obs, alpha } = r;
+  const { gap, selfConsistent } = r.set;
   const h = obs.energyPerSite;
   const grand = gap === null ? null : { value: gap * alpha * alpha + h.value, error: h.error };
-  const selfConsistent = r.req.alpha === undefined;
   const G = r.sys.ansatz.groups;
   return {
-    method: 'vmc', sites: r.sys.cluster.N, chains: r.chains, seed: r.req.seed, mu: r.req.mu, delta: r.req.delta ?? null,
+    method: 'vmc', sites: r.sys.cluster.N, chains: r.set.chains, seed: r.req.seed, mu: r.req.mu, delta: r.req.delta ?? null,
     selfConsistent, alpha: { value: alpha, error: r.alphaError },
     energyPerSite: selfConsistent ? (grand as Estimate) : h, hamiltonianPerSite: h, grandPotentialPerSite: grand,
     dEdAlpha: gap === null ? null : { value: 2 * gap * alpha - obs.sigmaX.value, error: obs.sigmaX.error },

@@ -12,10 +12,10 @@ import { parseNumber } from '../model/model-inputs.ts';
 import { type ClusterSpec, buildCluster, parseClusterSize } from '../../core/cluster/spec.ts';
 import { parseSiteCsv } from '../../core/cluster/site-array.ts';
 import type { EdResult } from '../../core/ed/exact-diagonalisation.ts';
-import { variationalMonteCarlo, type VmcRequest } from '../../core/vmc/variational-monte-carlo.ts';
+import type { VmcRequest } from '../../core/vmc/variational-monte-carlo.ts';
 import type { VmcResult } from '../../core/vmc/vmc-result.ts';
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
-import { poolSegmentRunner } from '../../../workers/vmc-chains.ts';
+import { variationalMonteCarloOnPool } from '../../../workers/vmc-chains.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
 import { EngineTask } from '../controllers/engine-task.ts';
 import { sharedStyles } from '../app/shared-styles.ts';
@@ -150,11 +150,11 @@ export class CorrelatedView extends LitElement {
       ansatz: { oneBody: 'site' }, steps: job.steps, sweeps: job.sweeps,
     };
     let pending = false;
-    return variationalMonteCarlo(req, poolSegmentRunner(this.engine.scanPool, signal), undefined, (t) => {
+    return variationalMonteCarloOnPool(req, this.engine.scanPool, { signal, onStep: (t) => {
       if (signal.aborted) return;
       this.trace = [...this.trace, t];
       if (!pending) { pending = true; setTimeout(() => { pending = false; this.requestUpdate(); }, 120); }
-    });
+    } });
   }
 
   private async upload(e: Event) {

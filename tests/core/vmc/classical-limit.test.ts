@@ -5,7 +5,7 @@
 import { describe, it, expect } from 'vitest';
 import { buildCluster, type ClusterSpec } from '../../../src/core/cluster/spec.ts';
 import { exactDiagonalisation } from '../../../src/core/ed/exact-diagonalisation.ts';
-import { localSegmentRunner, variationalMonteCarlo } from '../../../src/core/vmc/variational-monte-carlo.ts';
+import { variationalMonteCarlo } from '../../../src/core/vmc/variational-monte-carlo.ts';
 import { expectAbs } from '../../references.ts';
 
 function classicalMinimum(spec: ClusterSpec, mu: number): number {
@@ -40,7 +40,7 @@ describe('classical limit alpha = 0', () => {
       const ed = exactDiagonalisation({ cluster, mu, alpha: 0 });
       expectAbs(ed.energyPerSite, eCl, 1e-12);
       expectAbs(ed.orderParameter!.value, order, 1e-12);
-      const vmc = await variationalMonteCarlo({ cluster, mu, alpha: 0, seed: 1, chains: 2 }, localSegmentRunner());
+      const vmc = variationalMonteCarlo({ cluster, mu, alpha: 0, seed: 1, chains: 2 });
       // Variational: not below the crystal beyond 3 sigma. The exact optimum at alpha = 0 has
       // infinite amplitudes; 200 SR steps leave the single-flip neighbours a weight whose energy
       // is a few 1e-4 |e|, so 1e-3 |e| (common practice, no source).

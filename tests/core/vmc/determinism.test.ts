@@ -5,7 +5,8 @@
  * sum_k S(k) = sum_i (<n_i> - <n_i>^2) (Parseval, since n_i^2 = n_i).
  */
 import { describe, it, expect } from 'vitest';
-import { localSegmentRunner, variationalMonteCarlo, type VmcRequest, type SegmentRunner } from '../../../src/core/vmc/variational-monte-carlo.ts';
+import { variationalMonteCarlo, cachedSystem, type VmcRequest } from '../../../src/core/vmc/variational-monte-carlo.ts';
+import { runSegment, type SegmentRequest, type SegmentResult, type VmcSystem } from '../../../src/core/vmc/segment.ts';
 import { expectAbs } from '../../references.ts';
 
 const base: VmcRequest = {
@@ -14,26 +15,26 @@ const base: VmcRequest = {
 };
 
 /** A runner that executes the batch in reverse order and returns it shuffled, as a pool might. */
-const reversedRunner = (): SegmentRunner => {
-  const local = localSegmentRunner();
-  return async (reqs) => {
-    const out = await local([...reqs].reverse());
+const reversedRunner = (): ((reqs: SegmentRequest[]) => SegmentResult[]) => {
+  const cache = new Map<string, VmcSystem>();
+  return (reqs) => {
+    const out = [...reqs].reverse().map((r) => runSegment(cachedSystem(cache, r.problem), r));
     return [out[1], ...out.slice(2), out[0]].filter(Boolean);
   };
 };
 
 describe('VMC determinism', () => {
   it('same seed and chain count: identical results, whatever order the segments run in', async () => {
-    const a = await variationalMonteCarlo(base, localSegmentRunner());
-    const b = await variationalMonteCarlo(base, localSegmentRunner());
-    const c = await variationalMonteCarlo(base, reversedRunner());
+    const a = variationalMonteCarlo(base);
+    const b = variationalMonteCarlo(base);
+    const c = variationalMonteCarlo(base, { run: reversedRunner() });
     expect(b).toEqual(a);
     expect(c).toEqual(a);
   });
 
   it('different seeds: a fixed wavefunction (no optimisation) gives energies equal within 4 sigma', async () => {
     const fixed = { ...base, steps: 0, sweeps: 8192 };
-    const r = await Promise.all([1, 2, 3].map((seed) => variationalMonteCarlo({ ...fixed, seed }, localSegmentRunner())));
+    const r = [1, 2, 3].map((seed) => variationalMonteCarlo({ ...fixed, seed }));
     for (let i = 0; i < r.length; i++) for (let j = 0; j < i; j++) {
       const d = Math.abs(r[i].energyPerSite.value - r[j].energyPerSite.value);
       // 4 sigma of the difference of independent estimates (false-alarm rate 6e-5).
@@ -43,7 +44,7 @@ describe('VMC determinism', () => {
   });
 
   it('sum rule sum_k S(k) = sum_i rho_i (1 - rho_i) holds for the estimators (to rounding)', async () => {
-    const r = await variationalMonteCarlo(base, localSegmentRunner());
+    const r = variationalMonteCarlo(base);
     const lhs = r.structureFactor.reduce((s, p) => s + p.value, 0);
     const rhs = r.siteDensities.reduce((s, d) => s + d.value * (1 - d.value), 0);
     expectAbs(lhs, rhs, 1e-10);

@@ -14,7 +14,7 @@
  */
 import { describe, it, expect } from 'vitest';
 import { exactDiagonalisation, type EdRequest } from '../../../src/core/ed/exact-diagonalisation.ts';
-import { localSegmentRunner, variationalMonteCarlo } from '../../../src/core/vmc/variational-monte-carlo.ts';
+import { variationalMonteCarlo } from '../../../src/core/vmc/variational-monte-carlo.ts';
 
 const chain = (interaction: object) => ({ kind: 'periodic' as const, lattice: 'chain' as const, size: [12], interaction: interaction as never });
 const points: [string, EdRequest][] = [
@@ -29,7 +29,7 @@ describe('VMC variational bound against ED on the same cluster', () => {
   for (const [name, req] of points) {
     it(`${name}: E_ed - 3 sigma <= E_vmc <= E_ed + 1% |E_ed|`, async () => {
       const ed = exactDiagonalisation(req);
-      const vmc = await variationalMonteCarlo({ ...req, seed: 7, chains: 2 }, localSegmentRunner());
+      const vmc = variationalMonteCarlo({ ...req, seed: 7, chains: 2 });
       const e = vmc.energyPerSite;
       expect(e.error).toBeGreaterThan(0);
       expect(e.value).toBeGreaterThanOrEqual(ed.energyPerSite - 3 * e.error);
