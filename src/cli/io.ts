@@ -32,6 +32,27 @@ export interface CliIo {
   now(): number;
 }
 
+/**
+ * Run `work` on a pool of `size` engines that Ctrl-C stops cleanly: `complete` is false when
+ * it was interrupted (what `work` delivered before then is final). The pool is released
+ * and Ctrl-C handling restored either way; errors other than the interruption propagate.
+ */
+export async function interruptible<T>(
+  io: CliIo, size: number, work: (pool: WorkerPool<Engine>, signal: AbortSignal) => Promise<T>,
+): Promise<{ complete: true; value: T } | { complete: false; value?: undefined }> {
+  const { pool, release } = io.pool(size);
+  io.catchInterrupts(true);
+  try {
+    return { complete: true, value: await work(pool, io.interrupt) };
+  } catch (e) {
+    if (e instanceof Error && e.name === 'AbortError') return { complete: false };
+    throw e;
+  } finally {
+    release();
+    io.catchInterrupts(false);
+  }
+}
+
 /** Read a text file, refusing a missing or unreadable one with an InputError. */
 export function readTextFile(path: string): string {
   try {

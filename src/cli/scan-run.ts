@@ -12,7 +12,7 @@ import { shardSegments, type Shard } from '../core/scan/shards.ts';
 import type { ScanPointResult } from '../../workers/protocol.ts';
 import { runMeanFieldScan } from '../../workers/meanfield-scan.ts';
 import { int, type FlagSpec, type ParsedArgs } from './flags.ts';
-import type { CliIo } from './io.ts';
+import { interruptible, type CliIo } from './io.ts';
 import { Progress } from './progress.ts';
 
 export const SCAN_FLAGS: readonly FlagSpec[] = [
@@ -61,22 +61,11 @@ export async function runScan(io: CliIo, a: ParsedArgs, plan: ScanPlan, label: s
     progress.finish(0);
     return { points: [], total, complete: true, workers: 0, seconds: 0 };
   }
-  const { pool, release } = io.pool(workers);
-  io.catchInterrupts(true);
-  let complete = true;
-  try {
-    await runMeanFieldScan(pool, plan, {
-      shard, continuation, signal: io.interrupt,
-      onPoint: (pt) => finished.push(pt),
-      onProgress: (done) => progress.update(done),
-    });
-  } catch (e) {
-    if (!(e instanceof Error && e.name === 'AbortError')) throw e;
-    complete = false;
-  } finally {
-    release();
-    io.catchInterrupts(false);
-  }
+  const { complete } = await interruptible(io, workers, (pool, signal) => runMeanFieldScan(pool, plan, {
+    shard, continuation, signal,
+    onPoint: (pt) => finished.push(pt),
+    onProgress: (done) => progress.update(done),
+  }));
   finished.sort((x, y) => x.index - y.index);
   progress.finish(finished.length, ` on ${workers} worker${workers === 1 ? '' : 's'}${complete ? '' : ', interrupted'}`);
   return { points: finished, total, complete, workers, seconds: progress.seconds };

@@ -17,6 +17,7 @@ import { Progress } from '../progress.ts';
 import { SCAN_FLAGS, workerCount } from '../scan-run.ts';
 import { OUTPUT_FLAGS } from './solve.ts';
 import { finishOutput, OUT_FLAG } from './output.ts';
+import { interruptible } from '../io.ts';
 
 export const DEFAULT_RANGES = 'nn,vdw:1,vdw:2,vdw:3,vdw:inf,dipolar';
 
@@ -62,24 +63,14 @@ export const softlinesCommand: Command = {
     const followed = parsePhases(phases, base.lattice);
     const tasks: SoftLineRequest[] = [];
     for (const range of ranges) for (const phase of followed) tasks.push({ base: point, x, y, range, phase, tol });
-    const { pool, release } = io.pool(workerCount(args, io, tasks.length));
     const progress = new Progress(io, 'softlines', tasks.length, 'lines');
     const done: (SoftLineResult | undefined)[] = new Array(tasks.length);
-    io.catchInterrupts(true);
-    let complete = true;
-    try {
-      await pool.run(tasks, (remote, t) => remote.spectrum.softLines(t), {
-        signal: io.interrupt,
+    const { complete } = await interruptible(io, workerCount(args, io, tasks.length), (pool, signal) =>
+      pool.run(tasks, (remote, t) => remote.spectrum.softLines(t), {
+        signal,
         onResult: (r, i) => { done[i] = r; },
         onProgress: (d) => progress.update(d),
-      });
-    } catch (e) {
-      if (!(e instanceof Error && e.name === 'AbortError')) throw e;
-      complete = false;
-    } finally {
-      release();
-      io.catchInterrupts(false);
-    }
+      }));
     const results = done.filter((r): r is SoftLineResult => r !== undefined);
     progress.finish(results.length, `, ${results.reduce((a, r) => a + r.evaluations, 0)} margin evaluations`);
     const text = bool(args, 'json')

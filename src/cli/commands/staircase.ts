@@ -11,7 +11,7 @@ import { findPlateaus, type Plateau } from '../../core/meanfield/plateaus.ts';
 import type { MeanFieldState } from '../../core/meanfield/state.ts';
 import { HELP_FLAG, type Command } from '../command.ts';
 import { bool, str, type FlagSpec, type ParsedArgs } from '../flags.ts';
-import type { CliIo } from '../io.ts';
+import { interruptible, type CliIo } from '../io.ts';
 import { MODEL_FLAGS, modelFromArgs, seedFromArgs } from '../model-flags.ts';
 import { runScan, SCAN_FLAGS, validatePlan, workerCount } from '../scan-run.ts';
 import { paramsJson, stateNotes } from '../state-format.ts';
@@ -74,21 +74,13 @@ export const staircaseCommand: Command = {
 /** Bisect every plateau's edges in the pool; null when interrupted. */
 async function refine(io: CliIo, args: ParsedArgs, plan: ScanPlan, states: MeanFieldState[], plateaus: Plateau[]): Promise<Plateau[] | null> {
   const sorted = [...states].sort((a, b) => a.mu - b.mu);
-  const { pool, release } = io.pool(workerCount(args, io, plateaus.length));
-  io.catchInterrupts(true);
-  try {
-    return await pool.run(plateaus, (remote, plateau) => remote.meanfield.refinePlateau({
+  const r = await interruptible(io, workerCount(args, io, plateaus.length), (pool, signal) =>
+    pool.run(plateaus, (remote, plateau) => remote.meanfield.refinePlateau({
       base: plan.base, plateau, seed: plan.seed, muTol: EDGE_TOL,
       below: sorted.filter((s) => s.mu < plateau.muLow).pop(),
       above: sorted.find((s) => s.mu > plateau.muHigh),
-    }), { signal: io.interrupt });
-  } catch (e) {
-    if (e instanceof Error && e.name === 'AbortError') return null;
-    throw e;
-  } finally {
-    release();
-    io.catchInterrupts(false);
-  }
+    }), { signal }));
+  return r.complete ? r.value : null;
 }
 
 const f = (x: number) => Number(x.toPrecision(10)).toString();
