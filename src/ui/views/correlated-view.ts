@@ -5,6 +5,7 @@
  * mean-field answer for the same inputs. Shows the array to scale shaded by <n_i>, the
  * live optimisation trace (VMC), S(k) and C(r). T = 0 for both methods.
  */
+import { HostWidthController } from '../controllers/host-width.ts';
 import { LitElement, html, css, nothing } from 'lit';
 import type { AppState, ModelInputs } from '../state/app-state.ts';
 import type { ParsedModel } from '../model/model-inputs.ts';
@@ -46,13 +47,11 @@ function sitesFromState(s: string): number[] {
 export class CorrelatedView extends LitElement {
   static override properties = {
     section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false },
-    width: { state: true },
   };
   declare section: Section;
   declare model: ParsedModel;
   declare inputs: ModelInputs;
   declare engine: EngineClient;
-  declare width: number;
   private task = new EngineTask<Correlated>(this);
   private meanField = new EngineTask<SolveResult>(this);
   /** The live optimisation trace of the running VMC. */
@@ -62,12 +61,7 @@ export class CorrelatedView extends LitElement {
   private lastEd: { key: string; r: EdResult } | null = null;
   private job: Job | null = null;
   private uploadError: string | null = null;
-  private resize = new ResizeObserver((e) => { this.width = Math.round(e[0].contentRect.width); });
-
-  constructor() {
-    super();
-    this.width = 900;
-  }
+  private size = new HostWidthController(this);
 
   static override styles = [sharedStyles, css`
     :host { display: block; }
@@ -78,8 +72,6 @@ export class CorrelatedView extends LitElement {
     @media (max-width: 900px) { .grid { grid-template-columns: 1fr; } }
   `];
 
-  override connectedCallback() { super.connectedCallback(); this.resize.observe(this); }
-  override disconnectedCallback() { super.disconnectedCallback(); this.resize.disconnect(); }
 
   private patch(p: Partial<Section>) {
     this.dispatchEvent(new CustomEvent('section-change', { detail: { section: 'correlated', patch: p }, bubbles: true, composed: true }));
@@ -192,7 +184,7 @@ export class CorrelatedView extends LitElement {
     const { error } = this.describe();
     const v = this.task.value;
     const mf = this.meanField.value;
-    const w = Math.max(340, Math.min(560, (this.width - 10) / (this.width > 900 ? 2 : 1)));
+    const w = Math.max(340, Math.min(560, (this.size.width - 10) / (this.size.width > 900 ? 2 : 1)));
     const job = this.job;
     let positions: Float64Array | null = null;
     try { if (job) positions = buildCluster(job.cluster).positions; } catch { positions = null; }

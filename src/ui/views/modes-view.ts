@@ -4,6 +4,7 @@
  * whether the state is dynamically stable. `cell` restricts the state to supercells of
  * that size (1: follow the uniform state where it is not the ground state).
  */
+import { HostWidthController } from '../controllers/host-width.ts';
 import { LitElement, html, css, nothing } from 'lit';
 import type { AppState, ModelInputs } from '../state/app-state.ts';
 import type { ParsedModel } from '../model/model-inputs.ts';
@@ -35,20 +36,14 @@ export function spectrumTable(sp: StateSpectrum): Table {
 }
 
 export class ModesView extends LitElement {
-  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false }, width: { state: true } };
+  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false } };
   declare section: Section;
   declare model: ParsedModel;
   declare inputs: ModelInputs;
   declare engine: EngineClient;
-  declare width: number;
   private task = new EngineTask<StateSpectrum>(this);
   private inputError: string | null = null;
-  private resize = new ResizeObserver((e) => { this.width = Math.round(e[0].contentRect.width); });
-
-  constructor() {
-    super();
-    this.width = 900;
-  }
+  private size = new HostWidthController(this);
 
   static override styles = [sharedStyles, css`
     :host { display: block; }
@@ -58,8 +53,6 @@ export class ModesView extends LitElement {
     .summary { font-size: 14px; margin: 6px 0; }
   `];
 
-  override connectedCallback() { super.connectedCallback(); this.resize.observe(this); }
-  override disconnectedCallback() { super.disconnectedCallback(); this.resize.disconnect(); }
 
   private patch(p: Partial<Section>) {
     this.dispatchEvent(new CustomEvent('section-change', { detail: { section: 'modes', patch: p }, bubbles: true, composed: true }));
@@ -84,7 +77,7 @@ export class ModesView extends LitElement {
 
   override render() {
     const sp = this.task.value;
-    const w = Math.max(340, Math.min(this.width, 1000));
+    const w = Math.max(340, Math.min(this.size.width, 1000));
     const h = Math.round(Math.min(420, Math.max(260, w * 0.42)));
     const st = sp?.state;
     const cmd = cliLine('spectrum', [...modelFlags(this.inputs), ...(this.section.cell.trim() ? ['--cell', this.section.cell.trim()] : []), '--points', this.section.points.trim(), '--json']);

@@ -4,6 +4,7 @@
  * cursor; a click (or Enter) opens the point. Soft-mode lines for the ticked interaction
  * ranges are drawn over the map (soft-mode-lines.ts).
  */
+import { HostWidthController } from '../controllers/host-width.ts';
 import { LitElement, html, css, nothing } from 'lit';
 import type { ParsedModel } from '../model/model-inputs.ts';
 import type { AppState, ModelInputs } from '../state/app-state.ts';
@@ -33,25 +34,23 @@ const fmt = (v: number) => Number(v.toPrecision(4)).toString();
 export class PhaseAtlasView extends LitElement {
   static override properties = {
     section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false },
-    hover: { state: true }, width: { state: true },
+    hover: { state: true },
   };
   declare section: AtlasSection;
   declare model: ParsedModel;
   declare inputs: ModelInputs;
   declare engine: EngineClient;
   declare hover: [number, number] | null;
-  declare width: number;
   private scan = new MapScanController(this, () => this.engine);
   private soft = new SoftLinesController(this, () => this.engine);
   private axisErrors: { x?: string; y?: string } = {};
   private fig: RenderedFigure | null = null;
   private figKey = '';
-  private resize = new ResizeObserver((e) => { this.width = Math.round(e[0].contentRect.width); });
+  private size = new HostWidthController(this);
 
   constructor() {
     super();
     this.hover = null;
-    this.width = 900;
   }
 
   static override styles = [sharedStyles, css`
@@ -66,16 +65,6 @@ export class PhaseAtlasView extends LitElement {
     progress { width: 220px; height: 14px; }
     .readout { font-family: 'DejaVu Sans Mono', monospace; font-size: 13px; min-height: 20px; padding: 3px 6px; background: #f1f3f6; border-radius: 4px; }
   `];
-
-  override connectedCallback() {
-    super.connectedCallback();
-    this.resize.observe(this);
-  }
-
-  override disconnectedCallback() {
-    super.disconnectedCallback();
-    this.resize.disconnect();
-  }
 
   private patch(p: Partial<AtlasSection>) {
     this.dispatchEvent(new CustomEvent('section-change', { detail: { section: 'atlas', patch: p }, bubbles: true, composed: true }));
@@ -204,7 +193,7 @@ export class PhaseAtlasView extends LitElement {
     const running = this.scan.status === 'running';
     const ticked = new Set(this.section.lines.split(',').filter(Boolean));
     const sel = this.section.point ? this.section.point.split(',').map(Number) as [number, number] : null;
-    const w = Math.max(320, Math.min(this.width, 1100));
+    const w = Math.max(320, Math.min(this.size.width, 1100));
     const lines = this.soft.overlays();
     // the figure is rebuilt only when what it shows changes (not when the cursor moves:
     // the cursor is drawn over it by <figure-panel>)

@@ -4,6 +4,7 @@
  * from the solutions (src/core/meanfield/plateaus.ts) shaded and labelled, and a table of
  * plateau widths for both ranges.
  */
+import { HostWidthController } from '../controllers/host-width.ts';
 import { LitElement, html, css, nothing } from 'lit';
 import type { AppState, ModelInputs } from '../state/app-state.ts';
 import type { ParsedModel } from '../model/model-inputs.ts';
@@ -37,22 +38,16 @@ function rangeLabel(r: number | undefined): string {
 }
 
 export class StaircaseView extends LitElement {
-  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false }, width: { state: true } };
+  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false } };
   declare section: StaircaseSection;
   declare model: ParsedModel;
   declare inputs: ModelInputs;
   declare engine: EngineClient;
-  declare width: number;
   private scans = new LineScansController(this, () => this.engine);
   /** Plateau edges bisected to 1e-9 (as the CLI's staircase does), per series. */
   private refined = new EngineTask<Plateau[][]>(this);
   private rangeError: string | null = null;
-  private resize = new ResizeObserver((e) => { this.width = Math.round(e[0].contentRect.width); });
-
-  constructor() {
-    super();
-    this.width = 900;
-  }
+  private size = new HostWidthController(this);
 
   static override styles = [sharedStyles, css`
     :host { display: block; }
@@ -61,8 +56,6 @@ export class StaircaseView extends LitElement {
     .tables { display: flex; gap: 24px; flex-wrap: wrap; margin-top: 8px; align-items: flex-start; }
   `];
 
-  override connectedCallback() { super.connectedCallback(); this.resize.observe(this); }
-  override disconnectedCallback() { super.disconnectedCallback(); this.resize.disconnect(); }
 
   private patch(p: Partial<StaircaseSection>) {
     this.dispatchEvent(new CustomEvent('section-change', { detail: { section: 'staircase', patch: p }, bubbles: true, composed: true }));
@@ -132,7 +125,7 @@ export class StaircaseView extends LitElement {
       label: s.label, mu: s.states.map((x) => x.mu), rho: s.states.map((x) => x.excitationDensity),
       filling: s.states.map((x) => x.emitterDensity), plateaus: refined?.[i] ?? findPlateaus(s.states, maxCell),
     })) : [];
-    const w = Math.max(340, Math.min(this.width, 1100));
+    const w = Math.max(340, Math.min(this.size.width, 1100));
     const fig = series.length ? staircaseFigure(series[0], series[1] ?? null, v!.series[0].points[0].delta, w, Math.round(Math.min(480, Math.max(300, w * 0.5)))) : null;
     const pts: Table = {
       columns: ['range', 'mu', 'phase', 'fraction', 'excitationDensity', 'emitterDensity', 'photonDensity', 'cellSize'],
