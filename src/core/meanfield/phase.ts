@@ -23,7 +23,8 @@ export interface PhaseTolerances {
 
 export const DEFAULT_PHASE_TOLERANCES: Readonly<PhaseTolerances> = { condensate: 1e-8, modulation: 1e-4, saturation: 1e-6 };
 
-function gcd(x: number, y: number): number {
+/** Greatest common divisor of non-negative integers (Euclid). */
+export function gcd(x: number, y: number): number {
   while (y) [x, y] = [y, x % y];
   return x;
 }

@@ -14,6 +14,7 @@
  * only through J (not on mu, delta or T), so they are cached per J array: along a scan row
  * at fixed interaction they are built once (plain memoisation: the same starts either way).
  */
+import { gcd } from './phase.ts';
 import seedrandom from 'seedrandom';
 import type { Supercell } from '../lattice/supercells.ts';
 import { BRUTE_FORCE_LIMIT, classicalMinima, wignerLattice } from './classical.ts';
@@ -31,11 +32,6 @@ export interface StartOptions {
   seed: number;
   /** Random starts per cell with M > 1 (default 1). */
   randomStarts?: number;
-}
-
-function gcd(x: number, y: number): number {
-  while (y) [x, y] = [y, x % y];
-  return x;
 }
 
 /** Integer starts per J array (J arrays come from the coupling cache, one per cell and interaction). */
