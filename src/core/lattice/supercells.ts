@@ -85,8 +85,3 @@ export function reciprocalSuperlattice(l: Lattice, cell: Supercell): [[number, n
   const f = 2 * Math.PI / det;
   return [[f * A2[1], -f * A2[0]], [-f * A1[1], f * A1[0]]];
 }
-
-/** A short label of the cell, e.g. "3" in 1D or "2x2+1" ([[2,1],[0,2]]) in 2D. */
-export function cellLabel(dim: 1 | 2, cell: Supercell): string {
-  return dim === 1 ? String(cell.M) : `${cell.a}x${cell.c}${cell.b ? '+' + cell.b : ''}`;
-}

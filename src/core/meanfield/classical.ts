@@ -64,15 +64,3 @@ export function wignerLattice(p: number, q: number): Uint8Array {
   for (let j = 0; j < p; j++) n[Math.floor((j * q) / p)] = 1;
   return n;
 }
-
-/** Classical energy per site e(n) = -mu n_bar + n^T J n / (2M). */
-export function classicalEnergy(J: Float64Array, n: ArrayLike<number>, mu: number): number {
-  const M = n.length;
-  let e = 0, occ = 0;
-  for (let s = 0; s < M; s++) {
-    if (!n[s]) continue;
-    occ++;
-    for (let t = 0; t < M; t++) e += n[t] ? J[s * M + t] : 0;
-  }
-  return -mu * occ / M + e / (2 * M);
-}
