@@ -18,7 +18,7 @@ export const SOURCES = {
   sorella: 'Sorella, Phys. Rev. Lett. 80, 4558 (1998)',
   stinchcombe: 'Stinchcombe, J. Phys. C 6, 2459 (1973): RPA (linear spin-wave) modes of the transverse Ising model, paramagnet omega_k^2 = 4h(h + J(k)/2) in sigma units (from memory)',
   braggWilliams: 'mean-field lattice gas (Bragg-Williams): instability where 1 + V(k) m(1-m)/T = 0, T_c = z J_Ising (textbook, e.g. Chaikin and Lubensky, Principles of Condensed Matter Physics (1995), ch. 4; from memory)',
-  wilkinsonReinsch: 'Wilkinson and Reinsch, Handbook for Automatic Computation II: Linear Algebra (Springer 1971): hqr2, tred2/tql2 (via ml-matrix)',
+  wilkinsonReinsch: 'Wilkinson and Reinsch, Handbook for Automatic Computation II: Linear Algebra (Springer 1971): hqr2 (src/core/numerics, translated from ml-matrix with an iteration cap), tred2/tql2 (via ml-matrix)',
 } as const;
 
 /** |actual - expected| <= rel * |expected| (plus a tiny absolute floor for zeros). */

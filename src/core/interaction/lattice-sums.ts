@@ -22,7 +22,7 @@ import {
   type Supercell, reciprocalSuperlattice, sitePosition, sublatticeOf, superlatticeVectors, period, supercell,
 } from '../lattice/supercells.ts';
 import type { Potential } from './potential.ts';
-import { gammaHalfInteger, upperGamma } from '../special/incomplete-gamma.ts';
+import { gammaHalfInteger, upperGamma } from '../numerics/incomplete-gamma.ts';
 
 export interface CouplingMatrix {
   readonly M: number;

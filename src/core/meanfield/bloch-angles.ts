@@ -19,7 +19,7 @@
  * sublattice has xi_s < 0, every empty one xi_s > 0, and mean_s 1/|xi_s| < delta - mu
  * (the Hessian at alpha = 0 is then positive definite: the photon stays uncondensed).
  */
-import { cholesky, choleskySolve } from './dense-solve.ts';
+import { cholesky, choleskySolve } from '../numerics/dense-solve.ts';
 import type { CellProblem, SolveCellOptions } from './sublattice.ts';
 
 /** Converged angles' observables. */

@@ -17,7 +17,7 @@
  * clipped. Converged when a full step changes m and <sigma^x> by less than tol (1e-12).
  */
 import { photonDensity } from './emitter.ts';
-import { gaussSolve } from './dense-solve.ts';
+import { gaussSolve } from '../numerics/dense-solve.ts';
 import type { CellProblem, SolveCellOptions } from './sublattice.ts';
 import { type Trial, evaluate, negativeCurvature, newTrial, slope } from './trial-state.ts';
 

@@ -13,7 +13,7 @@
  * Statistical Mechanics (1972), ch. 2).
  */
 import { gOf, qOf, occupation, levelFreeEnergy } from './emitter.ts';
-import { cholesky, choleskySolve } from './dense-solve.ts';
+import { cholesky, choleskySolve } from '../numerics/dense-solve.ts';
 import type { CellProblem } from './sublattice.ts';
 
 /** The trial state of fields h: occupations m, coherences x, their derivatives, Phi. */

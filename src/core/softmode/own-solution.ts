@@ -22,7 +22,7 @@ import type { FluctuationInput } from '../spectrum/background.ts';
 import { blochCouplings } from '../spectrum/bloch-couplings.ts';
 import { lattice } from '../lattice/geometry.ts';
 import { resolvePotential } from '../interaction/potential.ts';
-import { gaussSolve } from '../meanfield/dense-solve.ts';
+import { gaussSolve } from '../numerics/dense-solve.ts';
 
 export type FollowedPhase = 'condensate' | 'normal' | { cell: { a: number; b: number; c: number }; pattern: number[] };
 

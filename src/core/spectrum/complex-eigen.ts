@@ -1,7 +1,7 @@
 /**
- * Eigenvalues of a complex n x n matrix A = X + iY with ml-matrix's real
- * EigenvalueDecomposition (Hessenberg reduction and shifted QR, hqr2; Wilkinson and
- * Reinsch, Handbook for Automatic Computation II (1971)), through the real form
+ * Eigenvalues of a complex n x n matrix A = X + iY with the real eigensolver of
+ * numerics/real-eigen.ts (Hessenberg reduction and capped double-shift QR, hqr2; Wilkinson
+ * and Reinsch, Handbook for Automatic Computation II (1971)), through the real form
  *
  *   R = [[X, -Y], [Y, X]]   (2n x 2n),   eig(R) = eig(A) u conj(eig(A)).
  *
@@ -12,7 +12,7 @@
  * values as the rank of its vectors z (the geometric multiplicity in A). The ±sqrt(eps)
  * splitting of a defective pair stays inside one cluster.
  */
-import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
+import { realEigenDecomposition } from '../numerics/real-eigen.ts';
 
 export interface Eigenvalues {
   re: Float64Array;
@@ -21,10 +21,7 @@ export interface Eigenvalues {
 
 /** Eigenvalues and eigenvectors of a real n x n matrix (row-major). vec(j) is the complex eigenvector of value j. */
 export function realEigen(n: number, A: Float64Array): Eigenvalues & { vec(j: number): { re: Float64Array; im: Float64Array } } {
-  const m = new Matrix(n, n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) m.set(i, j, A[i * n + j]);
-  const evd = new EigenvalueDecomposition(m);
-  const d = evd.realEigenvalues, e = evd.imaginaryEigenvalues, V = evd.eigenvectorMatrix;
+  const { re: d, im: e, V } = realEigenDecomposition(n, A);
   return {
     re: Float64Array.from(d), im: Float64Array.from(e),
     vec(j) {

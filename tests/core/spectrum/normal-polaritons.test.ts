@@ -2,6 +2,8 @@ import { describe, it, expect } from 'vitest';
 import { fluctuationSpectrum } from '../../../src/core/spectrum/spectrum.ts';
 import { background } from '../../../src/core/spectrum/background.ts';
 import { modesAt } from '../../../src/core/spectrum/modes.ts';
+import { stateSpectrum } from '../../../src/core/spectrum/state-spectrum.ts';
+import type { ModelParams } from '../../../src/core/model.ts';
 import { SOURCES, expectAbs, expectRel } from '../../references.ts';
 
 /**
@@ -61,4 +63,33 @@ describe('normal state: polaritons and the flat emitter band', () => {
     expect(w).toHaveLength(4);
     w.forEach((x, i) => expectRel(x, expected[i], 1e-12));
   });
+
+  // Issue 10: with no interaction (or none felt by the empty state) the k = 0 matrix has zero
+  // trace and the plain double-shift QR sweep of JAMA is its own fixed point: these solved
+  // points spun for ever. The closed forms are SOURCES.hopfield's, computed here;
+  // tolerance 1e-12 (exact arithmetic on a 4 x 4 eigenproblem).
+  const photonless: [string, ModelParams][] = [
+    ['nn V1 = 0, delta 2, mu -1.5', { lattice: 'chain', interaction: { shape: 'nn', V1: 0 }, delta: 2, mu: -1.5, T: 0, maxCell: 12 }],
+    ['vdw Rb = 50, delta 2, mu -1.5', { lattice: 'chain', interaction: { shape: 'vdw', Rb: 50 }, delta: 2, mu: -1.5, T: 0, maxCell: 4 }],
+    ['nn V1 = 1, delta 0, mu -50', { lattice: 'chain', interaction: { shape: 'nn', V1: 1 }, delta: 0, mu: -50, T: 0, maxCell: 4 }],
+    ['square, nn V1 = 0, delta -1, mu -3', { lattice: 'square', interaction: { shape: 'nn', V1: 0 }, delta: -1, mu: -3, T: 0, maxCell: 2 }],
+  ];
+  for (const [name, p] of photonless) {
+    it(`solved empty state, ${name}: polaritons delta/2 - mu +- sqrt(delta^2/4 + 1) and the flat band -mu`, () => {
+      const sp = stateSpectrum(p, { points: 17 });
+      const mu = p.mu as number, delta = p.delta;
+      expect(sp.state.phase).toBe('empty');
+      const root = Math.sqrt(delta * delta / 4 + 1);
+      expect(sp.zoneCentre.omega).toHaveLength(2);
+      expectRel(sp.zoneCentre.omega[0], delta / 2 - mu - root, 1e-12);
+      expectRel(sp.zoneCentre.omega[1], delta / 2 - mu + root, 1e-12);
+      for (const b of sp.branches) {
+        const k = typeof b.k === 'number' ? [b.k, 0] : b.k;
+        if (Math.hypot(k[0], k[1]) < 1e-12) continue;
+        expect(b.omega).toHaveLength(1);
+        expectRel(b.omega[0], -mu, 1e-12);
+      }
+      expect(sp.dynamicallyStable).toBe(true);
+    });
+  }
 });

@@ -1,5 +1,5 @@
 import { describe, it } from 'vitest';
-import { erfc, expint1, gammaHalfInteger, upperGamma } from '../../../src/core/special/incomplete-gamma.ts';
+import { erfc, expint1, gammaHalfInteger, upperGamma } from '../../../src/core/numerics/incomplete-gamma.ts';
 import { expectRel } from '../../references.ts';
 
 // Check values: closed forms computed here, and handbook values of Abramowitz and Stegun
