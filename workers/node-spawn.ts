@@ -1,9 +1,11 @@
 /**
- * Start engine workers as Node worker threads. The worker runs the TypeScript sources
- * directly: Node 20 does not apply `--import tsx` loader hooks to a worker's own entry
- * module (it fails with ERR_UNKNOWN_FILE_EXTENSION), so the thread starts from a tiny
- * bootstrap that registers tsx's ESM loader first and then imports engine-worker-node.ts.
- * This works under `tsx` (the CLI, the benchmark) and under vitest alike.
+ * Start engine workers as Node worker threads. Two ways, chosen by what this module is:
+ * - built (dist/cli/atlas.mjs, see scripts/build-cli.mjs): the thread runs the plain
+ *   JavaScript engine-worker-node.mjs built beside it; no TypeScript, no tsx.
+ * - TypeScript sources (tests under vitest, the benchmark under tsx): Node 20 does not apply
+ *   `--import tsx` loader hooks to a worker's own entry module (ERR_UNKNOWN_FILE_EXTENSION),
+ *   so the thread starts from a tiny bootstrap that registers tsx's ESM loader first and
+ *   then imports engine-worker-node.ts.
  */
 import { Worker } from 'node:worker_threads';
 import { createRequire } from 'node:module';
@@ -29,13 +31,19 @@ function tsxApiUrl(): string {
   return tsxApi;
 }
 
-/** Start one worker thread running `entry` (default: the engine worker) under tsx. */
-export function spawnNodeWorker(entry: URL = new URL('./engine-worker-node.ts', import.meta.url)): Worker {
-  const code = `import(${JSON.stringify(tsxApiUrl())})` +
-    `.then((m) => { m.register(); return import(${JSON.stringify(entry.href)}); });`;
+/** Is this module running as built JavaScript (the bundled CLI) rather than from its .ts source? */
+const BUILT = !import.meta.url.endsWith('.ts');
+
+/** Start one worker thread running `entry` (default: the engine worker), built or under tsx. */
+export function spawnNodeWorker(entry?: URL): Worker {
   // A larger young generation means fewer scavenges of the solver's short-lived arrays; the
   // helper threads' share of a worker's CPU fell from ~0.12 to ~0.06 of a core in the bench.
-  return new Worker(code, { eval: true, resourceLimits: { maxYoungGenerationSizeMb: 64 } });
+  const resourceLimits = { maxYoungGenerationSizeMb: 64 };
+  if (BUILT && !entry) return new Worker(new URL('./engine-worker-node.mjs', import.meta.url), { resourceLimits });
+  const source = entry ?? new URL('./engine-worker-node.ts', import.meta.url);
+  const code = `import(${JSON.stringify(tsxApiUrl())})` +
+    `.then((m) => { m.register(); return import(${JSON.stringify(source.href)}); });`;
+  return new Worker(code, { eval: true, resourceLimits });
 }
 
 /** One engine worker thread as a pool handle. */
