@@ -13,9 +13,13 @@
  *   h_long^(0) = pi^{d/2}/Gamma(s/2) eta^{s-d} / ((s-d)/2),   h_long(0) = eta^s/((s/2) Gamma(s/2))
  * (P. P. Ewald, Ann. Phys. 64, 253 (1921); the incomplete-gamma form for r^-s is standard,
  * e.g. Crandall, Experimental Math. 8, 367 (1999)). Both parts converge like exp(-x^2), so the
- * result is exact to rounding (~1e-14 relative). Softcore: V0 Rc^6 times the r^-6 Ewald sum
- * plus the direct sum of V - V0 Rc^6/r^6 = -V0 Rc^12/(r^6 (r^6 + Rc^6)), whose neglected
- * tail beyond 15 Rc is below (1/15)^{12-d} of the nearest term.
+ * result is exact to rounding (~1e-14 relative). Softcore on the chain with Rc >= 1: Poisson
+ * summation with the closed-form transform (softcore-poisson.ts), stable at any Rc. Softcore
+ * otherwise: V0 Rc^6 times the r^-6 Ewald sum plus the direct sum of
+ * V - V0 Rc^6/r^6 = -V0 Rc^12/(r^6 (r^6 + Rc^6)), whose neglected tail beyond 15 Rc is below
+ * (1/15)^{12-d} of the nearest term; the two parts are ~Rc^{6-d} times the result, so rounding
+ * costs eps Rc^{6-d} relative (< 1e-12 for Rc < 1 in 1D and < 1e-10 for Rc <= MAX_SOFTCORE_RC_2D = 20
+ * in 2D, where potential.ts refuses larger Rc).
  */
 import { type Lattice, type Vec2, position } from '../lattice/geometry.ts';
 import {
@@ -23,6 +27,7 @@ import {
 } from '../lattice/supercells.ts';
 import type { Potential } from './potential.ts';
 import { gammaHalfInteger, upperGamma } from '../numerics/incomplete-gamma.ts';
+import { POISSON_MIN_RC, softcorePoissonChain } from './softcore-poisson.ts';
 
 export interface CouplingMatrix {
   readonly M: number;
@@ -43,6 +48,8 @@ export function couplings(l: Lattice, cell: Supercell, pot: Potential, k: Vec2 =
     directSum(l, cell, (r) => (r > pot.rmax + 1e-9 ? 0 : pot.V(r)), pot.rmax, k, J);
   } else if (pot.powerLaw) {
     ewaldSum(l, cell, pot.powerLaw.s, pot.powerLaw.C, k, J);
+  } else if (pot.softcore && l.dim === 1 && pot.softcore.Rc >= POISSON_MIN_RC) {
+    softcorePoissonChain(M, pot.softcore.V0, pot.softcore.Rc, k[0], J);
   } else if (pot.softcore) {
     const { V0, Rc } = pot.softcore;
     const Rc6 = Math.pow(Rc, 6);

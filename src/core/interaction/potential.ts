@@ -47,10 +47,30 @@ export interface Potential {
 
 const NO_RANGE = Infinity;
 
+/**
+ * Largest range rmax of a direct lattice sum: 1e5 in 1D, 200 in 2D (about 1.3e5 sites on the
+ * square lattice; a sum is redone at every k of a spectrum and for every cell of a search,
+ * so this bounds one mean-field point to about a second). Beyond it the truncated sum differs
+ * from the full one by less than the tail, (1/rmax)^{s-d} of it for a power law: leave the
+ * range unset instead.
+ */
+export const MAX_RANGE = { chain: 1e5, plane: 200 } as const;
+
+/**
+ * Largest core radius of the full-range soft-core sum in 2D: the split V0 Rc^6 r^-6 + remainder
+ * loses eps Rc^4 relative (3e-11 at 20) and sums 15 Rc out (about 3e5 sites at 20).
+ */
+export const MAX_SOFTCORE_RC_2D = 20;
+
 /** Resolve a spec on a lattice into a Potential, refusing incomplete or bad input. */
 export function resolvePotential(spec: InteractionSpec, l: Lattice): Potential {
   const rmax = spec.rmax === undefined ? NO_RANGE : spec.rmax;
   if (!(rmax > 0) || Number.isNaN(rmax)) throw new InputError(`range must be > 0, got ${rmax}`, 'range');
+  const rangeLimit = l.dim === 1 ? MAX_RANGE.chain : MAX_RANGE.plane;
+  if (Number.isFinite(rmax) && rmax > rangeLimit && spec.shape !== 'nn') {
+    throw new InputError(
+      `range ${rmax} is beyond the direct lattice sum's limit of ${rangeLimit} on the ${l.name} lattice; leave the range unset for the full converged sum`, 'range');
+  }
   switch (spec.shape) {
     case 'nn': {
       const V1 = requireFinite(spec.V1 ?? NaN, 'v1');
@@ -80,6 +100,10 @@ export function resolvePotential(spec: InteractionSpec, l: Lattice): Potential {
       const V0 = requireFinite(spec.V0 ?? NaN, 'v0');
       const Rc = requireFinite(spec.Rc ?? NaN, 'rc');
       if (!(Rc > 0)) throw new InputError(`core radius rc must be > 0, got ${Rc}`, 'rc');
+      if (l.dim === 2 && !Number.isFinite(rmax) && Rc > MAX_SOFTCORE_RC_2D) {
+        throw new InputError(
+          `core radius rc = ${Rc} is above ${MAX_SOFTCORE_RC_2D}, the largest whose full soft-core lattice sum the ${l.name} lattice takes; give a range (at most ${MAX_RANGE.plane})`, 'rc');
+      }
       return { shape: 'softcore', V: (r) => V0 / (1 + Math.pow(r / Rc, 6)), rmax, softcore: { V0, Rc } };
     }
     default:
