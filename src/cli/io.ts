@@ -5,7 +5,8 @@
  * write its finished part says so with catchInterrupts(true), otherwise Ctrl-C ends the
  * process at once.
  */
-import { readFileSync, writeFileSync } from 'node:fs';
+import { closeSync, existsSync, openSync, readFileSync, realpathSync, renameSync, rmSync, statfsSync, statSync, writeFileSync } from 'node:fs';
+import { dirname } from 'node:path';
 import { InputError } from '../core/input-error.ts';
 import type { Engine } from '../../workers/engine.ts';
 import type { WorkerPool } from '../../workers/pool.ts';
@@ -21,6 +22,11 @@ export interface CliIo {
   progressEvery?: number;
   readText(path: string): string;
   writeText(path: string, text: string): void;
+  /**
+   * Refuse an --out path that cannot be written (missing folder, read-only, no space) with
+   * an InputError, before any work starts (runCli calls it). Absent: no check (files in memory).
+   */
+  checkOutput?(path: string): void;
   /** A worker pool of `size` engines; the command closes it with release(). */
   pool(size: number): { pool: WorkerPool<Engine>; release(): void };
   /** Default --workers. */
@@ -62,12 +68,73 @@ export function readTextFile(path: string): string {
   }
 }
 
-/** Write a text file, refusing an unwritable path with an InputError. */
-export function writeTextFile(path: string, text: string): void {
+/** Free space an output folder must have before a run starts: a little, not a forecast of the file's size. */
+export const MIN_FREE_BYTES = 1 << 20;
+
+/** The file a write to `path` goes through: beside it (same file system, so the rename is atomic). */
+function tempBeside(path: string): string {
+  return `${path}.${process.pid}.tmp`;
+}
+
+/** Write to the file a symlink points at, not over the link. */
+function realTarget(path: string): string {
+  return existsSync(path) ? realpathSync(path) : path;
+}
+
+function cannotWrite(path: string, e: unknown): InputError {
+  const code = (e as NodeJS.ErrnoException).code;
+  const why = code === 'ENOENT' ? `cannot create a file in ${dirname(path)}`
+    : code === 'ENOTDIR' ? `${dirname(path)} is not a folder`
+    : code === 'EISDIR' ? 'it is a folder'
+    : code === 'EACCES' || code === 'EPERM' || code === 'EROFS' ? `it is read-only (${code})`
+    : code === 'ENOSPC' || code === 'EDQUOT' ? `no space left (${code})`
+    : code ?? (e as Error).message;
+  return new InputError(`cannot write ${path}: ${why}`, 'out');
+}
+
+function refuse(path: string, why: string): InputError {
+  return new InputError(`cannot write ${path}: ${why}`, 'out');
+}
+
+/**
+ * Check that `path` can be written before the work that fills it: its folder exists, a file
+ * can be created beside it (so the final rename will work), an existing file there is not
+ * read-only, and the folder has at least MIN_FREE_BYTES free. InputError otherwise.
+ */
+export function checkOutputPath(path: string): void {
+  const target = realTarget(path);
+  const folder = dirname(target);
+  const folderStat = statSync(folder, { throwIfNoEntry: false });
+  if (!folderStat) throw refuse(path, `the folder ${dirname(path)} does not exist`);
+  if (!folderStat.isDirectory()) throw refuse(path, `${dirname(path)} is not a folder`);
+  if (statSync(target, { throwIfNoEntry: false })?.isDirectory()) throw refuse(path, 'it is a folder');
+  const probe = tempBeside(target);
   try {
-    writeFileSync(path, text);
+    if (existsSync(target)) closeSync(openSync(target, 'r+')); // opened for writing, not changed
+    closeSync(openSync(probe, 'wx'));
   } catch (e) {
-    throw new InputError(`cannot write ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`, 'out');
+    throw cannotWrite(path, e);
+  } finally {
+    rmSync(probe, { force: true });
+  }
+  const fs = statfsSync(folder);
+  if (fs.bavail * fs.bsize < MIN_FREE_BYTES) throw refuse(path, `less than ${MIN_FREE_BYTES >> 20} MiB free in ${dirname(path)}`);
+}
+
+/**
+ * Write a text file through a temporary file beside it renamed over it at the end, so a
+ * failed write (no space, a killed process) never destroys an existing file; an unwritable
+ * path is refused with an InputError.
+ */
+export function writeTextFile(path: string, text: string): void {
+  const target = realTarget(path);
+  const tmp = tempBeside(target);
+  try {
+    writeFileSync(tmp, text);
+    renameSync(tmp, target);
+  } catch (e) {
+    rmSync(tmp, { force: true });
+    throw cannotWrite(path, e);
   }
 }
 
@@ -87,6 +154,7 @@ export function nodeIo(interrupt: AbortSignal, catchInterrupts: (on: boolean) =>
     progressEvery: progressInterval(process.env.ATLAS_PROGRESS),
     readText: readTextFile,
     writeText: writeTextFile,
+    checkOutput: checkOutputPath,
     pool(size) {
       const pool = nodeEnginePool(size);
       return { pool, release: () => pool.close() };

@@ -1,6 +1,7 @@
 /**
  * The CLI as a function: argv in, exit code out, everything else through CliIo. Bad input
- * (an InputError, also one thrown inside a worker) is one line on stderr and exit code 2,
+ * (an InputError, also one thrown inside a worker, or an --out path that cannot be written,
+ * checked before the command starts) is one line on stderr and exit code 2,
  * never a stack trace; an unexpected failure is one line and exit code 1 (the stack only
  * with ATLAS_DEBUG=1); a cancellation after Ctrl-C that a command did not handle itself
  * is exit code 130.
@@ -8,7 +9,7 @@
 import { InputError } from '../core/input-error.ts';
 import { commandHelp, PROGRAM, type Command } from './command.ts';
 import { COMMANDS } from './commands/index.ts';
-import { parseArgs } from './flags.ts';
+import { parseArgs, str } from './flags.ts';
 import type { CliIo } from './io.ts';
 
 /** The top-level --help. */
@@ -45,6 +46,9 @@ export async function runCli(argv: readonly string[], io: CliIo, commands: reado
       io.stdout(commandHelp(command));
       return 0;
     }
+    // A bad --out is refused now, not after the computation that would fill it.
+    const out = command.flags.some((f) => f.name === 'out') ? str(args, 'out') : undefined;
+    if (out) io.checkOutput?.(out);
     return await command.run(args, io);
   } catch (e) {
     if (io.interrupt.aborted && e instanceof Error && e.name === 'AbortError') {
