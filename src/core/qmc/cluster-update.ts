@@ -30,47 +30,49 @@ export function clusterScratch(L: number): ClusterScratch {
 export function clusterUpdate(c: SseConfig, t: SseTerms, v: VertexLinks, s: ClusterScratch, rng: () => number): number {
   if (s.visited.length < 4 * c.L) { s.visited = new Uint8Array(4 * c.L); s.queue = new Int32Array(4 * c.L); }
   const { visited, queue } = s;
-  visited.fill(0, 0, 4 * c.L);
+  const L4 = 4 * c.L;
+  visited.fill(0, 0, L4);
   const { kind, cls } = c, { link, spin } = v;
   const bondW = t.bondW, fieldW = t.fieldW;
   let flipped = 0;
-  for (let p = 0; p < c.L; p++) {
-    const k = kind[p];
-    if (k === EMPTY) continue;
-    const legs = k === BOND ? 4 : 3;
-    for (let leg = 0; leg < legs; leg++) {
-      if (k !== BOND && leg === 1) continue;
-      const start = 4 * p + leg;
-      if (visited[start]) continue;
-      let head = 0, tail = 0, ratio = 1;
-      queue[tail++] = start; visited[start] = 1;
-      while (head < tail) {
-        const w = queue[head++], q = w >> 2, kq = kind[q];
-        if (kq === BOND || kq === FIELD) {
-          if ((w & 3) === 0) {
-            if (kq === BOND) {
-              const b = 4 * cls[q], si = spin[4 * q], sj = spin[4 * q + 1];
-              ratio *= bondW[b + 2 * (1 - si) + (1 - sj)] / bondW[b + 2 * si + sj];
-            } else {
-              ratio *= fieldW[1 - spin[4 * q]] / fieldW[spin[4 * q]];
-            }
-          }
-          const base = 4 * q;
-          for (let l = 0; l < 4; l++) {
-            if (kq !== BOND && (l & 1)) continue;
-            if (!visited[base + l]) { visited[base + l] = 1; queue[tail++] = base + l; }
-          }
-        }
-        const nx = link[w];
-        if (!visited[nx]) { visited[nx] = 1; queue[tail++] = nx; }
+  for (let start = 0; start < L4; start++) {
+    if (visited[start]) continue;
+    const k0 = kind[start >> 2];
+    if (k0 === EMPTY || (k0 !== BOND && (start & 1) === 1)) continue;
+    let head = 0, tail = 0, ratio = 1;
+    // Enter leg w: a diagonal operator joins whole (all its legs, its weight ratio once),
+    // a site operator with this leg only.
+    for (let w = start; ;) {
+      const q = w >> 2, kq = kind[q];
+      if (kq === BOND) {
+        const b = 4 * cls[q], base = 4 * q, si = spin[base], sj = spin[base + 1];
+        ratio *= bondW[b + 3 - 2 * si - sj] / bondW[b + 2 * si + sj];
+        visited[base] = visited[base + 1] = visited[base + 2] = visited[base + 3] = 1;
+        queue[tail++] = base; queue[tail++] = base + 1; queue[tail++] = base + 2; queue[tail++] = base + 3;
+      } else if (kq === FIELD) {
+        const base = 4 * q, si = spin[base];
+        ratio *= fieldW[1 - si] / fieldW[si];
+        visited[base] = visited[base + 2] = 1;
+        queue[tail++] = base; queue[tail++] = base + 2;
+      } else {
+        visited[w] = 1;
+        queue[tail++] = w;
       }
-      if (ratio >= 1 || rng() < ratio) {
-        flipped++;
-        for (let h = 0; h < tail; h++) {
-          const w = queue[h], q = w >> 2;
-          spin[w] ^= 1;
-          if (kind[q] === CONST) kind[q] = FLIP; else if (kind[q] === FLIP) kind[q] = CONST;
-        }
+      // Next leg to enter: the first unvisited link of the legs in the queue.
+      w = -1;
+      while (head < tail) {
+        const nx = link[queue[head++]];
+        if (!visited[nx]) { w = nx; break; }
+      }
+      if (w < 0) break;
+    }
+    if (ratio >= 1 || rng() < ratio) {
+      flipped++;
+      for (let h = 0; h < tail; h++) {
+        const w = queue[h], q = w >> 2;
+        spin[w] ^= 1;
+        const kq = kind[q];
+        if (kq === CONST) kind[q] = FLIP; else if (kq === FLIP) kind[q] = CONST;
       }
     }
   }

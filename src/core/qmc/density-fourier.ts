@@ -12,6 +12,8 @@ import { trig } from './torus-transform.ts';
 export interface DensityFourier {
   /** Number of momenta. */
   readonly K: number;
+  /** Operations of one transform (with the pair sums of an array), to space the measurements. */
+  readonly work: number;
   /** Write Re n_k, Im n_k of occupations n into re, im (length K). */
   readonly transform: (n: Uint8Array, re: Float64Array, im: Float64Array) => void;
 }
@@ -23,7 +25,7 @@ export function densityFourier(g: QmcGeometry): DensityFourier {
     const cx = trig(Lx, Math.cos), sx = trig(Lx, Math.sin), cy = trig(Ly, Math.cos), sy = trig(Ly, Math.sin);
     const rowRe = new Float64Array(Lx * Ly), rowIm = new Float64Array(Lx * Ly);
     return {
-      K: Lx * Ly,
+      K: Lx * Ly, work: Lx * Ly * (Lx + Ly),
       transform: (n, re, im) => {
         rowRe.fill(0); rowIm.fill(0);
         for (let y = 0; y < Ly; y++) {
@@ -58,7 +60,7 @@ export function densityFourier(g: QmcGeometry): DensityFourier {
     }
   }
   return {
-    K,
+    K, work: N * K + N * N,
     transform: (n, re, im) => {
       for (let q = 0; q < K; q++) {
         let a = 0, b = 0;

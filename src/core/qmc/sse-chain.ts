@@ -1,9 +1,11 @@
 /**
  * One Markov chain of stochastic series expansion for H(alpha) at inverse temperature beta:
  * a sweep is a diagonal update, the multibranch cluster update (alpha > 0) and the line
- * updates; the expansion cutoff grows during thermalisation only. Measurements are taken
- * after every sweep and averaged in `bins` consecutive bins, the raw material of binning
- * errors and jackknife estimates (qmc-estimates.ts). A chain is fixed by its seed and chain
+ * updates; the expansion cutoff grows during thermalisation only. The scalar estimators are
+ * read after every sweep, the density Fourier components (O(N (Lx + Ly)) each) every
+ * `fourierInterval` sweeps, chosen so that they cost at most about a quarter of the sweeps;
+ * both are averaged in `bins` consecutive bins, the raw material of binning errors and
+ * jackknife estimates (qmc-estimates.ts). A chain is fixed by its seed and chain
  * index (seedrandom's Alea stream) and runs the same on any worker.
  */
 import { chainStream } from '../vmc/random-stream.ts';
@@ -50,6 +52,8 @@ export interface SseChainResult {
   /** Arrays: bin means of n_i at [b * N + i] and of sum_{pairs in shell} n_i n_j at [b * S + s]. */
   sites: Float64Array | null;
   shellSums: Float64Array | null;
+  /** Sweeps between density Fourier measurements. */
+  fourierInterval: number;
   /** Expansion cutoff reached and mean operator count. */
   cutoff: number;
   meanOperators: number;
@@ -71,10 +75,12 @@ export function runSseChain(req: SseChainRequest, g: QmcGeometry, hooks: SseChai
   const total = terms.constWeight + terms.bondWeight + terms.fieldWeight;
   const cfg = emptyConfig(state, Math.max(32, Math.ceil(1.25 * beta * total)));
   const links = vertexLinks(N, cfg.L), cs = clusterScratch(cfg.L), ls = lineScratch(64);
-  const scratch = new Uint8Array(N);
+  // A sweep measures between its diagonal and off-diagonal halves, on the linked string.
+  let measure: (() => void) | null = null;
   const sweep = () => {
     diagonalUpdate(cfg, terms, beta, rng);
     linkVertices(cfg, links);
+    if (measure) measure();
     if (alpha > 0) clusterUpdate(cfg, terms, links, cs, rng);
     lineUpdate(cfg, terms, links, ls, rng);
     readBackState(cfg, links);
@@ -87,43 +93,49 @@ export function runSseChain(req: SseChainRequest, g: QmcGeometry, hooks: SseChai
     if ((s + 1) % every === 0) hooks.onProgress?.(s + 1, totalSweeps);
   }
   const binSize = Math.floor(req.sweeps / bins);
+  const interval = Math.max(1, Math.min(binSize, Math.ceil(fourier.work / (4 * cfg.L))));
   const out: SseChainResult = {
-    bins, binSize, scalars: new Float64Array(bins * NS), squares: new Float64Array(NS),
+    bins, binSize, fourierInterval: interval, scalars: new Float64Array(bins * NS), squares: new Float64Array(NS),
     nkRe: new Float64Array(bins * K), nkIm: new Float64Array(bins * K), nk2: new Float64Array(bins * K), nk4: new Float64Array(bins * K),
     sites: g.kind === 'array' ? new Float64Array(bins * N) : null,
     shellSums: g.kind === 'array' ? new Float64Array(bins * g.shells.length) : null,
     cutoff: cfg.L, meanOperators: 0,
   };
-  const re = new Float64Array(K), im = new Float64Array(K);
+  const re = new Float64Array(K), im = new Float64Array(K), values = new Float64Array(NS);
   const shellOf = g.cluster ? g.cluster.shellOf : null;
-  let operators = 0;
-  for (let b = 0; b < bins; b++) {
-    for (let s = 0; s < binSize; s++) {
-      sweep();
-      const x = sampleConfig(cfg, terms.E0, beta, alpha, scratch);
-      const values = [x.energy, x.density, x.sigmaX, x.kubo, x.number];
-      for (let v = 0; v < NS; v++) { out.scalars[b * NS + v] += values[v]; out.squares[v] += values[v] * values[v]; }
-      operators += x.operators;
+  let operators = 0, bin = 0, inBin = 0;
+  measure = () => {
+    const x = sampleConfig(links.counts, N, terms.E0, beta, alpha);
+    values[0] = x.energy; values[1] = x.density; values[2] = x.sigmaX; values[3] = x.kubo; values[4] = x.number;
+    for (let v = 0; v < NS; v++) { out.scalars[bin * NS + v] += values[v]; out.squares[v] += values[v] * values[v]; }
+    operators += x.operators;
+    if (inBin % interval === 0) {
       fourier.transform(cfg.state, re, im);
       for (let q = 0; q < K; q++) {
         const p2 = re[q] * re[q] + im[q] * im[q];
-        out.nkRe[b * K + q] += re[q]; out.nkIm[b * K + q] += im[q];
-        out.nk2[b * K + q] += p2; out.nk4[b * K + q] += p2 * p2;
+        out.nkRe[bin * K + q] += re[q]; out.nkIm[bin * K + q] += im[q];
+        out.nk2[bin * K + q] += p2; out.nk4[bin * K + q] += p2 * p2;
       }
       if (out.sites && out.shellSums && shellOf) {
         const S = g.shells.length, st = cfg.state;
         for (let i = 0; i < N; i++) {
           if (!st[i]) continue;
-          out.sites[b * N + i] += 1;
-          for (let j = 0; j < N; j++) if (j !== i && st[j]) out.shellSums[b * S + shellOf[i * N + j]] += 1;
+          out.sites[bin * N + i] += 1;
+          for (let j = 0; j < N; j++) if (j !== i && st[j]) out.shellSums[bin * S + shellOf[i * N + j]] += 1;
         }
       }
-      const done = req.thermalization + b * binSize + s + 1;
+    }
+  };
+  for (bin = 0; bin < bins; bin++) {
+    for (inBin = 0; inBin < binSize; inBin++) {
+      sweep();
+      const done = req.thermalization + bin * binSize + inBin + 1;
       if (done % every === 0) hooks.onProgress?.(done, totalSweeps);
     }
   }
-  const scale = 1 / binSize;
-  for (const a of [out.scalars, out.nkRe, out.nkIm, out.nk2, out.nk4, out.sites, out.shellSums]) if (a) for (let t = 0; t < a.length; t++) a[t] *= scale;
+  const scale = 1 / binSize, fscale = 1 / Math.ceil(binSize / interval);
+  for (const a of [out.scalars]) for (let t = 0; t < a.length; t++) a[t] *= scale;
+  for (const a of [out.nkRe, out.nkIm, out.nk2, out.nk4, out.sites, out.shellSums]) if (a) for (let t = 0; t < a.length; t++) a[t] *= fscale;
   out.cutoff = cfg.L;
   out.meanOperators = operators / (bins * binSize);
   return out;

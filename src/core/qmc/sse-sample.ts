@@ -10,7 +10,7 @@
  * (with n = 0: the state itself), the last giving the compressibility
  * d rho / d mu = (1/N) [ int <N(tau) N> - beta <N>^2 ].
  */
-import { type SseConfig, EMPTY, FLIP } from './operator-string.ts';
+import type { VertexLinks } from './vertex-links.ts';
 
 export interface ConfigSample {
   energy: number;
@@ -24,26 +24,11 @@ export interface ConfigSample {
   operators: number;
 }
 
-/** Read the estimators of configuration c (scratch: a copy of the state, length N). */
-export function sampleConfig(c: SseConfig, E0: number, beta: number, alpha: number, scratch: Uint8Array): ConfigSample {
-  const N = c.N, kind = c.kind, siteA = c.siteA;
-  scratch.set(c.state);
-  let Ncur = 0;
-  for (let i = 0; i < N; i++) Ncur += scratch[i];
-  let n = 0, flips = 0, sum = 0, sum2 = 0;
-  for (let p = 0; p < c.L; p++) {
-    const k = kind[p];
-    if (k === EMPTY) continue;
-    sum += Ncur; sum2 += Ncur * Ncur; n++;
-    if (k === FLIP) {
-      flips++;
-      const i = siteA[p];
-      Ncur += scratch[i] ? -1 : 1;
-      scratch[i] ^= 1;
-    }
-  }
-  const number = n > 0 ? sum / n : Ncur;
-  const kubo = n > 0 ? (beta * (sum * sum + sum2)) / (n * (n + 1)) : beta * Ncur * Ncur;
+/** The estimators from the counts of the last vertex-link pass over N sites. */
+export function sampleConfig(counts: VertexLinks['counts'], N: number, E0: number, beta: number, alpha: number): ConfigSample {
+  const { operators: n, flips, start, sum, sum2 } = counts;
+  const number = n > 0 ? sum / n : start;
+  const kubo = n > 0 ? (beta * (sum * sum + sum2)) / (n * (n + 1)) : beta * start * start;
   return {
     energy: (E0 - n / beta) / N,
     density: number / N,

@@ -5,7 +5,9 @@
  * line (an above leg links to the next below leg, periodically), spin[v] the occupation on
  * leg v. Site and field operators use legs 0 and 2 only. Off-diagonal updates act on the
  * spins and the operator kinds, and the state at the start of the string is read back from
- * the first leg of each site's line.
+ * the first leg of each site's line. The same pass counts what the estimators need
+ * (sse-sample.ts): the operators, the flip operators, and sum_p N(p), sum_p N(p)^2 over the
+ * excitation numbers N(p) of the propagated states.
  */
 import { type SseConfig, EMPTY, BOND, FLIP } from './operator-string.ts';
 
@@ -17,11 +19,16 @@ export interface VertexLinks {
   readonly last: Int32Array;
   /** Working copy of the state while propagating. */
   readonly current: Uint8Array;
+  /** Counts of the last pass: operators, flips, N at p = 0, sum_p N(p), sum_p N(p)^2. */
+  readonly counts: { operators: number; flips: number; start: number; sum: number; sum2: number };
 }
 
 /** Storage for N sites and L slots. */
 export function vertexLinks(N: number, L: number): VertexLinks {
-  return { link: new Int32Array(4 * L), spin: new Uint8Array(4 * L), first: new Int32Array(N), last: new Int32Array(N), current: new Uint8Array(N) };
+  return {
+    link: new Int32Array(4 * L), spin: new Uint8Array(4 * L), first: new Int32Array(N), last: new Int32Array(N), current: new Uint8Array(N),
+    counts: { operators: 0, flips: 0, start: 0, sum: 0, sum2: 0 },
+  };
 }
 
 /** Fill the links and leg spins of configuration c (grows the storage with c.L). */
@@ -31,6 +38,9 @@ export function linkVertices(c: SseConfig, v: VertexLinks): VertexLinks {
   const { kind, siteA, siteB } = c;
   first.fill(-1); last.fill(-1);
   current.set(c.state);
+  let Ncur = 0, operators = 0, flips = 0, sum = 0, sum2 = 0;
+  for (let i = 0; i < c.N; i++) Ncur += current[i];
+  const start = Ncur;
   const connect = (i: number, below: number, above: number) => {
     const l = last[i];
     if (l >= 0) { link[l] = below; link[below] = l; } else first[i] = below;
@@ -40,8 +50,9 @@ export function linkVertices(c: SseConfig, v: VertexLinks): VertexLinks {
     const k = kind[p];
     if (k === EMPTY) continue;
     const v0 = 4 * p, i = siteA[p];
+    operators++; sum += Ncur; sum2 += Ncur * Ncur;
     spin[v0] = current[i];
-    if (k === FLIP) current[i] ^= 1;
+    if (k === FLIP) { flips++; Ncur += current[i] ? -1 : 1; current[i] ^= 1; }
     spin[v0 + 2] = current[i];
     connect(i, v0, v0 + 2);
     if (k === BOND) {
@@ -53,6 +64,8 @@ export function linkVertices(c: SseConfig, v: VertexLinks): VertexLinks {
   for (let i = 0; i < c.N; i++) {
     if (first[i] >= 0) { link[first[i]] = last[i]; link[last[i]] = first[i]; }
   }
+  const n = v.counts;
+  n.operators = operators; n.flips = flips; n.start = start; n.sum = sum; n.sum2 = sum2;
   return v;
 }
 
