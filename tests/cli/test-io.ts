@@ -1,7 +1,5 @@
 // A CliIo for tests: captured stdout and stderr, files in memory (or on disk when asked),
 // real engine worker threads.
-import { spawn } from 'node:child_process';
-import { fileURLToPath } from 'node:url';
 import type { CliIo } from '../../src/cli/io.ts';
 import { runCli } from '../../src/cli/run.ts';
 import { nodeEnginePool } from '../../workers/node-spawn.ts';
@@ -38,17 +36,4 @@ export async function cli(argv: string[], files = new Map<string, string>(), int
   };
   const code = await runCli(argv, io);
   return { code, out, err, files };
-}
-
-const root = fileURLToPath(new URL('../..', import.meta.url));
-
-/** Run the real CLI as a subprocess through tsx (as `npm run -s atlas --` does). */
-export function cliProcess(argv: string[]): Promise<{ code: number | null; out: string; err: string }> {
-  return new Promise((resolve) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', 'src/cli/main.ts', ...argv], { cwd: root });
-    let out = '', err = '';
-    child.stdout.on('data', (d: Buffer) => (out += d.toString()));
-    child.stderr.on('data', (d: Buffer) => (err += d.toString()));
-    child.on('close', (code) => resolve({ code, out, err }));
-  });
 }
