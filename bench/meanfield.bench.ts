@@ -6,10 +6,10 @@
  * then the time of a 200 x 200 map on two workers (skipped with --quick).
  */
 import { nodeEnginePool } from '../workers/node-spawn.ts';
-import { runMeanFieldScan } from '../workers/meanfield-scan.ts';
+import { runScan } from '../workers/scan-driver.ts';
 import type { Engine } from '../workers/engine.ts';
 import type { WorkerPool } from '../workers/pool.ts';
-import type { ScanPointResult } from '../workers/protocol.ts';
+import type { ScanPoint } from '../workers/protocol.ts';
 import { parseAxis } from '../src/core/scan/axes.ts';
 import type { ScanPlan } from '../src/core/scan/grid.ts';
 import type { Bench } from './harness.ts';
@@ -28,21 +28,22 @@ function plan(nx: number, ny: number): ScanPlan {
  * so cpu / wall is the number of cores the run actually obtained (below the worker count
  * when other work shares the machine).
  */
-async function timed(pool: WorkerPool<Engine>, p: ScanPlan, continuation = true): Promise<{ s: number; cpu: number; pts: ScanPointResult[] }> {
+async function timed(pool: WorkerPool<Engine>, p: ScanPlan, continuation = true): Promise<{ s: number; cpu: number; pts: ScanPoint[] }> {
   const t0 = performance.now(), c0 = process.cpuUsage();
-  const pts = await runMeanFieldScan(pool, p, { continuation });
+  const pts = (await runScan(pool, { kind: 'map', plan: p, continuation })).points;
   const c = process.cpuUsage(c0);
   return { s: (performance.now() - t0) / 1000, cpu: (c.user + c.system) / 1e6, pts };
 }
 
 /** Points where two runs disagree: phase, fraction, cell size, or Omega beyond 1e-9 relative. */
-function differences(a: ScanPointResult[], b: ScanPointResult[]): number {
+function differences(a: ScanPoint[], b: ScanPoint[]): number {
   let n = 0;
   a.forEach((p, i) => {
-    const q = b[i];
-    const dOmega = Math.abs(p.state.grandPotential - q.state.grandPotential);
-    if (p.state.phase !== q.state.phase || p.state.fraction !== q.state.fraction ||
-      p.state.cellSize !== q.state.cellSize || dOmega > 1e-9 * Math.max(1, Math.abs(p.state.grandPotential))) n++;
+    const ps = p.state, qs = b[i].state;
+    if (!ps || !qs) { if (ps !== qs) n++; return; }
+    const dOmega = Math.abs(ps.grandPotential - qs.grandPotential);
+    if (ps.phase !== qs.phase || ps.fraction !== qs.fraction ||
+      ps.cellSize !== qs.cellSize || dOmega > 1e-9 * Math.max(1, Math.abs(ps.grandPotential))) n++;
   });
   return n;
 }
@@ -59,10 +60,10 @@ const bench: Bench = {
       // start the threads and let the JIT see the solver before timing
       for (const pool of [one, two]) {
         await pool.warm((r) => r.info());
-        await runMeanFieldScan(pool, plan(32, 2));
+        await runScan(pool, { kind: 'map', plan: plan(32, 2) });
       }
       let best1 = Infinity, best2 = Infinity, cpu1 = 0, cpu2 = 0;
-      let ref: ScanPointResult[] = [], par: ScanPointResult[] = [];
+      let ref: ScanPoint[] = [], par: ScanPoint[] = [];
       for (let i = 0; i < repeat; i++) {
         const a = await timed(one, grid);
         const b = await timed(two, grid);
@@ -79,7 +80,7 @@ const bench: Bench = {
       const same = JSON.stringify(ref.map((p) => p.state)) === JSON.stringify(par.map((p) => p.state));
       ctx.log(`1 and 2 workers give identical answers: ${same ? 'yes' : 'NO'}`);
 
-      let bestCold = Infinity, cold: ScanPointResult[] = [];
+      let bestCold = Infinity, cold: ScanPoint[] = [];
       for (let i = 0; i < repeat; i++) {
         const c = await timed(two, grid, false);
         bestCold = Math.min(bestCold, c.s);

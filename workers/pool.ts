@@ -6,6 +6,12 @@
  * (onResult), counts progress in units the caller chooses, and stops on its AbortSignal:
  * queued tasks are dropped and workers busy on the run are terminated (a computation in a
  * worker cannot be interrupted otherwise) and respawned when needed.
+ *
+ * Watchdog: every task has a budget of wall time (the run's budgetMs, else the pool's
+ * taskBudgetMs). A task past it is stopped the only way a worker can be stopped: the
+ * worker is terminated and replaced on the next task, and the task fails with a
+ * TaskTimeoutError whose message names the task (the run's describe, or the task's JSON).
+ * So the pool never waits forever on a computation that does not end.
  */
 import type { Remote } from 'comlink';
 
@@ -30,6 +36,39 @@ export interface RunOptions<T, R> {
   /** Called after each task with the units done and the total (units default to 1 a task). */
   onProgress?: (done: number, total: number) => void;
   units?: (task: T) => number;
+  /** Watchdog budget of one task in ms (default: the pool's taskBudgetMs). */
+  budgetMs?: number | ((task: T) => number);
+  /** The task in words, for the watchdog's message (default: its JSON, cut to 300 characters). */
+  describe?: (task: T) => string;
+  /**
+   * A failed task (an error thrown in the worker, the worker dying, the watchdog) does not
+   * end the run when recover is given: its return value stands for the task's result
+   * (and is streamed as one). Cancellation still ends the run.
+   */
+  recover?: (error: Error, taskIndex: number, task: T) => R;
+}
+
+export interface PoolOptions {
+  /** Watchdog budget of a task in ms when a run sets none (default 30 minutes). */
+  taskBudgetMs?: number;
+}
+
+/** Default watchdog budget of one task: generous, but not forever. */
+export const DEFAULT_TASK_BUDGET_MS = 30 * 60_000;
+
+/** A task ran past its watchdog budget; its worker was terminated and will be replaced. */
+export class TaskTimeoutError extends Error {
+  override name = 'TaskTimeoutError';
+  constructor(readonly task: string, readonly budgetMs: number) {
+    super(`an engine task ran past its budget of ${budgetMs / 1000} s and was stopped (its worker is replaced): ${task}`);
+  }
+}
+
+/** A task's default description: its JSON, cut short. */
+function taskJson(task: unknown): string {
+  let s: string;
+  try { s = JSON.stringify(task) ?? String(task); } catch { s = String(task); }
+  return s.length > 300 ? s.slice(0, 297) + '...' : s;
 }
 
 interface Job {
@@ -73,11 +112,13 @@ export class WorkerPool<E> {
   private readonly slots: Slot<E>[];
   private queue: Job[] = [];
   private closed = false;
+  private readonly taskBudgetMs: number;
 
   /** size workers at most, started lazily as tasks arrive. */
-  constructor(private readonly spawn: SpawnEngine<E>, size: number) {
+  constructor(private readonly spawn: SpawnEngine<E>, size: number, o: PoolOptions = {}) {
     if (!(Number.isInteger(size) && size >= 1)) throw new RangeError(`pool size must be a whole number >= 1, got ${size}`);
     this.slots = Array.from({ length: size }, () => ({}));
+    this.taskBudgetMs = o.taskBudgetMs ?? DEFAULT_TASK_BUDGET_MS;
   }
 
   get size(): number {
@@ -158,23 +199,27 @@ export class WorkerPool<E> {
     const settled = handle.failed
       ? Promise.race([call, handle.failed.catch((e: unknown) => Promise.reject(new WorkerDied(e)))])
       : call;
+    const b = run.opts.budgetMs;
+    const budget = typeof b === 'function' ? b(task) : b ?? this.taskBudgetMs;
+    const timer = setTimeout(() => {
+      if (slot.job !== job) return;
+      // the only way to stop a computation in a worker: end the worker (replaced on the next task)
+      slot.job = undefined;
+      handle.terminate();
+      if (slot.handle === handle) slot.handle = undefined;
+      const describe = run.opts.describe ?? taskJson;
+      this.fail(run, taskIndex, new TaskTimeoutError(describe(task), budget));
+    }, budget);
     settled.then(
       (result) => {
+        clearTimeout(timer);
         if (slot.job !== job) return; // cancelled meanwhile: the worker was terminated
         slot.job = undefined;
-        if (!run.finished) {
-          run.results[taskIndex] = result;
-          run.done += run.opts.units ? run.opts.units(task) : 1;
-          run.opts.onResult?.(result, taskIndex, task);
-          run.opts.onProgress?.(run.done, run.total);
-          if (--run.left === 0) {
-            run.finished = true;
-            run.resolve(run.results);
-          }
-        }
+        this.complete(run, taskIndex, result);
         this.pump();
       },
       (err: unknown) => {
+        clearTimeout(timer);
         if (slot.job !== job) return;
         slot.job = undefined;
         if (err instanceof WorkerDied) {
@@ -183,10 +228,43 @@ export class WorkerPool<E> {
           if (slot.handle === handle) slot.handle = undefined;
           err = err.cause;
         }
-        this.cancel(run, err);
-        this.pump();
+        this.fail(run, taskIndex, err);
       },
     );
+  }
+
+  /** A task's result: store it, stream it, resolve the run after its last task. */
+  private complete(run: RunState, taskIndex: number, result: unknown): void {
+    if (run.finished) return;
+    const task = run.tasks[taskIndex];
+    run.results[taskIndex] = result;
+    run.done += run.opts.units ? run.opts.units(task) : 1;
+    run.opts.onResult?.(result, taskIndex, task);
+    run.opts.onProgress?.(run.done, run.total);
+    if (--run.left === 0) {
+      run.finished = true;
+      run.resolve(run.results);
+    }
+  }
+
+  /** A task failed: recover it when the run says how, else cancel the run with the error. */
+  private fail(run: RunState, taskIndex: number, err: unknown): void {
+    const recover = run.opts.recover;
+    if (recover && !run.finished) {
+      const e = err instanceof Error ? err : new Error(String(err));
+      let value: unknown;
+      try {
+        value = recover(e, taskIndex, run.tasks[taskIndex]);
+      } catch (again) {
+        this.cancel(run, again);
+        return;
+      }
+      this.complete(run, taskIndex, value);
+      this.pump();
+      return;
+    }
+    this.cancel(run, err);
+    this.pump();
   }
 
   /** Stop a run: drop its queued tasks, terminate the workers busy on it, reject it. */

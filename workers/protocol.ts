@@ -1,13 +1,31 @@
 /**
- * The wire contract between the page or the CLI and the engine workers: requests and
- * results as plain data (structured-clone safe: numbers, strings, arrays, plain objects;
- * no classes, no functions except Comlink-proxied callbacks). Types only.
+ * The whole wire contract between the page or the CLI and the engine workers: requests
+ * and results as plain data (structured-clone safe: numbers, strings, arrays, plain
+ * objects; no classes, no functions except Comlink-proxied callbacks). Types only.
+ *
+ * Two levels: the engine's methods (one worker call each: a point, a run of points, one
+ * plateau's edges, a spectrum, a soft-mode trace, ED, a VMC segment), and scans
+ * (ScanKinds), which the scan driver (scan-driver.ts) cuts into such calls on the pool.
+ * The same scan request gives the same answer from the page and from the CLI.
  */
 import type { ModelParams } from '../src/core/model.ts';
 import type { MeanFieldState } from '../src/core/meanfield/state.ts';
 import type { SolveResult } from '../src/core/meanfield/ground-state.ts';
+import type { Plateau } from '../src/core/meanfield/plateaus.ts';
+import type { ScanPlan, ScanPoint } from '../src/core/scan/grid.ts';
+import type { Shard } from '../src/core/scan/shards.ts';
+import type { PhaseMargin, PhaseMarginOptions } from '../src/core/scan/phase-margin.ts';
+import type { SpectrumRequest, StateSpectrum } from '../src/core/spectrum/state-spectrum.ts';
+import type { SoftLineRequest, SoftLineResult } from '../src/core/softmode/soft-lines.ts';
+import type { EdRequest, EdResult } from '../src/core/ed/exact-diagonalisation.ts';
+import type { SegmentRequest, SegmentResult } from '../src/core/vmc/segment.ts';
 
-export type { ModelParams, MeanFieldState, SolveResult };
+export type {
+  ModelParams, MeanFieldState, SolveResult, Plateau, ScanPlan, ScanPoint, Shard, PhaseMargin, PhaseMarginOptions,
+  SpectrumRequest, StateSpectrum, SoftLineRequest, SoftLineResult, EdRequest, EdResult, SegmentRequest, SegmentResult,
+};
+
+// ---- engine methods -------------------------------------------------------------------
 
 /** One mean-field point. */
 export interface SolveRequest {
@@ -19,7 +37,7 @@ export interface SolveRequest {
 
 /**
  * A run of points solved in order on one worker (a segment of a scan row). With
- * continuation each point after the first gets the previous state as its guess.
+ * continuation each point after the first gets the previous solved state as its guess.
  */
 export interface SolveRunRequest {
   points: ModelParams[];
@@ -28,17 +46,14 @@ export interface SolveRunRequest {
   continuation: boolean;
 }
 
-/** Streams a run's states as they finish: i is the position within the run. */
-export type PointCallback<R> = (i: number, result: R) => void;
-
-/** A solved scan point as the pool hands it back. */
-export interface ScanPointResult {
-  /** iy * nx + ix. */
-  index: number;
-  ix: number;
-  iy: number;
-  state: SolveResult;
+/** One point of a run: its state, or (when it could not be solved) why not, in one line. */
+export interface PointOutcome {
+  state?: SolveResult;
+  error?: string;
 }
+
+/** Streams a run's outcomes as they finish: i is the position within the run. */
+export type PointCallback<R> = (i: number, result: R) => void;
 
 /** What a worker says about itself (warm-up probe). */
 export interface EngineInfo {
@@ -52,10 +67,143 @@ export interface EngineInfo {
  */
 export interface PlateauEdgeRequest {
   base: ModelParams;
-  plateau: import('../src/core/meanfield/plateaus.ts').Plateau;
+  plateau: Plateau;
   below?: MeanFieldState;
   above?: MeanFieldState;
   seed: number;
   /** Edge tolerance in mu (units of g). */
   muTol: number;
+}
+
+/** The spectrum about a state already solved (a clicked map point): no second solve. */
+export interface StateSpectrumRequest {
+  params: ModelParams;
+  state: SolveResult;
+  /** Points along the zone path (default 129). */
+  points?: number;
+}
+
+/** The phase margin of one point (src/core/scan/phase-margin.ts), solved in a worker. */
+export interface PhaseMarginRequest extends PhaseMarginOptions {
+  params: ModelParams;
+}
+
+// ---- scans ----------------------------------------------------------------------------
+
+/**
+ * A map or a line: the plan's grid points, cut into row segments (src/core/scan/grid.ts),
+ * each solved in order on one worker with continuation. `order` changes only the order in
+ * which segments are handed out ('spread': rows coarse to fine, for a first picture),
+ * never an answer.
+ */
+export interface MapScanRequest {
+  kind: 'map';
+  plan: ScanPlan;
+  /** Only this part of an n-part job array. */
+  shard?: Shard;
+  /** Pass each state to the next point of its segment as a guess (default true). */
+  continuation?: boolean;
+  order?: 'rows' | 'spread';
+}
+
+/** The points of a map scan, ordered by index (failed points carry their error). */
+export interface MapScanResult {
+  points: ScanPoint[];
+}
+
+/** A mu line (plan.x is the mu axis, no y) and its plateaus, edges bisected to edgeTol unless gridEdges. */
+export interface StaircaseRequest {
+  kind: 'staircase';
+  plan: ScanPlan;
+  gridEdges?: boolean;
+  /** Edge tolerance of the bisection, units of g (default 1e-9). */
+  edgeTol?: number;
+}
+
+export interface StaircaseResult {
+  points: ScanPoint[];
+  plateaus: Plateau[];
+  /** Every plateau's edges were bisected (false with gridEdges or when a bisection failed). */
+  refined: boolean;
+  /** Why an edge bisection failed (the plateau keeps its grid edges). */
+  edgeErrors: string[];
+}
+
+/** How far a point is from the nearest change of phase along mu (one worker task). */
+export interface PhaseMarginScanRequest extends PhaseMarginRequest {
+  kind: 'phase-margin';
+}
+
+/** Soft-mode traces, one worker task a line request (the CLI's softlines, the map's overlays). */
+export interface SoftLinesScanRequest {
+  kind: 'soft-lines';
+  lines: SoftLineRequest[];
+}
+
+export interface SoftLinesScanResult {
+  results: SoftLineResult[];
+}
+
+/**
+ * Every scan kind: its request, its result, and what it streams while it runs. A new kind
+ * adds an entry here and a runner in workers/scans/ (see scan-driver.ts).
+ */
+export interface ScanKinds {
+  map: { request: MapScanRequest; result: MapScanResult; item: ScanPoint };
+  staircase: { request: StaircaseRequest; result: StaircaseResult; item: ScanPoint };
+  'phase-margin': { request: PhaseMarginScanRequest; result: PhaseMargin; item: never };
+  'soft-lines': { request: SoftLinesScanRequest; result: SoftLinesScanResult; item: { index: number; result: SoftLineResult } };
+}
+
+export type ScanKind = keyof ScanKinds;
+export type ScanRequest = ScanKinds[ScanKind]['request'];
+export type ScanResult<K extends ScanKind> = ScanKinds[K]['result'];
+export type ScanItem<K extends ScanKind> = ScanKinds[K]['item'];
+
+/** How a caller follows and bounds a scan (not part of the request: it changes no answer). */
+export interface ScanOptions<Item> {
+  signal?: AbortSignal;
+  /** Each finished item (a point, a traced line) as it arrives, in completion order. */
+  onItem?: (item: Item) => void;
+  /** Work done and the total (points, or tasks), after each piece. */
+  onProgress?: (done: number, total: number) => void;
+  /** Watchdog budget of one point in ms (a task gets this times its points; default 120 s). */
+  pointBudgetMs?: number;
+  /** Stream each point through a Comlink callback as it finishes (default: a segment at a time). */
+  streamPoints?: boolean;
+}
+
+// ---- quantum Monte Carlo (workers/api/qmc.ts, qmc-run.ts, qmc-scan.ts) -----------------
+
+export type { SseChainRequest, SseChainResult } from '../src/core/qmc/sse-chain.ts';
+export type { QmcRequest, QmcResult } from '../src/core/qmc/quantum-monte-carlo.ts';
+
+/** A QMC run's progress: chains done of the chains handed out so far, and the current batch. */
+export interface QmcProgress {
+  done: number;
+  total: number;
+  stage: 'grid' | 'refine' | 'measure';
+  beta: number;
+}
+
+/** Axes of a QMC line scan (workers/qmc-scan-plan.ts). */
+export type QmcAxisName = 'mu' | 'temperature' | 'detuning' | 'alpha' | 'rb' | 'v1';
+
+/** One QMC run per cluster size L (ring of L, or L x L) and axis value; `base.cluster` gives lattice and interaction. */
+export interface QmcScanRequest {
+  base: import('../src/core/qmc/quantum-monte-carlo.ts').QmcRequest;
+  sizes: number[];
+  axis: { name: QmcAxisName; values: number[] };
+  /** Only the points with index mod n = k - 1. */
+  shard?: { k: number; n: number };
+}
+
+/** A finished run of a scan: index = iSize * count + ix; its result, or why it failed. */
+export interface QmcScanPoint {
+  index: number;
+  size: number;
+  ix: number;
+  value: number;
+  result?: import('../src/core/qmc/quantum-monte-carlo.ts').QmcResult;
+  error?: string;
 }

@@ -6,6 +6,7 @@
 import type { SolveResult } from '../core/meanfield/ground-state.ts';
 import type { MeanFieldState } from '../core/meanfield/state.ts';
 import type { ModelParams } from '../core/model.ts';
+import { paramsJson } from '../core/scan/map-columns.ts';
 
 /** The limits of mean-field that apply to this state, as sentences. */
 export function stateNotes(p: ModelParams, s: MeanFieldState): string[] {
@@ -14,13 +15,6 @@ export function stateNotes(p: ModelParams, s: MeanFieldState): string[] {
     notes.push('in 1D no density wave survives at T > 0: mean-field overstates the order here (compare with vmc/ed)');
   }
   return notes;
-}
-
-/** The model parameters as JSON-safe data (an infinite range is left out). */
-export function paramsJson(p: ModelParams): ModelParams {
-  const interaction = { ...p.interaction };
-  if (interaction.rmax === Infinity) delete interaction.rmax;
-  return { ...p, interaction };
 }
 
 /** The JSON object `solve --json` prints. */

@@ -2,7 +2,7 @@
 // thread start-up): results in task order, streaming, the size bound, cancellation and
 // error passing. Invariant checks (common practice, no source).
 import { describe, expect, it } from 'vitest';
-import { MessageChannel } from 'node:worker_threads';
+import { MessageChannel, Worker } from 'node:worker_threads';
 import { expose, wrap } from 'comlink';
 import nodeEndpoint from 'comlink/dist/esm/node-adapter.mjs';
 import { WorkerPool, type EngineHandle } from '../../workers/pool.ts';
@@ -147,5 +147,84 @@ describe('worker pool', () => {
     expect(await pool.run([], (r, x: number) => r.square(x, 1))).toEqual([]);
     expect(stats.spawned).toBe(0);
     pool.close();
+  });
+});
+
+// A real worker thread that can spin: `spin` never returns (a busy loop in the thread),
+// `square` answers at once. Raw messages instead of Comlink keep the thread's code tiny.
+interface Spinner {
+  square(x: number): Promise<number>;
+  spin(): Promise<number>;
+}
+
+function spinnerSpawner() {
+  const stats = { spawned: 0, terminated: 0 };
+  const spawn = (): EngineHandle<Spinner> => {
+    stats.spawned++;
+    const w = new Worker(
+      `const { parentPort } = require('node:worker_threads');
+       parentPort.on('message', ({ id, op, x }) => {
+         if (op === 'spin') { for (;;) {} }
+         parentPort.postMessage({ id, value: x * x });
+       });`, { eval: true });
+    const waiting = new Map<number, (v: number) => void>();
+    let next = 0;
+    w.on('message', ({ id, value }: { id: number; value: number }) => waiting.get(id)?.(value));
+    const call = (op: string, x = 0) => new Promise<number>((resolve) => {
+      const id = next++;
+      waiting.set(id, resolve);
+      w.postMessage({ id, op, x });
+    });
+    const remote = { square: (x: number) => call('square', x), spin: () => call('spin') };
+    let alive = true;
+    return {
+      remote: remote as unknown as EngineHandle<Spinner>['remote'],
+      terminate() {
+        if (!alive) return;
+        alive = false;
+        stats.terminated++;
+        void w.terminate();
+      },
+    };
+  };
+  return { spawn, stats };
+}
+
+describe('worker pool watchdog', () => {
+  // Budgets of 300 ms against tasks that answer in well under 50 ms (a message round trip)
+  // or never: the margin is wide both ways on a loaded machine.
+  it('stops a task that spins past its budget, names it, and replaces the worker', async () => {
+    const { spawn, stats } = spinnerSpawner();
+    const pool = new WorkerPool(spawn, 1, { taskBudgetMs: 300 });
+    try {
+      const t0 = performance.now();
+      const run = pool.run([{ op: 'spin', label: 'the spinning input' }], (r) => r.spin());
+      await expect(run).rejects.toMatchObject({ name: 'TaskTimeoutError' });
+      await expect(run).rejects.toThrow(/budget of 0.3 s.*the spinning input/);
+      expect(performance.now() - t0).toBeLessThan(10_000);
+      expect(stats.terminated).toBe(1);
+      // the pool goes on with a fresh worker
+      expect(await pool.run([3, 4], (r, x) => r.square(x))).toEqual([9, 16]);
+      expect(stats.spawned).toBe(2);
+    } finally {
+      pool.close();
+    }
+  });
+
+  it('with recover, a spinning task yields its stand-in and the run finishes', async () => {
+    const { spawn, stats } = spinnerSpawner();
+    const pool = new WorkerPool(spawn, 2);
+    try {
+      const tasks = [2, -1, 5, 7];
+      const got = await pool.run(tasks, (r, x) => (x < 0 ? r.spin() : r.square(x)), {
+        budgetMs: 300,
+        describe: (x) => `task ${x}`,
+        recover: (e, i) => (e.name === 'TaskTimeoutError' && /task -1/.test(e.message) ? -100 - i : NaN),
+      });
+      expect(got).toEqual([4, -101, 25, 49]);
+      expect(stats.terminated).toBe(1);
+    } finally {
+      pool.close();
+    }
   });
 });

@@ -1,11 +1,20 @@
 /**
- * Mean-field method group of the engine worker: one point, or a run of points with
- * continuation (each state the next point's guess; see src/core/scan/grid.ts), and the
- * bisection of plateau edges.
+ * Mean-field method group of the engine worker: one point, a run of points with
+ * continuation (each solved state the next point's guess; see src/core/scan/grid.ts), the
+ * bisection of one plateau's edges, and a point's phase margin.
  */
 import { solveGroundState, type SolveResult } from '../../src/core/meanfield/ground-state.ts';
 import { refinePlateaus, type Plateau } from '../../src/core/meanfield/plateaus.ts';
-import type { PlateauEdgeRequest, PointCallback, SolveRequest, SolveRunRequest } from '../protocol.ts';
+import { phaseMargin, type PhaseMargin } from '../../src/core/scan/phase-margin.ts';
+import type {
+  PhaseMarginRequest, PlateauEdgeRequest, PointCallback, PointOutcome, SolveRequest, SolveRunRequest,
+} from '../protocol.ts';
+
+/** An error as one line for a scan row. */
+function reason(e: unknown): string {
+  const m = e instanceof Error ? e.message : String(e);
+  return m.replace(/\s*\n\s*/g, ' ').trim() || 'the point could not be solved';
+}
 
 export const meanfieldApi = {
   /** The ground state of one point (solveGroundState). */
@@ -15,17 +24,24 @@ export const meanfieldApi = {
 
   /**
    * Solve the points of a run in order; onPoint (a Comlink proxy) hears of each as it
-   * finishes. Returns every state, in order.
+   * finishes. A point that cannot be solved gets its error (one line) and the run goes
+   * on, the next point starting cold. Returns every outcome, in order.
    */
-  solveRun(req: SolveRunRequest, onPoint?: PointCallback<SolveResult>): SolveResult[] {
-    const out: SolveResult[] = [];
+  solveRun(req: SolveRunRequest, onPoint?: PointCallback<PointOutcome>): PointOutcome[] {
+    const out: PointOutcome[] = [];
     let prev: SolveResult | undefined;
     for (let i = 0; i < req.points.length; i++) {
-      const guess = req.continuation && prev ? prev : undefined;
-      const r = solveGroundState(req.points[i], { seed: req.seeds[i], guess });
+      const guess = req.continuation ? prev : undefined;
+      let r: PointOutcome;
+      try {
+        prev = solveGroundState(req.points[i], { seed: req.seeds[i], guess });
+        r = { state: prev };
+      } catch (e) {
+        prev = undefined;
+        r = { error: reason(e) };
+      }
       out.push(r);
       void onPoint?.(i, r);
-      prev = r;
     }
     return out;
   },
@@ -37,5 +53,11 @@ export const meanfieldApi = {
     delete base.rho;
     const solve = (mu: number) => solveGroundState({ ...base, mu }, { seed: req.seed });
     return refinePlateaus([req.plateau], around, req.base.maxCell, solve, req.muTol)[0];
+  },
+
+  /** How far the point is from the nearest change of phase along mu (phaseMargin). */
+  phaseMargin(req: PhaseMarginRequest): PhaseMargin {
+    const { params, ...o } = req;
+    return phaseMargin(params, o);
   },
 };

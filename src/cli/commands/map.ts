@@ -11,8 +11,8 @@ import { parseShard, scanFingerprint } from '../../core/scan/shards.ts';
 import { HELP_FLAG, type Command } from '../command.ts';
 import { bool, str, type FlagSpec } from '../flags.ts';
 import { MODEL_FLAGS, modelFromArgs, seedFromArgs } from '../model-flags.ts';
-import { mapCsv, mapJson, type MapHeader } from '../map-output.ts';
-import { runScan, SCAN_FLAGS, validatePlan } from '../scan-run.ts';
+import { mapCsv, mapHeader, mapJson } from '../map-output.ts';
+import { scanWithProgress, SCAN_FLAGS, validatePlan } from '../scan-run.ts';
 import { OUTPUT_FLAGS } from './solve.ts';
 import { finishOutput, OUT_FLAG } from './output.ts';
 
@@ -39,7 +39,9 @@ export const mapCommand: Command = {
     '(ix, iy, the axis values, then the state), or JSON with --json. The model flags fix\n' +
     'everything the axes do not.\n' +
     'For a cluster: run each of n parts with --shard k/n (k = 1..n) as one job of a job array,\n' +
-    'each with its own --out, then join the parts with merge. Ctrl-C writes the finished points.',
+    'each with its own --out, then join the parts with merge. Ctrl-C writes the finished points.\n' +
+    'A point that cannot be solved (or runs past --point-budget) is written with its reason in the\n' +
+    'error column (empty for solved points) and the other points are still computed.',
   flags: [...MAP_FLAGS, ...MODEL_FLAGS, ...SCAN_FLAGS, ...OUTPUT_FLAGS, HELP_FLAG],
   examples: [
     'map --x mu=-1:2.5:200 --y rb=1:2:100 --detuning 3 --out map.csv',
@@ -61,11 +63,8 @@ export const mapCommand: Command = {
     const shardText = str(args, 'shard');
     const shard = shardText ? parseShard(shardText) : undefined;
     validatePlan(plan);
-    const header: MapHeader = {
-      x, y, params: base, fixedDensity: base.rho !== undefined || axes.includes('density'),
-      shard: shard ? { ...shard, scan: scanFingerprint(plan), nx, ny } : null,
-    };
-    const out = await runScan(io, args, plan, shard ? `map ${shard.k}/${shard.n}` : 'map', shard, !bool(args, 'cold'));
+    const header = mapHeader(plan, shard ? { ...shard, scan: scanFingerprint(plan), nx, ny } : null);
+    const out = await scanWithProgress(io, args, plan, shard ? `map ${shard.k}/${shard.n}` : 'map', shard, !bool(args, 'cold'));
     const text = bool(args, 'json') ? mapJson(header, out.points, out.complete) : mapCsv(header, out.points);
     return finishOutput(io, args, text, out);
   },

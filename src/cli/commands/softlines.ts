@@ -12,9 +12,11 @@ import type { SoftLineRequest, SoftLineResult } from '../../core/softmode/soft-l
 import { HELP_FLAG, type Command } from '../command.ts';
 import { bool, num, str, type FlagSpec, type ParsedArgs } from '../flags.ts';
 import { MODEL_FLAGS, modelFromArgs } from '../model-flags.ts';
-import { paramsJson } from '../state-format.ts';
+import { paramsJson } from '../../core/scan/map-columns.ts';
 import { Progress } from '../progress.ts';
-import { SCAN_FLAGS, workerCount } from '../scan-run.ts';
+import { pointBudgetMs, SCAN_FLAGS, workerCount } from '../scan-run.ts';
+import { csvLine, type Cell } from '../../core/scan/csv.ts';
+import { runScan } from '../../../workers/scan-driver.ts';
 import { OUTPUT_FLAGS } from './solve.ts';
 import { finishOutput, OUT_FLAG } from './output.ts';
 import { interruptible } from '../io.ts';
@@ -43,7 +45,7 @@ export const softlinesCommand: Command = {
     'lines followed by continuation to --tol. Ranges share the strength of --rb (or --v1): vdw and\n' +
     'dipolar take Rb with V(Rb) = 2, nn takes V1 (or 2 Rb^6, the vdw value at r = 1). Prints CSV\n' +
     'rows range,phase,line,point,x,y,k (kx,ky in 2D),kind,jump or JSON with --json.',
-  flags: [...FLAGS, ...MODEL_FLAGS, ...SCAN_FLAGS.filter((f) => f.name === 'workers'), ...OUTPUT_FLAGS, HELP_FLAG],
+  flags: [...FLAGS, ...MODEL_FLAGS, ...SCAN_FLAGS.filter((f) => f.name !== 'cold'), ...OUTPUT_FLAGS, HELP_FLAG],
   examples: [
     'softlines --x mu=-1:0.9:9 --y rb=0.8:1.5:9 --detuning 1 --ranges nn,vdw:2,vdw:inf,dipolar --phases condensate',
     'softlines --x mu=-1.5:0.5:9 --y temperature=0:1:9 --rb 1 --detuning 1 --phases normal --json',
@@ -66,9 +68,9 @@ export const softlinesCommand: Command = {
     const progress = new Progress(io, 'softlines', tasks.length, 'lines');
     const done: (SoftLineResult | undefined)[] = new Array(tasks.length);
     const { complete } = await interruptible(io, workerCount(args, io, tasks.length), (pool, signal) =>
-      pool.run(tasks, (remote, t) => remote.spectrum.softLines(t), {
-        signal,
-        onResult: (r, i) => { done[i] = r; },
+      runScan(pool, { kind: 'soft-lines', lines: tasks }, {
+        signal, pointBudgetMs: pointBudgetMs(args),
+        onItem: ({ index, result }) => { done[index] = result; },
         onProgress: (d) => progress.update(d),
       }));
     const results = done.filter((r): r is SoftLineResult => r !== undefined);
@@ -100,15 +102,15 @@ export function parsePhases(names: string[], lat: string): FollowedPhase[] {
   });
 }
 
-/** One CSV row a line point. */
+/** One CSV row a line point (quoted by the one CSV writer: a phase such as crystal:1,0 stays one field). */
 export function softlinesCsv(results: SoftLineResult[], oneD: boolean): string {
   const head = oneD ? 'range,phase,line,point,x,y,k,kind,jump' : 'range,phase,line,point,x,y,kx,ky,kind,jump';
   const rows = [head];
-  const g = (v: number) => Number(v.toPrecision(12)).toString();
+  const g = (v: number) => Number(v.toPrecision(12));
   for (const r of results) {
     r.lines.forEach((L, li) => L.points.forEach((p, i) => {
-      const k = typeof p.k === 'number' ? g(p.k) : `${g(p.k[0])},${g(p.k[1])}`;
-      rows.push(`${r.range},${r.phase},${li},${i},${g(p.x)},${g(p.y)},${k},${p.kind},${p.jump ? 1 : 0}`);
+      const k: Cell[] = typeof p.k === 'number' ? [g(p.k)] : [g(p.k[0]), g(p.k[1])];
+      rows.push(csvLine([r.range, r.phase, li, i, g(p.x), g(p.y), ...k, p.kind, p.jump ? 1 : 0]));
     }));
   }
   return rows.join('\n') + '\n';

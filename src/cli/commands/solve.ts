@@ -25,7 +25,7 @@ export const solveCommand: Command = {
     'Energies are in units of the collective coupling g, lengths in the lattice spacing a.\n' +
     'With --density the chemical potential is solved for; inside a first-order jump the two\n' +
     'coexisting phases and their lever-rule fractions are reported.',
-  flags: [...MODEL_FLAGS, ...OUTPUT_FLAGS, { name: 'workers', kind: 'int', value: 'n', help: 'accepted for symmetry with the scans; one point runs in this process' }, HELP_FLAG],
+  flags: [...MODEL_FLAGS, ...OUTPUT_FLAGS, HELP_FLAG],
   examples: [
     'solve --lattice chain --interaction vdw --rb 1.5 --detuning 3 --mu 0.5',
     'solve --rb 1.5 --detuning 3 --density 0.4 --json',

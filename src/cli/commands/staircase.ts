@@ -6,20 +6,17 @@
  */
 import { InputError } from '../../core/input-error.ts';
 import { parseRange, rangeValues } from '../../core/scan/axes.ts';
-import type { ScanPlan } from '../../core/scan/grid.ts';
-import { findPlateaus, type Plateau } from '../../core/meanfield/plateaus.ts';
-import type { MeanFieldState } from '../../core/meanfield/state.ts';
+import type { ScanPlan, ScanPoint } from '../../core/scan/grid.ts';
+import { paramsJson } from '../../core/scan/map-columns.ts';
+import type { Plateau } from '../../core/meanfield/plateaus.ts';
+import { EDGE_TOL } from '../../../workers/scans/staircase-scan.ts';
 import { HELP_FLAG, type Command } from '../command.ts';
 import { bool, str, type FlagSpec, type ParsedArgs } from '../flags.ts';
-import { interruptible, type CliIo } from '../io.ts';
 import { MODEL_FLAGS, modelFromArgs, seedFromArgs } from '../model-flags.ts';
-import { runScan, SCAN_FLAGS, validatePlan, workerCount } from '../scan-run.ts';
-import { paramsJson, stateNotes } from '../state-format.ts';
+import { SCAN_FLAGS, staircaseWithProgress, validatePlan } from '../scan-run.ts';
+import { stateNotes } from '../state-format.ts';
 import { OUTPUT_FLAGS } from './solve.ts';
 import { finishOutput, OUT_FLAG } from './output.ts';
-
-/** Edge tolerance of the bisection (units of g). */
-export const EDGE_TOL = 1e-9;
 
 const STAIRCASE_FLAGS: readonly FlagSpec[] = [
   ...MODEL_FLAGS.filter((f) => f.name !== 'mu' && f.name !== 'density'),
@@ -38,7 +35,7 @@ export const staircaseCommand: Command = {
     'every sublattice empty or filled), each with its exact fraction p/q (q <= --max-cell), its\n' +
     `edges muLow, muHigh (bisected to ${EDGE_TOL} unless --grid-edges) and width. Empty and filled\n` +
     'appear as 0/1 and 1/1; "open" marks an edge at the end of the scan. --json prints\n' +
-    '{ "plateaus": [...], "points": [...] } with every scan state.',
+    '{ "plateaus": [...], "points": [...] } with every scan state (a failed point as { mu, error }).',
   flags: STAIRCASE_FLAGS,
   examples: [
     'staircase --mu=-0.5:2.5:400 --rb 1.6 --detuning 20',
@@ -52,49 +49,31 @@ export const staircaseCommand: Command = {
     const base = modelFromArgs(rest, ['mu']);
     const plan: ScanPlan = { base, x: { name: 'mu', ...range, values: rangeValues(range) }, seed: seedFromArgs(args) };
     validatePlan(plan);
-    const scan = await runScan(io, args, plan, 'staircase');
-    const states = scan.points.map((p) => p.state);
-    let plateaus: Plateau[] | null = null;
-    let complete = scan.complete;
-    if (complete) {
-      plateaus = findPlateaus(states, base.maxCell);
-      if (!bool(args, 'grid-edges') && plateaus.length > 0) {
-        const refined = await refine(io, args, plan, states, plateaus);
-        if (refined) plateaus = refined;
-        else complete = false;
-      }
-    }
+    const gridEdges = bool(args, 'grid-edges');
+    const { points, total, result } = await staircaseWithProgress(io, args, plan, gridEdges);
+    const complete = result !== null;
+    const plateaus = result?.plateaus ?? null;
+    for (const e of result?.edgeErrors ?? []) io.stderr(`staircase: an edge bisection failed, grid edges kept: ${e}\n`);
     const text = bool(args, 'json')
-      ? JSON.stringify({ complete, params: paramsJson(base), plateaus, points: states }) + '\n'
-      : staircaseText(plan, states, plateaus, !bool(args, 'grid-edges') && complete);
-    return finishOutput(io, args, text, { complete, points: scan.points, total: scan.total });
+      ? JSON.stringify({ complete, params: paramsJson(base), plateaus, points: points.map((p) => p.state ?? { mu: plan.x.values[p.ix], error: p.error }) }) + '\n'
+      : staircaseText(plan, points, plateaus, complete && (result?.refined ?? false));
+    return finishOutput(io, args, text, { complete, points, total });
   },
 };
-
-/** Bisect every plateau's edges in the pool; null when interrupted. */
-async function refine(io: CliIo, args: ParsedArgs, plan: ScanPlan, states: MeanFieldState[], plateaus: Plateau[]): Promise<Plateau[] | null> {
-  const sorted = [...states].sort((a, b) => a.mu - b.mu);
-  const r = await interruptible(io, workerCount(args, io, plateaus.length), (pool, signal) =>
-    pool.run(plateaus, (remote, plateau) => remote.meanfield.refinePlateau({
-      base: plan.base, plateau, seed: plan.seed, muTol: EDGE_TOL,
-      below: sorted.filter((s) => s.mu < plateau.muLow).pop(),
-      above: sorted.find((s) => s.mu > plateau.muHigh),
-    }), { signal }));
-  return r.complete ? r.value : null;
-}
 
 const f = (x: number) => Number(x.toPrecision(10)).toString();
 
 /** The plateau table for people. */
-function staircaseText(plan: ScanPlan, states: MeanFieldState[], plateaus: Plateau[] | null, refined: boolean): string {
+function staircaseText(plan: ScanPlan, points: ScanPoint[], plateaus: Plateau[] | null, refined: boolean): string {
   const x = plan.x;
   const head = `mu ${f(x.start)} .. ${f(x.stop)} in ${x.count} points; edges ${refined ? `bisected to ${EDGE_TOL}` : 'at grid points (within one step)'}\n`;
-  if (!plateaus) return head + `scan interrupted: ${states.length} of ${x.count} points finished, no plateaus computed\n`;
+  if (!plateaus) return head + `scan interrupted: ${points.length} of ${x.count} points finished, no plateaus computed\n`;
   const rows = plateaus.map((p) => [p.fraction, p.openLow ? `<= ${f(p.muLow)}` : f(p.muLow), p.openHigh ? `>= ${f(p.muHigh)}` : f(p.muHigh),
     p.openLow || p.openHigh ? `>= ${f(p.width)}` : f(p.width), String(p.points)]);
   const table = [['fraction', 'muLow', 'muHigh', 'width', 'points'], ...rows];
   const w = table[0].map((_, j) => Math.max(...table.map((r) => r[j].length)));
-  const notes = new Set(states.flatMap((s) => stateNotes(plan.base, s)));
+  const notes = new Set(points.flatMap((p) => (p.state ? stateNotes(plan.base, p.state) : [])));
+  const failed = points.filter((p) => p.error !== undefined).map((p) => `note: mu = ${f(x.values[p.ix])} could not be solved: ${p.error}\n`);
   return head + table.map((r) => r.map((c, j) => c.padEnd(w[j])).join('  ').trimEnd() + '\n').join('') +
-    (plateaus.length === 0 ? 'no plateau in this range\n' : '') + [...notes].map((n) => `note: ${n}\n`).join('');
+    (plateaus.length === 0 ? 'no plateau in this range\n' : '') + [...notes].map((n) => `note: ${n}\n`).join('') + failed.join('');
 }

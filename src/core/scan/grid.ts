@@ -10,6 +10,7 @@
  */
 import { InputError } from '../input-error.ts';
 import type { ModelParams } from '../model.ts';
+import type { SolveResult } from '../meanfield/ground-state.ts';
 import { applyAxis, type Axis } from './axes.ts';
 
 export interface ScanPlan {
@@ -20,6 +21,22 @@ export interface ScanPlan {
   y?: Axis;
   /** Base seed; point seeds are derived from it and the point index. */
   seed: number;
+}
+
+/**
+ * One point of a scan as it comes back: its place in the grid and either its state or,
+ * when it could not be solved, the reason (one line). A failed point never stops the
+ * others; it is written as a row with its error.
+ */
+export interface ScanPoint {
+  /** iy * nx + ix. */
+  index: number;
+  ix: number;
+  iy: number;
+  /** The solved state; absent when the point failed. */
+  state?: SolveResult;
+  /** Why the point could not be solved; absent when it was. */
+  error?: string;
 }
 
 /** A run of points ix0 .. ix0+length-1 of row iy. */
@@ -85,4 +102,21 @@ export function pointSeed(seed: number, index: number): number {
   let h = (Math.imul(seed | 0, 0x9e3779b1) ^ Math.imul(index + 1, 0x85ebca6b)) >>> 0;
   h = Math.imul(h ^ (h >>> 16), 0x7feb352d) >>> 0;
   return (h ^ (h >>> 15)) >>> 0;
+}
+
+/**
+ * The rows 0..ny-1 in coarse-to-fine order: the first and last row, then the multiples of
+ * each halved power-of-two stride not yet taken, so that after any prefix the rows done
+ * are spread evenly over the map (a first picture of the whole plane that sharpens).
+ */
+export function spreadRows(ny: number): number[] {
+  const out: number[] = [];
+  const taken = new Uint8Array(ny);
+  const take = (iy: number) => { if (!taken[iy]) { taken[iy] = 1; out.push(iy); } };
+  take(0);
+  take(ny - 1);
+  let s = 1;
+  while (s * 2 < ny) s *= 2;
+  for (; s >= 1; s /= 2) for (let iy = 0; iy < ny; iy += s) take(iy);
+  return out;
 }

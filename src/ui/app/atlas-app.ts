@@ -9,7 +9,7 @@ import { type AppState, type ModelKey, type SectionName, type ViewName, VIEWS, d
 import { decodeState, encodeState, queryHasState } from '../state/url-codec.ts';
 import { clearSession, loadSession, saveSession } from '../state/session-store.ts';
 import { type ParsedModel, parseModel } from '../model/model-inputs.ts';
-import { EngineClient } from '../engine/engine-client.ts';
+import { browserEngineClient } from '../engine/browser-engine.ts';
 import { sharedStyles } from './shared-styles.ts';
 import './model-form.ts';
 import '../views/phase-atlas-view.ts';
@@ -36,7 +36,7 @@ export class AtlasApp extends LitElement {
   declare state: AppState;
   /** The parsed form; while an entry is invalid params is null and the views keep their last result. */
   private parsed: ParsedModel;
-  readonly engine = new EngineClient(workerCount());
+  readonly engine = browserEngineClient(workerCount());
 
   constructor() {
     super();

@@ -1,50 +1,66 @@
 /**
- * Reactive controller of a phase-map scan: the grid of states, filled coarse to fine
- * (engine/refine-order.ts) by the scan workers, with progress, timing and cancellation.
- * A new run aborts the old one at once; the old map stays on screen until the new run
- * delivers its first points. Host updates are throttled so rendering never floods the
- * main thread while results stream in.
+ * Reactive controller of a phase-map scan: the grid of points, filled by the one scan
+ * driver (workers/scan-driver.ts, the CLI's path) in 'spread' order, rows coarse to fine,
+ * with progress, timing and cancellation. A new run aborts the old one at once; the old
+ * map stays on screen until the new run delivers its first points. Host updates are
+ * throttled so rendering never floods the main thread while results stream in.
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
 import type { ModelParams } from '../../core/model.ts';
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
-import { applyAxis, type Axis } from '../../core/scan/axes.ts';
-import { pointSeed } from '../../core/scan/grid.ts';
+import type { Axis } from '../../core/scan/axes.ts';
+import { gridPoint, pointSeed, spreadRows, type ScanPlan, type ScanPoint } from '../../core/scan/grid.ts';
 import { type EngineClient, isAbort } from '../engine/engine-client.ts';
-import { coarsestStride, paintingIndex, refineRuns, type PointRun } from '../engine/refine-order.ts';
 
 /** Seed of the page's scans (the CLI's default, so both give the same answers). */
 export const SCAN_SEED = 1;
 
+/** Rows of the first picture: the first rows of the spread order (about every eighth row). */
+const FIRST_ROWS = 9;
+
 export interface MapPlan { base: ModelParams; x: Axis; y: Axis }
 
-/** One scan's grid of results. */
+/** One scan's grid of points. */
 export class MapGrid {
   readonly nx: number;
   readonly ny: number;
-  readonly states: (SolveResult | undefined)[];
-  readonly done: Uint8Array;
-  readonly stride: number;
+  readonly points: (ScanPoint | undefined)[];
+  /** Points done per row. */
+  readonly rowCount: Uint32Array;
+  /** The plan as the driver runs it (with the page's seed). */
+  readonly scanPlan: ScanPlan;
   count = 0;
   constructor(readonly plan: MapPlan, readonly key: string) {
     this.nx = plan.x.count;
     this.ny = plan.y.count;
-    this.states = new Array(this.nx * this.ny);
-    this.done = new Uint8Array(this.nx * this.ny);
-    this.stride = coarsestStride(this.nx, this.ny);
+    this.points = new Array(this.nx * this.ny);
+    this.rowCount = new Uint32Array(this.ny);
+    this.scanPlan = { ...plan, seed: SCAN_SEED };
   }
   /** Parameters of point (ix, iy). */
   point(ix: number, iy: number): ModelParams {
-    return applyAxis(applyAxis(this.plan.base, this.plan.x.name, this.plan.x.values[ix]), this.plan.y.name, this.plan.y.values[iy]);
+    return gridPoint(this.scanPlan, ix, iy);
+  }
+  /** Seed of point (ix, iy), as the scan derives it. */
+  seed(ix: number, iy: number): number {
+    return pointSeed(SCAN_SEED, iy * this.nx + ix);
   }
   /** The computed state of (ix, iy) itself, if any. */
   own(ix: number, iy: number): SolveResult | undefined {
-    return this.states[iy * this.nx + ix];
+    return this.points[iy * this.nx + ix]?.state;
   }
-  /** The state that paints cell (ix, iy): its own or its coarser representative's. */
+  /** The state that paints cell (ix, iy): its own, or that of the nearest row done. */
   paint(ix: number, iy: number): SolveResult | undefined {
-    const i = paintingIndex(this.done, this.nx, this.ny, ix, iy, this.stride);
-    return i >= 0 ? this.states[i] : undefined;
+    for (let d = 0; d < this.ny; d++) {
+      for (const jy of d === 0 ? [iy] : [iy - d, iy + d]) {
+        if (jy >= 0 && jy < this.ny && this.rowCount[jy] === this.nx) return this.points[jy * this.nx + ix]?.state;
+      }
+    }
+    return this.own(ix, iy);
+  }
+  /** The points computed so far, in index order. */
+  done(): ScanPoint[] {
+    return this.points.filter((p): p is ScanPoint => p !== undefined);
   }
   get complete(): boolean { return this.count === this.nx * this.ny; }
 }
@@ -56,7 +72,9 @@ export class MapScanController implements ReactiveController {
   shown: MapGrid | null = null;
   status: 'idle' | 'running' | 'done' | 'cancelled' | 'error' = 'idle';
   error: string | null = null;
-  /** ms from start to the first complete coarse level, and to the last point. */
+  /** Points of the current grid that could not be solved. */
+  failed = 0;
+  /** ms from start to the first picture (the first rows of the spread order), and to the last point. */
   firstPictureMs: number | null = null;
   totalMs: number | null = null;
   /** performance.now() at the start of the current run. */
@@ -81,32 +99,25 @@ export class MapScanController implements ReactiveController {
     this.current = grid;
     this.status = 'running';
     this.error = null;
+    this.failed = 0;
     this.firstPictureMs = null;
     this.totalMs = null;
     this.t0 = performance.now();
     this.startedAt = this.t0;
     const ctrl = new AbortController();
     this.ctrl = ctrl;
-    const runs = refineRuns(grid.nx, grid.ny, 8);
-    const level0 = runs.filter((r) => r.level === 0).reduce((a, r) => a + r.indices.length, 0);
-    const deliver = (index: number, s: SolveResult) => {
-      if (ctrl.signal.aborted || grid.done[index]) return;
-      grid.states[index] = s;
-      grid.done[index] = 1;
+    const firstRows = spreadRows(grid.ny).slice(0, FIRST_ROWS);
+    const deliver = (pt: ScanPoint) => {
+      if (ctrl.signal.aborted || grid.points[pt.index]) return;
+      grid.points[pt.index] = pt;
+      grid.rowCount[pt.iy]++;
       grid.count++;
-      if (this.firstPictureMs === null && grid.count >= level0) this.firstPictureMs = performance.now() - this.t0;
+      if (pt.error !== undefined) this.failed++;
+      if (this.firstPictureMs === null && firstRows.every((iy) => grid.rowCount[iy] === grid.nx)) this.firstPictureMs = performance.now() - this.t0;
       if (this.shown !== grid) this.shown = grid;
       this.schedule();
     };
-    const exec = async (remote: Parameters<Parameters<EngineClient['scan']>[1]>[0], run: PointRun) => {
-      const points = run.indices.map((i) => grid.point(i % grid.nx, Math.floor(i / grid.nx)));
-      const seeds = run.indices.map((i) => pointSeed(SCAN_SEED, i));
-      // a run takes ~10 ms: its states come back together (a message per point would cost more than it shows)
-      const states = await remote.meanfield.solveRun({ points, seeds, continuation: true });
-      states.forEach((s, k) => deliver(run.indices[k], s));
-      return states.length;
-    };
-    this.engine().scan(runs, exec, { signal: ctrl.signal }).then(
+    this.finished = this.engine().scan({ kind: 'map', plan: grid.scanPlan, order: 'spread' }, { signal: ctrl.signal, onItem: deliver }).then(
       () => {
         if (this.ctrl !== ctrl) return;
         this.totalMs = performance.now() - this.t0;
@@ -124,6 +135,9 @@ export class MapScanController implements ReactiveController {
     );
     this.host.requestUpdate();
   }
+
+  /** Settles (never rejects) when the latest run ends, its state recorded (for scripts and tests). */
+  finished: Promise<void> = Promise.resolve();
 
   /** Stop the running scan; what has been computed stays. */
   cancel(): void {

@@ -2,7 +2,8 @@
  * Reactive controller of the soft-mode lines drawn over the map: for each ticked
  * interaction range, the lines where the uniform condensate's and the normal state's own
  * solutions first go unstable (src/core/softmode/soft-lines.ts), one pool task per range
- * and phase, traced from a seed grid by bisection and continuation over the map's plane.
+ * and phase (a 'soft-lines' scan of the one scan driver, as the CLI's softlines), traced
+ * from a seed grid by bisection and continuation over the map's plane.
  * The tasks queue behind the map's own, so the map comes first. A change of model, axes or
  * ticks aborts the old traces; lines already traced for unchanged inputs are kept.
  */
@@ -80,9 +81,9 @@ export class SoftLinesController implements ReactiveController {
     this.ctrl = ctrl;
     this.runningKey = runKey;
     this.status = `tracing ${todo.length} soft-mode line sets\u2026`;
-    this.engine().scan(todo, (remote, k) => remote.spectrum.softLines(k.t), {
+    this.engine().scan({ kind: 'soft-lines', lines: todo.map((k) => k.t) }, {
       signal: ctrl.signal,
-      onResult: (r, _i, k) => { this.results.set(k.key, r); this.host.requestUpdate(); },
+      onItem: ({ index, result }) => { this.results.set(todo[index].key, result); this.host.requestUpdate(); },
     }).then(() => {
       if (this.ctrl !== ctrl) return;
       this.ctrl = null;

@@ -1,28 +1,28 @@
 /**
  * The page's access to the engine: two instances of the shared worker pool
- * (workers/pool.ts, started by workers/browser-spawn.ts), the same worker code the CLI
- * runs. Scans (maps, staircases) go to the scan pool of navigator.hardwareConcurrency
- * workers; single interactive calls (a clicked point, its spectrum, a planner verdict)
- * go to a one-worker pool of their own so they never queue behind a long scan.
- * Every call takes an AbortSignal; aborting drops queued work and stops busy workers.
+ * (workers/pool.ts), the same worker code the CLI runs. Scans go through the one scan
+ * driver (workers/scan-driver.ts) on the scan pool; single interactive calls (a clicked
+ * point's spectrum, a planner verdict) go to a one-worker pool of their own so they never
+ * queue behind a long scan. Every call takes an AbortSignal; aborting drops queued work
+ * and stops busy workers.
+ *
+ * The client is environment-agnostic: it is given its pools, so the same code runs the
+ * page (browser-engine.ts starts Web Workers) and, in tests, Node worker threads.
  */
 import type { Remote } from 'comlink';
 import type { Engine } from '../../../workers/engine.ts';
-import { browserEnginePool } from '../../../workers/browser-spawn.ts';
 import type { WorkerPool } from '../../../workers/pool.ts';
+import { runScan } from '../../../workers/scan-driver.ts';
+import type { ScanItem, ScanKind, ScanKinds, ScanOptions, ScanResult } from '../../../workers/protocol.ts';
 
 export type EngineRemote = Remote<Engine>;
 
 export class EngineClient {
-  /** Workers for scans. */
-  readonly scanPool: WorkerPool<Engine>;
-  /** One worker for interactive single calls. */
-  readonly interactivePool: WorkerPool<Engine>;
-
-  constructor(scanWorkers = Math.max(1, navigator.hardwareConcurrency || 2)) {
-    this.scanPool = browserEnginePool(scanWorkers);
-    this.interactivePool = browserEnginePool(1);
-  }
+  /**
+   * @param scanPool workers for scans
+   * @param interactivePool one worker for interactive single calls
+   */
+  constructor(readonly scanPool: WorkerPool<Engine>, readonly interactivePool: WorkerPool<Engine>) {}
 
   /** Number of scan workers. */
   get workers(): number {
@@ -44,15 +44,14 @@ export class EngineClient {
     return r;
   }
 
-  /**
-   * Many tasks on the scan workers; each result streams to onResult as it finishes.
-   * Resolves with the results in task order.
-   */
-  scan<T, R>(
-    tasks: readonly T[], exec: (remote: EngineRemote, task: T) => Promise<R>,
-    o: { signal?: AbortSignal; onResult?: (r: R, i: number, t: T) => void; onProgress?: (done: number, total: number) => void; units?: (t: T) => number },
-  ): Promise<R[]> {
-    return this.scanPool.run(tasks, (remote, task) => exec(remote, task), o);
+  /** A scan (any kind of workers/protocol.ts) on the scan workers, through the one scan driver. */
+  scan<K extends ScanKind>(req: ScanKinds[K]['request'] & { kind: K }, o: ScanOptions<ScanItem<K>> = {}): Promise<ScanResult<K>> {
+    return runScan(this.scanPool, req, o);
+  }
+
+  /** A one-task scan (a phase margin) on the interactive worker, so it never waits behind a map. */
+  interactiveScan<K extends ScanKind>(req: ScanKinds[K]['request'] & { kind: K }, o: ScanOptions<ScanItem<K>> = {}): Promise<ScanResult<K>> {
+    return runScan(this.interactivePool, req, o);
   }
 
   /** Stop every worker (page unload, tests). */

@@ -1,17 +1,14 @@
 /**
  * "Copy as command": the command line that reproduces the current view with the
- * project's CLI (src/cli), so a bigger version can run on a cluster. Model entries map
- * one to one onto the CLI's model flags; entries a scan axis sets are left out (the CLI
- * refuses both). Values are quoted for a POSIX shell only where they need it.
+ * project's CLI (src/cli), so a bigger version can run on a cluster. The form's entries
+ * are the CLI's model flags (formEntries); entries a scan axis sets are left out by the
+ * shared axis table (AXIS_ENTRIES; the CLI refuses both). Values are quoted for a POSIX
+ * shell only where they need it.
  */
-import type { ModelInputs, ModelKey } from '../state/app-state.ts';
-import { activeKeys } from '../model/model-inputs.ts';
-
-/** Flags set by each scan axis. */
-const AXIS_FLAGS: Record<string, ModelKey[]> = {
-  rb: ['rb', 'v1'], v1: ['rb', 'v1'], mu: ['mu', 'density'], density: ['mu', 'density'],
-  detuning: ['detuning'], temperature: ['temperature'],
-};
+import type { ModelInputs } from '../state/app-state.ts';
+import { formEntries } from '../model/model-inputs.ts';
+import { AXIS_ENTRIES, type ModelEntry } from '../../core/scan/model-entries.ts';
+import type { AxisName } from '../../core/scan/axes.ts';
 
 /** Quote a word for sh when it holds anything but safe characters. */
 export function shellWord(w: string): string {
@@ -19,15 +16,12 @@ export function shellWord(w: string): string {
 }
 
 /** The model flags of the form, minus those the axes set. */
-export function modelFlags(m: ModelInputs, axes: string[] = []): string[] {
-  const skip = new Set<ModelKey>(['strength', 'pump']);
-  for (const a of axes) for (const f of AXIS_FLAGS[a] ?? []) skip.add(f);
+export function modelFlags(m: ModelInputs, axes: readonly AxisName[] = []): string[] {
+  const skip = new Set<ModelEntry>(axes.flatMap((a) => AXIS_ENTRIES[a]));
   const out: string[] = [];
-  for (const k of activeKeys(m)) {
-    if (skip.has(k)) continue;
-    const v = m[k].trim();
-    if (v === '') continue;
-    if (k === 'v2' && Number(v) === 0) continue;
+  for (const [k, text] of Object.entries(formEntries(m)) as [ModelEntry, string][]) {
+    const v = text.trim();
+    if (skip.has(k) || v === '' || (k === 'v2' && Number(v) === 0)) continue;
     out.push(`--${k}`, v);
   }
   return out;

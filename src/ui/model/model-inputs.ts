@@ -1,13 +1,16 @@
 /**
- * From the form's strings to the engine's ModelParams, checking as the user types.
- * Each entry is parsed on its own first (so the message sits beside the field that is
- * wrong), then the whole model goes through the core's validateModel and
- * resolvePotential, whose InputError names the field (mu >= delta, a missing Rb, ...).
+ * From the form's strings to the engine's ModelParams, checking as the user types. The
+ * form's fields carry the CLI's flag names, so the entries go through the same parser as
+ * the flags (src/core/scan/model-entries.ts): every problem sits beside its field. Then
+ * the whole model goes through the core's validateModel and resolvePotential, whose
+ * InputError names the field (mu >= delta, a missing Rb, ...).
  */
 import { InputError } from '../../core/input-error.ts';
 import { type ModelParams, validateModel } from '../../core/model.ts';
-import { lattice as latticeOf, type LatticeName } from '../../core/lattice/geometry.ts';
-import { type InteractionSpec, type InteractionShape, resolvePotential } from '../../core/interaction/potential.ts';
+import { lattice as latticeOf } from '../../core/lattice/geometry.ts';
+import { resolvePotential } from '../../core/interaction/potential.ts';
+import { AXIS_ENTRIES, parseEntryNumber, parseModelEntries, type ModelEntries, type ModelEntry } from '../../core/scan/model-entries.ts';
+import type { AxisName } from '../../core/scan/axes.ts';
 import type { ModelInputs, ModelKey } from '../state/app-state.ts';
 
 export type FieldErrors = Partial<Record<ModelKey, string>>;
@@ -18,11 +21,7 @@ export interface ParsedModel {
 }
 
 /** Parse a number as typed ("1e-3", "-2", " 3 "); NaN for anything else. */
-export function parseNumber(text: string): number {
-  const t = text.trim().replace('\u2212', '-');
-  if (t === '' || !/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(t)) return NaN;
-  return Number(t);
-}
+export const parseNumber = parseEntryNumber;
 
 /** The InputError field names the core uses, mapped to the form's keys. */
 const FIELD_OF: Record<string, ModelKey> = {
@@ -30,19 +29,6 @@ const FIELD_OF: Record<string, ModelKey> = {
   mu: 'mu', density: 'density', 'max-cell': 'max-cell', cell: 'max-cell', rb: 'rb', v1: 'v1', v2: 'v2',
   v0: 'v0', rc: 'rc', range: 'range',
 };
-
-/** The interaction spec the form describes (numbers unchecked). */
-export function interactionOf(m: ModelInputs, overrideRange?: string): InteractionSpec {
-  const shape = m.interaction as InteractionShape;
-  const rangeText = (overrideRange ?? m.range).trim().toLowerCase();
-  const rmax = rangeText === '' || rangeText === 'inf' ? undefined : parseNumber(rangeText);
-  switch (shape) {
-    case 'nn': return { shape, V1: parseNumber(m.v1), V2: parseNumber(m.v2 || '0'), rmax };
-    case 'softcore': return { shape, V0: parseNumber(m.v0), Rc: parseNumber(m.rc), rmax };
-    default:
-      return m.strength === 'v1' ? { shape, V1: parseNumber(m.v1), rmax } : { shape, Rb: parseNumber(m.rb), rmax };
-  }
-}
 
 /** The entries a model of this shape and pump actually uses. */
 export function activeKeys(m: ModelInputs): ModelKey[] {
@@ -54,34 +40,46 @@ export function activeKeys(m: ModelInputs): ModelKey[] {
   return keys;
 }
 
+/**
+ * The form as entries of the shared parser: the active fields only (the strength and pump
+ * choices pick which), with an empty optional field (V2, range) left out as on the command line.
+ */
+export function formEntries(m: ModelInputs): ModelEntries {
+  const e: ModelEntries = {};
+  for (const k of activeKeys(m)) {
+    if (k === 'strength' || k === 'pump') continue;
+    if ((k === 'v2' || k === 'range') && m[k].trim() === '') continue;
+    e[k as ModelEntry] = m[k];
+  }
+  return e;
+}
+
 /** Parse and validate the form. */
 export function parseModel(m: ModelInputs): ParsedModel {
-  const errors: FieldErrors = {};
-  const numeric: ModelKey[] = ['rb', 'v1', 'v2', 'v0', 'rc', 'detuning', 'mu', 'density', 'temperature', 'max-cell'];
-  const active = activeKeys(m);
-  for (const k of numeric) {
-    if (!active.includes(k)) continue;
-    if (k === 'v2' && m.v2.trim() === '') continue;
-    if (!Number.isFinite(parseNumber(m[k]))) errors[k] = m[k].trim() === '' ? 'a number is needed here' : `"${m[k]}" is not a number`;
+  const r = parseModelEntries(formEntries(m));
+  if (!r.params) {
+    const errors: FieldErrors = {};
+    for (const p of r.problems) errors[FIELD_OF[p.field]] ??= p.message;
+    return { params: null, errors };
   }
-  const r = m.range.trim().toLowerCase();
-  if (r !== '' && r !== 'inf' && !(parseNumber(r) > 0)) errors.range = 'range must be a distance > 0 (in a), or empty for the full sum';
-  if (Object.keys(errors).length) return { params: null, errors };
-  const params: ModelParams = {
-    lattice: m.lattice as LatticeName,
-    interaction: interactionOf(m),
-    delta: parseNumber(m.detuning),
-    T: parseNumber(m.temperature),
-    maxCell: parseNumber(m['max-cell']),
-    ...(m.pump === 'density' ? { rho: parseNumber(m.density) } : { mu: parseNumber(m.mu) }),
-  };
   try {
-    validateModel(params);
-    resolvePotential(params.interaction, latticeOf(params.lattice));
+    validateModel(r.params);
+    resolvePotential(r.params.interaction, latticeOf(r.params.lattice));
   } catch (e) {
     if (!(e instanceof InputError)) throw e;
     const key = FIELD_OF[e.field ?? ''] ?? (m.pump === 'density' ? 'density' : 'mu');
     return { params: null, errors: { [key]: e.message } };
   }
-  return { params, errors };
+  return { params: r.params, errors: {} };
+}
+
+/**
+ * The base of a scan over `axes`: the form's entries without those the axes set, parsed as
+ * the CLI parses its flags for the same scan (so the page's plan, and the params in its
+ * export, are the CLI's). Null while an entry is wrong.
+ */
+export function scanBase(m: ModelInputs, axes: readonly AxisName[]): ModelParams | null {
+  const e = formEntries(m);
+  for (const a of axes) for (const k of AXIS_ENTRIES[a]) delete e[k];
+  return parseModelEntries(e, { axes }).params;
 }

@@ -14,7 +14,7 @@ import type { LatticeName } from '../../core/lattice/geometry.ts';
 import type { ModelParams } from '../../core/model.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
 import { EngineTask } from '../controllers/engine-task.ts';
-import { type PhaseMargin, phaseMargin } from '../engine/phase-margin.ts';
+import type { PhaseMargin } from '../../core/scan/phase-margin.ts';
 import { sharedStyles } from '../app/shared-styles.ts';
 import { cliLine } from '../export/cli-command.ts';
 import type { Table } from '../export/table.ts';
@@ -88,7 +88,8 @@ export class ArrayPlannerView extends LitElement {
     if (!model || !this.engine) return;
     const p = this.params(model);
     if (!(model.mu < model.delta)) return;
-    this.verdict.run(JSON.stringify(p), (signal) => phaseMargin(this.engine, p, signal));
+    // the bisection runs in a worker (a 'phase-margin' scan), not on the page's thread
+    this.verdict.run(JSON.stringify(p), (signal) => this.engine.interactiveScan({ kind: 'phase-margin', params: p }, { signal }));
   }
 
   private useInModel(m: ModelNumbers) {

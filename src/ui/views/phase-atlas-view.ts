@@ -6,20 +6,19 @@
  */
 import { HostWidthController } from '../controllers/host-width.ts';
 import { LitElement, html, css, nothing } from 'lit';
-import type { ParsedModel } from '../model/model-inputs.ts';
+import { scanBase, type ParsedModel } from '../model/model-inputs.ts';
 import type { AppState, ModelInputs } from '../state/app-state.ts';
 import { AXIS_NAMES, type AxisName, parseAxis, type Axis } from '../../core/scan/axes.ts';
 import { checkAxes } from '../../core/scan/grid.ts';
 import { InputError } from '../../core/input-error.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
-import { MapScanController, SCAN_SEED, type MapGrid } from '../controllers/map-scan.ts';
-import { pointSeed } from '../../core/scan/grid.ts';
+import { MapScanController, type MapGrid } from '../controllers/map-scan.ts';
+import { mapExportJson, mapExportTable } from '../export/map-export.ts';
 import { phaseMapFigure, type MapShade } from '../figures/phase-map-figure.ts';
 import { AXIS_LABELS, AXIS_SYMBOLS } from '../model/axis-labels.ts';
 import { PHASE_NAMES } from '../plot/phase-palette.ts';
 import { sharedStyles } from '../app/shared-styles.ts';
 import { cliLine, modelFlags } from '../export/cli-command.ts';
-import type { Table } from '../export/table.ts';
 import { SoftLinesController, SOFT_RANGES } from '../controllers/soft-lines.ts';
 import '../app/figure-panel.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
@@ -70,8 +69,20 @@ export class PhaseAtlasView extends LitElement {
     this.dispatchEvent(new CustomEvent('section-change', { detail: { section: 'atlas', patch: p }, bubbles: true, composed: true }));
   }
 
-  /** The axes as typed, or null with the reasons kept in axisErrors. */
+  private axesKey = '';
+  private axesValue: { x: Axis; y: Axis } | null = null;
+
+  /** The axes as typed (parsed again only when their text changes), or null with the reasons in axisErrors. */
   private axes(): { x: Axis; y: Axis } | null {
+    const key = `${this.section.x}|${this.section.y}`;
+    if (key !== this.axesKey) {
+      this.axesKey = key;
+      this.axesValue = this.parseAxes();
+    }
+    return this.axesValue;
+  }
+
+  private parseAxes(): { x: Axis; y: Axis } | null {
     this.axisErrors = {};
     let x: Axis | undefined, y: Axis | undefined;
     try { x = parseAxis(this.section.x, 'x'); } catch (e) { this.axisErrors.x = (e as Error).message; }
@@ -85,12 +96,19 @@ export class PhaseAtlasView extends LitElement {
   }
 
   private updateStart = 0;
+  private lastInputs: readonly unknown[] | null = null;
 
   override willUpdate() {
     this.updateStart = performance.now();
     const axes = this.axes();
     if (!axes || !this.model.params || !this.engine) return; // invalid: the last map stays
-    const plan = { base: this.model.params, x: axes.x, y: axes.y };
+    // a pointer move re-renders with the same inputs: nothing to restart or re-key
+    const inputs = [this.model.params, axes, this.section.lines] as const;
+    if (this.lastInputs && inputs.every((v, i) => v === this.lastInputs![i]) && this.scan.status !== 'cancelled') return;
+    this.lastInputs = inputs;
+    const base = scanBase(this.inputs, [axes.x.name, axes.y.name]);
+    if (!base) return;
+    const plan = { base, x: axes.x, y: axes.y };
     this.scan.run(plan, JSON.stringify(plan));
     this.soft.update(this.model.params, axes.x, axes.y, this.section.lines);
   }
@@ -126,41 +144,6 @@ export class PhaseAtlasView extends LitElement {
     if (!s) return html`${where}: not computed yet`;
     return html`${where}: <strong class="readout-phase">${PHASE_NAMES[s.phase]}${s.fraction ? ' ' + s.fraction : ''}</strong>,
       \u03c1 = ${fmt(s.excitationDensity)}, \u03b1\u00b2 = ${fmt(s.photonDensity)}, M = ${s.cellSize}${own ? '' : ' (coarse preview)'}`;
-  }
-
-  /**
-   * The computed points in index order, with the columns of the CLI's `map` CSV (ix, iy,
-   * the axis values, the state; lists space-separated), so the two files can be compared.
-   */
-  private table(g: MapGrid): Table {
-    const { x, y } = g.plan;
-    const fixedDensity = g.plan.base.rho !== undefined || x.name === 'density' || y.name === 'density';
-    const withMu = x.name !== 'mu' && y.name !== 'mu';
-    const columns = ['ix', 'iy', x.name, y.name, 'phase', 'fraction', 'cellSize', 'cell', 'alpha', 'photonDensity',
-      'emitterDensity', 'excitationDensity', 'grandPotential', ...(withMu ? ['mu'] : []), 'sublatticeDensities', 'sublatticeCoherences',
-      ...(fixedDensity ? ['coexistLowFraction', 'coexistLowDensity', 'coexistHighDensity'] : [])];
-    const rows: Table['rows'] = [];
-    for (let iy = 0; iy < g.ny; iy++) for (let ix = 0; ix < g.nx; ix++) {
-      const s = g.own(ix, iy);
-      if (!s) continue;
-      const c = s.coexistence;
-      rows.push([ix, iy, x.values[ix], y.values[iy], s.phase, s.fraction ?? '', s.cellSize, `${s.cell.a} ${s.cell.b} ${s.cell.c}`,
-        s.alpha, s.photonDensity, s.emitterDensity, s.excitationDensity, s.grandPotential, ...(withMu ? [s.mu] : []),
-        s.sublatticeDensities.join(' '), s.sublatticeCoherences.join(' '),
-        ...(fixedDensity ? [c ? c.fractions[0] : '', c ? c.phases[0].excitationDensity : '', c ? c.phases[1].excitationDensity : ''] : [])]);
-    }
-    return { columns, rows };
-  }
-
-  /** The map as the CLI's `map --json` writes it. */
-  private json(g: MapGrid) {
-    const { x, y } = g.plan;
-    const points: Record<string, unknown>[] = [];
-    for (let iy = 0; iy < g.ny; iy++) for (let ix = 0; ix < g.nx; ix++) {
-      const s = g.own(ix, iy);
-      if (s) points.push({ ix, iy, [x.name]: x.values[ix], [y.name]: y.values[iy], ...s });
-    }
-    return { shard: null, complete: g.complete, x, y, params: g.plan.base, seed: SCAN_SEED, points };
   }
 
   private axisControl(which: 'x' | 'y') {
@@ -211,7 +194,7 @@ export class PhaseAtlasView extends LitElement {
     const fig = g ? this.fig : null;
     const cmdAxes = g ? [g.plan.x.name, g.plan.y.name] : [];
     const command = cliLine('map', [...modelFlags(this.inputs, cmdAxes), '--x', this.section.x, '--y', this.section.y]);
-    const selParams = g && sel ? (() => { const [ix, iy] = this.cellAt(g, sel[0], sel[1]); return { p: g.point(ix, iy), seed: pointSeed(SCAN_SEED, iy * g.nx + ix) }; })() : null;
+    const selParams = g && sel ? (() => { const [ix, iy] = this.cellAt(g, sel[0], sel[1]); return { p: g.point(ix, iy), seed: g.seed(ix, iy), state: g.own(ix, iy) }; })() : null;
     return html`
       <div class="controls">
         ${this.axisControl('x')} ${this.axisControl('y')}
@@ -234,6 +217,7 @@ export class PhaseAtlasView extends LitElement {
         ${running ? html`<button class="cancel" @click=${() => this.scan.cancel()}>Cancel</button>` : nothing}
         ${!running && this.scan.status === 'cancelled' ? html`<button @click=${() => { if (this.scan.current) this.scan.run(this.scan.current.plan, this.scan.current.key + ' again'); }}>Resume (recompute)</button>` : nothing}
         ${this.scan.error ? html`<span class="err" role="alert">${this.scan.error}</span>` : nothing}
+        ${this.scan.failed ? html`<span class="err failed">${this.scan.failed} point${this.scan.failed === 1 ? '' : 's'} could not be solved (blank; the reason is in the export's error column)</span>` : nothing}
         ${!this.model.params ? html`<span class="err stale">The model has an invalid entry: showing the last good map.</span>` : nothing}
       </div>
       <figure-panel class="map" interactive .figure=${fig} .cursor=${this.hover} ?busy=${running}
@@ -244,9 +228,9 @@ export class PhaseAtlasView extends LitElement {
       </figure-panel>
       <div class="readout" aria-live="polite" aria-label="Readout under the cursor">${g ? this.readout(g) : 'Waiting for the first points\u2026'}</div>
       <limits-note lattice=${this.model.params?.lattice ?? this.inputs.lattice} temperature=${this.model.params?.T ?? 0}></limits-note>
-      ${g ? html`<data-export class="map-export" .table=${() => this.table(g)} .json=${() => this.json(g)} .rows=${g.count}
+      ${g ? html`<data-export class="map-export" .table=${() => mapExportTable(g)} .json=${() => mapExportJson(g)} .rows=${g.count}
         name="phase-map" .command=${command}></data-export>` : nothing}
-      ${selParams && sel ? html`<point-detail .params=${selParams.p} .seed=${selParams.seed} .engine=${this.engine} .width=${w}
+      ${selParams && sel ? html`<point-detail .params=${selParams.p} .seed=${selParams.seed} .state=${selParams.state ?? null} .engine=${this.engine} .width=${w}
           label="${AXIS_SYMBOLS[g!.plan.x.name]} = ${fmt(sel[0])}, ${AXIS_SYMBOLS[g!.plan.y.name]} = ${fmt(sel[1])}"
           .command=${cliLine('solve', [...modelFlags(this.inputs, cmdAxes), ...axisFlags(g!.plan.x.name, sel[0]), ...axisFlags(g!.plan.y.name, sel[1]), '--seed', String(selParams.seed), '--json'])}
           @point-close=${() => this.patch({ point: '' })}></point-detail>` : nothing}

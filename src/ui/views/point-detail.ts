@@ -1,8 +1,9 @@
 /**
  * <point-detail>: one point of the map opened: its sublattice pattern drawn on the
- * lattice, its numbers, and its fluctuation spectrum. The state is solved again on the
- * interactive worker with the map's seed for the point (the same answer as the map,
- * available before the map reaches it), the spectrum computed about it.
+ * lattice, its numbers, and its fluctuation spectrum. The state is the map's own when the
+ * map has reached the point (`state`); otherwise it is solved once on the interactive
+ * worker with the map's seed for the point (cold, as the first point of a segment). The
+ * spectrum is computed about that state, never solving it again.
  */
 import { LitElement, html, css, nothing } from 'lit';
 import type { ModelParams } from '../../core/model.ts';
@@ -22,10 +23,12 @@ const fmtK = (k: number | [number, number]) => (typeof k === 'number' ? k.toFixe
 
 export class PointDetail extends LitElement {
   static override properties = {
-    params: { attribute: false }, seed: { type: Number }, label: { type: String }, engine: { attribute: false },
+    params: { attribute: false }, state: { attribute: false }, seed: { type: Number }, label: { type: String }, engine: { attribute: false },
     width: { type: Number }, command: { type: String },
   };
   declare params: ModelParams | null;
+  /** The map's state of the point, when it has one (then nothing is solved here). */
+  declare state: SolveResult | null;
   declare seed: number;
   declare label: string;
   declare engine: EngineClient;
@@ -37,6 +40,7 @@ export class PointDetail extends LitElement {
   constructor() {
     super();
     this.params = null;
+    this.state = null;
     this.seed = 1;
     this.label = '';
     this.width = 560;
@@ -51,11 +55,17 @@ export class PointDetail extends LitElement {
   `];
 
   override willUpdate(changed: Map<string, unknown>) {
-    if ((changed.has('params') || changed.has('seed')) && this.params && this.engine) {
-      const req = { params: this.params, seed: this.seed };
-      this.task.run(JSON.stringify(req), (signal) => this.engine.call((r) => r.meanfield.solve(req), signal));
-      const sreq = { ...req, points: 65 };
-      this.spectrum.run(JSON.stringify(sreq), (signal) => this.engine.call((r) => r.spectrum.spectrum(sreq), signal));
+    if (!this.params || !this.engine) return;
+    if (changed.has('params') || changed.has('seed') || changed.has('state')) {
+      const params = this.params, given = this.state;
+      const req = { params, seed: this.seed };
+      // the key is the point alone: the map's state arriving later does not solve again
+      this.task.run(JSON.stringify(req), (signal) => (given ? Promise.resolve(given) : this.engine.call((r) => r.meanfield.solve(req), signal)));
+    }
+    const s = this.task.status === 'complete' ? this.task.value : undefined;
+    if (s && this.task.valueKey === JSON.stringify({ params: this.params, seed: this.seed })) {
+      const sreq = { params: this.params, state: s, points: 65 };
+      this.spectrum.run(JSON.stringify([this.task.valueKey, 65]), (signal) => this.engine.call((r) => r.spectrum.spectrumOfState(sreq), signal));
     }
   }
 

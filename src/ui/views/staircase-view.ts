@@ -9,15 +9,13 @@ import { LitElement, html, css, nothing } from 'lit';
 import type { AppState, ModelInputs } from '../state/app-state.ts';
 import type { ParsedModel } from '../model/model-inputs.ts';
 import { parseRange, rangeValues } from '../../core/scan/axes.ts';
-import { findPlateaus, type Plateau } from '../../core/meanfield/plateaus.ts';
+import type { Plateau } from '../../core/meanfield/plateaus.ts';
+import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import type { ModelParams } from '../../core/model.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
-import { LineScansController } from '../controllers/line-scans.ts';
-import { EngineTask } from '../controllers/engine-task.ts';
+import { StaircaseScansController, type StaircaseSeries as ScanSeries } from '../controllers/staircase-scans.ts';
 import { SCAN_SEED } from '../controllers/map-scan.ts';
-
-/** Plateau edge tolerance of the bisection (units of g), the CLI's default. */
-const EDGE_TOL = 1e-9;
+import { EDGE_TOL } from '../../../workers/scans/staircase-scan.ts';
 import { plateauLabel, staircaseFigure, type StaircaseSeries } from '../figures/staircase-figure.ts';
 import { sharedStyles } from '../app/shared-styles.ts';
 import { cliLine, modelFlags } from '../export/cli-command.ts';
@@ -43,9 +41,7 @@ export class StaircaseView extends LitElement {
   declare model: ParsedModel;
   declare inputs: ModelInputs;
   declare engine: EngineClient;
-  private scans = new LineScansController(this, () => this.engine);
-  /** Plateau edges bisected to 1e-9 (as the CLI's staircase does), per series. */
-  private refined = new EngineTask<Plateau[][]>(this);
+  private scans = new StaircaseScansController(this, () => this.engine);
   private rangeError: string | null = null;
   private size = new HostWidthController(this);
 
@@ -71,44 +67,25 @@ export class StaircaseView extends LitElement {
   }
 
   override willUpdate() {
-    this.refine();
     const p = this.model.params;
     this.rangeError = null;
     let r;
     try { r = parseRange(this.section.mu, 'mu'); } catch (e) { this.rangeError = (e as Error).message; return; }
     if (!p || !this.engine) return;
     if (r.count < 2 || r.count > 5000) { this.rangeError = 'mu: count must be 2..5000'; return; }
-    const mus = rangeValues(r).filter((m) => m < p.delta);
-    if (mus.length < 2) { this.rangeError = `mu must stay below the detuning ${p.delta}`; return; }
-    const series = this.ranges(p).map((rmax) => {
-      const { rho: _rho, ...base } = p;
+    if (!(Math.max(r.start, r.stop) < p.delta)) { this.rangeError = `mu must stay below the detuning ${p.delta} (the photon number is unbounded above it)`; return; }
+    const series: ScanSeries[] = this.ranges(p).map((rmax) => {
+      const { rho: _rho, mu: _mu, ...base } = p;
       const interaction = { ...p.interaction };
       if (rmax === undefined) delete interaction.rmax; else interaction.rmax = rmax;
-      return { label: rangeLabel(rmax), points: mus.map((mu) => ({ ...base, interaction, mu })) };
+      return { label: rangeLabel(rmax), plan: { base: { ...base, interaction }, x: { name: 'mu', ...r, values: rangeValues(r) }, seed: SCAN_SEED } };
     });
-    this.scans.run(JSON.stringify(series.map((s) => s.points[0]).concat([{ mus } as never])), series);
+    this.scans.run(JSON.stringify(series), series);
   }
 
   override updated() {
     this.dataset.scan = this.scans.status;
-    this.dataset.refined = this.refined.status === 'complete' && this.refined.valueKey === this.scans.value?.key ? 'yes' : 'no';
-  }
-
-  /** Once a scan is complete, bisect its plateau edges on the scan workers. */
-  private refine() {
-    const v = this.scans.value;
-    if (v && this.scans.status === 'done') {
-      const maxCell = v.series[0].points[0].maxCell;
-      this.refined.run(v.key, (signal) => Promise.all(v.series.map((s) => {
-        const sorted = [...s.states].sort((a, b) => a.mu - b.mu);
-        const plateaus = findPlateaus(s.states, maxCell);
-        const { mu: _mu, ...base } = s.points[0];
-        return this.engine.scan(plateaus, (remote, plateau) => remote.meanfield.refinePlateau({
-          base: { ...base, mu: sorted[0].mu }, plateau, seed: SCAN_SEED, muTol: EDGE_TOL,
-          below: sorted.filter((x) => x.mu < plateau.muLow).pop(), above: sorted.find((x) => x.mu > plateau.muHigh),
-        }), { signal });
-      })));
-    }
+    this.dataset.refined = this.scans.status === 'done' && this.scans.value?.series.every((s) => s.result.refined) ? 'yes' : 'no';
   }
 
   private plateauTable(s: StaircaseSeries[]): Table {
@@ -119,17 +96,23 @@ export class StaircaseView extends LitElement {
 
   override render() {
     const v = this.scans.value;
-    const maxCell = this.model.params?.maxCell ?? 12;
-    const refined = v && this.refined.valueKey === v.key ? this.refined.value : undefined;
-    const series: StaircaseSeries[] = v ? v.series.map((s, i) => ({
-      label: s.label, mu: s.states.map((x) => x.mu), rho: s.states.map((x) => x.excitationDensity),
-      filling: s.states.map((x) => x.emitterDensity), plateaus: refined?.[i] ?? findPlateaus(s.states, maxCell),
-    })) : [];
+    const refined = v?.series.every((s) => s.result.refined) ?? false;
+    const solved = (s: { result: { points: { state?: SolveResult }[] } }) => s.result.points.map((x) => x.state).filter((x): x is SolveResult => !!x);
+    const series: StaircaseSeries[] = v ? v.series.map((s) => {
+      const states = solved(s);
+      return {
+        label: s.label, mu: states.map((x) => x.mu), rho: states.map((x) => x.excitationDensity),
+        filling: states.map((x) => x.emitterDensity), plateaus: s.result.plateaus,
+      };
+    }) : [];
     const w = Math.max(340, Math.min(this.size.width, 1100));
-    const fig = series.length ? staircaseFigure(series[0], series[1] ?? null, v!.series[0].points[0].delta, w, Math.round(Math.min(480, Math.max(300, w * 0.5)))) : null;
+    const fig = series.length ? staircaseFigure(series[0], series[1] ?? null, v!.series[0].plan.base.delta, w, Math.round(Math.min(480, Math.max(300, w * 0.5)))) : null;
     const pts: Table = {
-      columns: ['range', 'mu', 'phase', 'fraction', 'excitationDensity', 'emitterDensity', 'photonDensity', 'cellSize'],
-      rows: v ? v.series.flatMap((s) => s.states.map((x) => [s.label, x.mu, x.phase, x.fraction ?? '', x.excitationDensity, x.emitterDensity, x.photonDensity, x.cellSize])) : [],
+      columns: ['range', 'mu', 'phase', 'fraction', 'excitationDensity', 'emitterDensity', 'photonDensity', 'cellSize', 'error'],
+      rows: v ? v.series.flatMap((s) => s.result.points.map((pt) => {
+        const x = pt.state;
+        return [s.label, s.plan.x.values[pt.ix], x?.phase, x?.fraction ?? '', x?.excitationDensity, x?.emitterDensity, x?.photonDensity, x?.cellSize, pt.error ?? ''];
+      })) : [],
     };
     const p = this.model.params;
     const cmds = p ? this.ranges(p).map((rmax) => cliLine('staircase', [...modelFlags({ ...this.inputs, range: rmax === undefined ? '' : String(rmax) }, ['mu']), `--mu=${this.section.mu}`, '--json'])) : [];
@@ -151,10 +134,10 @@ export class StaircaseView extends LitElement {
       <p class="muted">Plateaus are read from the solutions: no condensate and every sublattice empty or full, the fraction from the
         cell's integer occupation confirmed by continued fractions with denominators \u2264 Mmax.
         ${refined ? html`Edges bisected to ${EDGE_TOL} g.` : html`Edges at the grid (within one step ${series.length ? `= ${fmt((series[0].mu.at(-1)! - series[0].mu[0]) / Math.max(1, series[0].mu.length - 1))} g` : ''});
-          ${this.refined.status === 'pending' ? 'bisecting\u2026' : ''}`}</p>
+          ${this.scans.status === 'running' ? 'scanning and bisecting\u2026' : ''}`}</p>
       <div class="tables">${series.map((s) => this.widths(s))}</div>
       <limits-note lattice=${p?.lattice ?? this.inputs.lattice} temperature=${p?.T ?? 0}></limits-note>
-      ${v ? html`<data-export class="points-export" .table=${pts} .json=${{ series: series.map((s, i) => ({ label: s.label, plateaus: s.plateaus, points: v.series[i].states })) }}
+      ${v ? html`<data-export class="points-export" .table=${pts} .json=${{ series: series.map((s, i) => ({ label: s.label, plateaus: s.plateaus, points: v.series[i].result.points.map((pt) => pt.state ?? { error: pt.error }) })) }}
         name="staircase" .command=${cmds.join('\n')}></data-export>
         <h3>Plateau table</h3>
         <data-export class="plateau-export" .table=${this.plateauTable(series)} .json=${this.plateauTable(series)} name="plateaus"></data-export>` : nothing}

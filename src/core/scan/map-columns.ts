@@ -1,0 +1,110 @@
+/**
+ * The one table of a map's output columns, serving the CLI's CSV and JSON and the page's
+ * export alike (so the two files of one map are byte for byte the same):
+ *
+ *   ix, iy, <x axis>, [<y axis>], phase, fraction, cellSize, cell, alpha, photonDensity,
+ *   emitterDensity, excitationDensity, grandPotential, [mu], sublatticeDensities,
+ *   sublatticeCoherences, [coexistLowFraction, coexistLowDensity, coexistHighDensity], error
+ *
+ * mu appears only when no axis holds it; the coexistence columns only for fixed density.
+ * Lists (sublattice densities, coherences, the cell's Hermite normal form a b c) are
+ * space-separated inside one field. A point that could not be solved has empty state
+ * fields and its reason in `error`; a solved point has an empty `error`.
+ */
+import type { ModelParams } from '../model.ts';
+import type { SolveResult } from '../meanfield/ground-state.ts';
+import type { Axis } from './axes.ts';
+import type { ScanPlan, ScanPoint } from './grid.ts';
+import type { ShardMeta } from './merge.ts';
+import { toCSV, type Cell, type Table } from './csv.ts';
+
+/** What fixes a map's columns and its file header. */
+export interface MapHeader {
+  x: Axis;
+  y?: Axis;
+  params: ModelParams;
+  /** Set for one shard's output: the file then starts with the shard tag line. */
+  shard: ShardMeta | null;
+  /** The plan fixes the density (a density axis or rho in the base): coexistence columns. */
+  fixedDensity: boolean;
+}
+
+/** The header of a plan's map (or of one shard of it). */
+export function mapHeader(plan: ScanPlan, shard: ShardMeta | null = null): MapHeader {
+  const fixedDensity = plan.base.rho !== undefined || plan.x.name === 'density' || plan.y?.name === 'density';
+  return { x: plan.x, y: plan.y, params: plan.base, shard, fixedDensity };
+}
+
+/** First words of a shard's tag line (merge reads it back). */
+export const SHARD_TAG = '# blockade-atlas map';
+
+type Column = [name: string, value: (s: SolveResult) => Cell];
+
+const list = (xs: number[]) => xs.map(String).join(' ');
+
+/** The state columns of a map, in order. */
+function stateColumns(h: MapHeader): Column[] {
+  const cols: Column[] = [
+    ['phase', (s) => s.phase], ['fraction', (s) => s.fraction ?? ''], ['cellSize', (s) => s.cellSize],
+    ['cell', (s) => `${s.cell.a} ${s.cell.b} ${s.cell.c}`], ['alpha', (s) => s.alpha],
+    ['photonDensity', (s) => s.photonDensity], ['emitterDensity', (s) => s.emitterDensity],
+    ['excitationDensity', (s) => s.excitationDensity], ['grandPotential', (s) => s.grandPotential],
+  ];
+  // with a mu axis the axis column already holds mu
+  if (h.x.name !== 'mu' && h.y?.name !== 'mu') cols.push(['mu', (s) => s.mu]);
+  cols.push(['sublatticeDensities', (s) => list(s.sublatticeDensities)], ['sublatticeCoherences', (s) => list(s.sublatticeCoherences)]);
+  if (h.fixedDensity) {
+    cols.push(
+      ['coexistLowFraction', (s) => s.coexistence?.fractions[0] ?? ''],
+      ['coexistLowDensity', (s) => s.coexistence?.phases[0].excitationDensity ?? ''],
+      ['coexistHighDensity', (s) => s.coexistence?.phases[1].excitationDensity ?? ''],
+    );
+  }
+  return cols;
+}
+
+/** The column names of a map, in order. */
+export function mapColumns(h: MapHeader): string[] {
+  return ['ix', 'iy', h.x.name, ...(h.y ? [h.y.name] : []), ...stateColumns(h).map(([n]) => n), 'error'];
+}
+
+/** The points (in the order given) as a table with the map's columns. */
+export function mapTable(h: MapHeader, points: readonly ScanPoint[]): Table {
+  const cols = stateColumns(h);
+  const rows = points.map((pt): Cell[] => [
+    pt.ix, pt.iy, h.x.values[pt.ix], ...(h.y ? [h.y.values[pt.iy]] : []),
+    ...cols.map(([, f]) => (pt.state ? f(pt.state) : '')), pt.error ?? '',
+  ]);
+  return { columns: mapColumns(h), rows };
+}
+
+/** The shard tag line (with its line end), or '' outside a shard. */
+export function shardTag(m: ShardMeta | null): string {
+  return m ? `${SHARD_TAG} shard=${m.k}/${m.n} scan=${m.scan} nx=${m.nx} ny=${m.ny}\n` : '';
+}
+
+/** The CSV of a map (or of one shard, or of the finished part of one). */
+export function mapCsv(h: MapHeader, points: readonly ScanPoint[]): string {
+  return shardTag(h.shard) + toCSV(mapTable(h, points));
+}
+
+/** The model parameters as JSON-safe data (an infinite range is left out). */
+export function paramsJson(p: ModelParams): ModelParams {
+  const interaction = { ...p.interaction };
+  if (interaction.rmax === Infinity) delete interaction.rmax;
+  return { ...p, interaction };
+}
+
+/** One point as a JSON object: ix, iy, the axis values, then the state's fields or its error. */
+export function mapJsonPoint(h: MapHeader, pt: ScanPoint): Record<string, unknown> {
+  return {
+    ix: pt.ix, iy: pt.iy, [h.x.name]: h.x.values[pt.ix], ...(h.y ? { [h.y.name]: h.y.values[pt.iy] } : {}),
+    ...(pt.state ?? {}), ...(pt.error !== undefined ? { error: pt.error } : {}),
+  };
+}
+
+/** The JSON document of a map: { shard, complete, x, y, params, points }. */
+export function mapJson(h: MapHeader, points: readonly ScanPoint[], complete: boolean): string {
+  const pts = points.map((pt) => mapJsonPoint(h, pt));
+  return JSON.stringify({ shard: h.shard, complete, x: h.x, y: h.y ?? null, params: paramsJson(h.params), points: pts }) + '\n';
+}
