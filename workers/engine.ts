@@ -9,6 +9,7 @@ import type { EngineInfo } from './protocol.ts';
 import { meanfieldApi } from './api/meanfield.ts';
 import { correlatedApi } from './api/correlated.ts';
 import { spectrumApi } from './api/spectrum.ts';
+import { qmcApi } from './api/qmc.ts';
 
 // proxy() marks each group so Comlink's types give remote.group.method(...) as a call
 // (at run time Comlink walks the property path either way).
@@ -16,6 +17,7 @@ const groups = {
   meanfield: proxy(meanfieldApi),
   correlated: proxy(correlatedApi),
   spectrum: proxy(spectrumApi),
+  qmc: proxy(qmcApi),
 };
 
 export const engine = {
