@@ -207,38 +207,3 @@ export interface QmcScanPoint {
   result?: import('../src/core/qmc/quantum-monte-carlo.ts').QmcResult;
   error?: string;
 }
-
-// ---- quantum Monte Carlo (workers/api/qmc.ts, qmc-run.ts, qmc-scan.ts) -----------------
-
-export type { SseChainRequest, SseChainResult } from '../src/core/qmc/sse-chain.ts';
-export type { QmcRequest, QmcResult } from '../src/core/qmc/quantum-monte-carlo.ts';
-
-/** A QMC run's progress: chains done of the chains handed out so far, and the current batch. */
-export interface QmcProgress {
-  done: number;
-  total: number;
-  stage: 'grid' | 'refine' | 'measure';
-  beta: number;
-}
-
-/** Axes of a QMC line scan (workers/qmc-scan-plan.ts). */
-export type QmcAxisName = 'mu' | 'temperature' | 'detuning' | 'alpha' | 'rb' | 'v1';
-
-/** One QMC run per cluster size L (ring of L, or L x L) and axis value; `base.cluster` gives lattice and interaction. */
-export interface QmcScanRequest {
-  base: import('../src/core/qmc/quantum-monte-carlo.ts').QmcRequest;
-  sizes: number[];
-  axis: { name: QmcAxisName; values: number[] };
-  /** Only the points with index mod n = k - 1. */
-  shard?: { k: number; n: number };
-}
-
-/** A finished run of a scan: index = iSize * count + ix; its result, or why it failed. */
-export interface QmcScanPoint {
-  index: number;
-  size: number;
-  ix: number;
-  value: number;
-  result?: import('../src/core/qmc/quantum-monte-carlo.ts').QmcResult;
-  error?: string;
-}
