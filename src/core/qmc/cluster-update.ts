@@ -9,10 +9,13 @@
  * one leg in the cluster turns from constant into flip or back (both weigh alpha), so the
  * weight changes only through the diagonal operators inside:
  *   R = prod_{b in cluster} W_b(1 - n_i, 1 - n_j) / W_b(n_i, n_j),
- * and each cluster is flipped with probability min(1, R). The decomposition into clusters
- * does not depend on the spins, so the flips are independent Metropolis moves.
+ * and each cluster is flipped with the heat-bath probability R / (1 + R) (1/2 for symmetric
+ * weights, as in the Swendsen-Wang flips of the transverse-field Ising model; Metropolis
+ * would flip every cluster of ratio 1, which only reverses all spins at once). The
+ * decomposition into clusters does not depend on the spins, so the flips are independent.
  */
-import { type SseConfig, BOND, CONST, EMPTY, FIELD, FLIP } from './operator-string.ts';
+import type { SseConfig } from './operator-string.ts';
+import { SLOT } from './slots.ts';
 import type { SseTerms } from './sse-terms.ts';
 import type { VertexLinks } from './vertex-links.ts';
 
@@ -21,12 +24,15 @@ export interface ClusterScratch {
   queue: Int32Array;
 }
 
+// Slot kinds as local constants: imported bindings cost a check on every read in hot loops.
+const { BOND: SLOT_BOND, CONST: SLOT_CONST, EMPTY: SLOT_EMPTY, FIELD: SLOT_FIELD, FLIP: SLOT_FLIP } = SLOT;
+
 /** Scratch storage for strings of up to L slots. */
 export function clusterScratch(L: number): ClusterScratch {
   return { visited: new Uint8Array(4 * L), queue: new Int32Array(4 * L) };
 }
 
-/** Build every cluster once and flip each with probability min(1, R); returns the number flipped. */
+/** Build every cluster once and flip each with probability R / (1 + R); returns the number flipped. */
 export function clusterUpdate(c: SseConfig, t: SseTerms, v: VertexLinks, s: ClusterScratch, rng: () => number): number {
   if (s.visited.length < 4 * c.L) { s.visited = new Uint8Array(4 * c.L); s.queue = new Int32Array(4 * c.L); }
   const { visited, queue } = s;
@@ -38,18 +44,18 @@ export function clusterUpdate(c: SseConfig, t: SseTerms, v: VertexLinks, s: Clus
   for (let start = 0; start < L4; start++) {
     if (visited[start]) continue;
     const k0 = kind[start >> 2];
-    if (k0 === EMPTY || (k0 !== BOND && (start & 1) === 1)) continue;
+    if (k0 === SLOT_EMPTY || (k0 !== SLOT_BOND && (start & 1) === 1)) continue;
     let head = 0, tail = 0, ratio = 1;
     // Enter leg w: a diagonal operator joins whole (all its legs, its weight ratio once),
     // a site operator with this leg only.
     for (let w = start; ;) {
       const q = w >> 2, kq = kind[q];
-      if (kq === BOND) {
+      if (kq === SLOT_BOND) {
         const b = 4 * cls[q], base = 4 * q, si = spin[base], sj = spin[base + 1];
         ratio *= bondW[b + 3 - 2 * si - sj] / bondW[b + 2 * si + sj];
         visited[base] = visited[base + 1] = visited[base + 2] = visited[base + 3] = 1;
         queue[tail++] = base; queue[tail++] = base + 1; queue[tail++] = base + 2; queue[tail++] = base + 3;
-      } else if (kq === FIELD) {
+      } else if (kq === SLOT_FIELD) {
         const base = 4 * q, si = spin[base];
         ratio *= fieldW[1 - si] / fieldW[si];
         visited[base] = visited[base + 2] = 1;
@@ -66,13 +72,13 @@ export function clusterUpdate(c: SseConfig, t: SseTerms, v: VertexLinks, s: Clus
       }
       if (w < 0) break;
     }
-    if (ratio >= 1 || rng() < ratio) {
+    if (rng() * (1 + ratio) < ratio) {
       flipped++;
       for (let h = 0; h < tail; h++) {
         const w = queue[h], q = w >> 2;
         spin[w] ^= 1;
         const kq = kind[q];
-        if (kq === CONST) kind[q] = FLIP; else if (kq === FLIP) kind[q] = CONST;
+        if (kq === SLOT_CONST) kind[q] = SLOT_FLIP; else if (kq === SLOT_FLIP) kind[q] = SLOT_CONST;
       }
     }
   }

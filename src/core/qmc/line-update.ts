@@ -13,7 +13,8 @@
  * operator string otherwise lacks. A line without any operator is free (R = 1) and is set
  * to either occupation with probability 1/2.
  */
-import { type SseConfig, CONST, FIELD, FLIP } from './operator-string.ts';
+import type { SseConfig } from './operator-string.ts';
+import { SLOT } from './slots.ts';
 import type { SseTerms } from './sse-terms.ts';
 import type { VertexLinks } from './vertex-links.ts';
 
@@ -21,6 +22,9 @@ export interface LineScratch {
   line: Int32Array;
   cuts: Int32Array;
 }
+
+// Slot kinds as local constants: imported bindings cost a check on every read in hot loops.
+const { CONST: SLOT_CONST, FIELD: SLOT_FIELD, FLIP: SLOT_FLIP } = SLOT;
 
 /** Scratch storage for lines of up to L vertices. */
 export function lineScratch(L: number): LineScratch {
@@ -30,7 +34,7 @@ export function lineScratch(L: number): LineScratch {
 /** W(with the site on leg v flipped) / W for the diagonal operator owning below leg v. */
 function legRatio(c: SseConfig, t: SseTerms, spin: Uint8Array, v: number): number {
   const q = v >> 2;
-  if (c.kind[q] === FIELD) return t.fieldW[1 - spin[v]] / t.fieldW[spin[v]];
+  if (c.kind[q] === SLOT_FIELD) return t.fieldW[1 - spin[v]] / t.fieldW[spin[v]];
   const b = 4 * c.cls[q], si = spin[4 * q], sj = spin[4 * q + 1];
   const fi = (v & 1) === 0 ? 1 - si : si, fj = (v & 1) === 0 ? sj : 1 - sj;
   return t.bondW[b + 2 * fi + fj] / t.bondW[b + 2 * si + sj];
@@ -49,7 +53,7 @@ export function lineUpdate(c: SseConfig, t: SseTerms, v: VertexLinks, s: LineScr
     for (let w = f; ;) {
       if (m >= s.line.length) { s.line = grow(s.line); s.cuts = grow(s.cuts); }
       const k = kind[w >> 2];
-      if (k === CONST || k === FLIP) s.cuts[nc++] = m;
+      if (k === SLOT_CONST || k === SLOT_FLIP) s.cuts[nc++] = m;
       s.line[m++] = w;
       w = link[w + 2];
       if (w === f) break;
@@ -71,8 +75,8 @@ export function lineUpdate(c: SseConfig, t: SseTerms, v: VertexLinks, s: LineScr
       if (!(ratio >= 1 || rng() < ratio)) continue;
       for (let h = (start + 1) % m; h !== end; h = (h + 1) % m) { spin[line[h]] ^= 1; spin[line[h] + 2] ^= 1; }
       const ps = line[start] >> 2, pe = line[end] >> 2;
-      spin[line[start] + 2] ^= 1; kind[ps] = kind[ps] === CONST ? FLIP : CONST;
-      spin[line[end]] ^= 1; kind[pe] = kind[pe] === CONST ? FLIP : CONST;
+      spin[line[start] + 2] ^= 1; kind[ps] = kind[ps] === SLOT_CONST ? SLOT_FLIP : SLOT_CONST;
+      spin[line[end]] ^= 1; kind[pe] = kind[pe] === SLOT_CONST ? SLOT_FLIP : SLOT_CONST;
       accepted++;
     }
   }

@@ -19,8 +19,9 @@
 import { aliasDraw } from './alias-table.ts';
 import type { SseTerms } from './sse-terms.ts';
 
-/** Slot contents. Constant and flip site operators trade places in the off-diagonal updates. */
-export const EMPTY = 0, CONST = 1, FLIP = 2, BOND = 3, FIELD = 4;
+import { SLOT } from './slots.ts';
+
+const { EMPTY, CONST, FLIP, BOND, FIELD } = SLOT;
 
 export interface SseConfig {
   readonly N: number;

@@ -8,7 +8,7 @@
  * jackknife estimates (qmc-estimates.ts). A chain is fixed by its seed and chain
  * index (seedrandom's Alea stream) and runs the same on any worker.
  */
-import { chainStream } from '../vmc/random-stream.ts';
+import { sweepStream } from './xoshiro-stream.ts';
 import type { ClusterSpec } from '../cluster/spec.ts';
 import { type QmcGeometry } from './qmc-geometry.ts';
 import { densityFourier, type DensityFourier } from './density-fourier.ts';
@@ -68,7 +68,7 @@ export interface SseChainHooks {
 export function runSseChain(req: SseChainRequest, g: QmcGeometry, hooks: SseChainHooks = {}, fourier: DensityFourier = densityFourier(g)): SseChainResult {
   const { beta, alpha, bins } = req;
   const N = g.N, K = fourier.K;
-  const rng = chainStream(req.seed, req.chain).next;
+  const rng = sweepStream(req.seed, req.chain);
   const terms = sseTerms(g.couplings, req.mu, alpha);
   const state = new Uint8Array(N);
   for (let i = 0; i < N; i++) state[i] = rng() < 0.5 ? 1 : 0;

@@ -9,7 +9,8 @@
  * (sse-sample.ts): the operators, the flip operators, and sum_p N(p), sum_p N(p)^2 over the
  * excitation numbers N(p) of the propagated states.
  */
-import { type SseConfig, EMPTY, BOND, FLIP } from './operator-string.ts';
+import type { SseConfig } from './operator-string.ts';
+import { SLOT } from './slots.ts';
 
 export interface VertexLinks {
   link: Int32Array;
@@ -22,6 +23,9 @@ export interface VertexLinks {
   /** Counts of the last pass: operators, flips, N at p = 0, sum_p N(p), sum_p N(p)^2. */
   readonly counts: { operators: number; flips: number; start: number; sum: number; sum2: number };
 }
+
+// Slot kinds as local constants: imported bindings cost a check on every read in hot loops.
+const { EMPTY: SLOT_EMPTY, BOND: SLOT_BOND, FLIP: SLOT_FLIP } = SLOT;
 
 /** Storage for N sites and L slots. */
 export function vertexLinks(N: number, L: number): VertexLinks {
@@ -48,14 +52,14 @@ export function linkVertices(c: SseConfig, v: VertexLinks): VertexLinks {
   };
   for (let p = 0; p < c.L; p++) {
     const k = kind[p];
-    if (k === EMPTY) continue;
+    if (k === SLOT_EMPTY) continue;
     const v0 = 4 * p, i = siteA[p];
     operators++; sum += Ncur; sum2 += Ncur * Ncur;
     spin[v0] = current[i];
-    if (k === FLIP) { flips++; Ncur += current[i] ? -1 : 1; current[i] ^= 1; }
+    if (k === SLOT_FLIP) { flips++; Ncur += current[i] ? -1 : 1; current[i] ^= 1; }
     spin[v0 + 2] = current[i];
     connect(i, v0, v0 + 2);
-    if (k === BOND) {
+    if (k === SLOT_BOND) {
       const j = siteB[p];
       spin[v0 + 1] = spin[v0 + 3] = current[j];
       connect(j, v0 + 1, v0 + 3);
