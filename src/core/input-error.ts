@@ -17,3 +17,17 @@ export function requireFinite(x: number, field: string): number {
   }
   return x;
 }
+
+/**
+ * Refuse mu >= delta (or a non-finite mu or delta): the photon term (delta - mu) a^dag a of
+ * K is then unbounded below and the photon number runs away (DESIGN.md, "Model and
+ * conventions"). The one place this check and its message live. Returns delta - mu > 0.
+ */
+export function requireBelowDetuning(mu: number, delta: number): number {
+  requireFinite(mu, 'mu');
+  requireFinite(delta, 'detuning');
+  if (!(mu < delta)) {
+    throw new InputError(`mu = ${mu} must be below the detuning ${delta}: for mu >= delta the photon number is unbounded`, 'mu');
+  }
+  return delta - mu;
+}

@@ -4,7 +4,7 @@
  * hbar = k_B = 1. Detuning delta is the cavity frequency minus the emitter line; mu is the
  * excitation chemical potential measured from the emitter line.
  */
-import { InputError, requireFinite } from './input-error.ts';
+import { InputError, requireBelowDetuning, requireFinite } from './input-error.ts';
 import { LATTICE_NAMES, type LatticeName, lattice } from './lattice/geometry.ts';
 import { type InteractionSpec, resolvePotential } from './interaction/potential.ts';
 
@@ -47,11 +47,7 @@ export function validateModel(p: ModelParams): void {
   const hasMu = p.mu !== undefined, hasRho = p.rho !== undefined;
   if (hasMu === hasRho) throw new InputError('give exactly one of mu (chemical potential) or density', 'mu');
   if (hasMu) {
-    requireFinite(p.mu as number, 'mu');
-    if ((p.mu as number) >= p.delta) {
-      throw new InputError(
-        `mu = ${p.mu} must be below the detuning ${p.delta}: for mu >= delta the photon number is unbounded`, 'mu');
-    }
+    requireBelowDetuning(p.mu as number, p.delta);
   } else {
     requireFinite(p.rho as number, 'density');
     if (!((p.rho as number) >= 0)) throw new InputError(`density must be >= 0, got ${p.rho}`, 'density');

@@ -6,7 +6,7 @@
  * Observables of the ground vector: density, <sigma^x>, per-site densities, S(k) on the
  * cluster momenta, C(r) on the distance shells.
  */
-import { InputError, requireFinite } from '../input-error.ts';
+import { InputError, requireBelowDetuning, requireFinite } from '../input-error.ts';
 import type { Cluster } from '../cluster/cluster.ts';
 import { type ClusterSpec, buildCluster } from '../cluster/spec.ts';
 import { type CorrelationPoint, type StructureFactorPoint, densityCorrelation, densityWaveOrder, structureFactor } from '../cluster/correlations.ts';
@@ -63,12 +63,7 @@ export function exactDiagonalisation(req: EdRequest, cluster: Cluster = buildClu
   if (req.alpha === undefined && req.delta === undefined) {
     throw new InputError('give alpha (a fixed photon amplitude) or the detuning (alpha found self-consistently)', 'alpha');
   }
-  if (req.delta !== undefined) {
-    requireFinite(req.delta, 'detuning');
-    if (mu >= req.delta) {
-      throw new InputError(`mu = ${mu} must be below the detuning ${req.delta}: for mu >= delta the photon number is unbounded`, 'mu');
-    }
-  }
+  if (req.delta !== undefined) requireBelowDetuning(mu, req.delta);
   const sys = edSystem(cluster, mu, req.blockade, req.symmetric ?? true);
   let g: GroundState, evaluations = 1;
   if (req.alpha !== undefined) g = groundState(sys, req.alpha);

@@ -9,7 +9,7 @@
  * alpha, so e may have more than one local minimum (a first-order jump): a grid scan of the
  * bracket picks the lowest, Brent's method refines it, and alpha = 0 is compared exactly.
  */
-import { InputError } from '../input-error.ts';
+import { requireBelowDetuning } from '../input-error.ts';
 import { boundedMinimum } from './bounded-minimum.ts';
 import { type EdSystem, type GroundState, groundState } from './exact-ground-state.ts';
 
@@ -26,10 +26,7 @@ export interface SelfConsistentGround {
 
 /** Minimise e(alpha) on [0, 1/(2(delta - mu))]; `scan` grid intervals before refinement. */
 export function selfConsistentGround(sys: EdSystem, delta: number, scan = 8): SelfConsistentGround {
-  const gap = delta - sys.mu;
-  if (!(gap > 0)) {
-    throw new InputError(`mu = ${sys.mu} must be below the detuning ${delta}: for mu >= delta the photon number is unbounded`, 'mu');
-  }
+  const gap = requireBelowDetuning(sys.mu, delta);
   const N = sys.cluster.N, aMax = 1 / (2 * gap);
   let warm: Float64Array | undefined;
   let evaluations = 0;

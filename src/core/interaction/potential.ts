@@ -57,6 +57,24 @@ const NO_RANGE = Infinity;
 export const MAX_RANGE = { chain: 1e5, plane: 200 } as const;
 
 /**
+ * Largest |V1|, |V2|, |V0| or power-law strength C (units of g) taken: 1e100. A blockade is
+ * complete once V exceeds every other energy (m ~ 1/V), so nothing physical changes beyond
+ * ~1e3, while the solvers multiply V up to three times (Hessians, stability matrices)
+ * and 1e300 is the end of double precision: V1 = 1e308 overflowed and hung a shift loop.
+ * For vdw this is rb < 3.7e16, for dipolar rb < 3.7e33.
+ */
+export const MAX_STRENGTH = 1e100;
+
+/** Refuse a strength beyond MAX_STRENGTH, naming the flag. */
+function strength(x: number, field: string, what = field): number {
+  if (Number.isNaN(x)) requireFinite(x, field);
+  if (!(Math.abs(x) <= MAX_STRENGTH)) {
+    throw new InputError(`${what} = ${x} is beyond the largest interaction strength taken, ${MAX_STRENGTH} g (the blockade is complete long before)`, field);
+  }
+  return x;
+}
+
+/**
  * Largest core radius of the full-range soft-core sum in 2D: the split V0 Rc^6 r^-6 + remainder
  * loses eps Rc^4 relative (3e-11 at 20) and sums 15 Rc out (about 3e5 sites at 20).
  */
@@ -73,8 +91,8 @@ export function resolvePotential(spec: InteractionSpec, l: Lattice): Potential {
   }
   switch (spec.shape) {
     case 'nn': {
-      const V1 = requireFinite(spec.V1 ?? NaN, 'v1');
-      const V2 = requireFinite(spec.V2 ?? 0, 'v2');
+      const V1 = strength(spec.V1 ?? NaN, 'v1');
+      const V2 = strength(spec.V2 ?? 0, 'v2');
       const shells = [{ r: 1, V: V1 }, { r: l.nextNearest, V: V2 }].filter((s) => s.r <= rmax + 1e-9);
       const V = (r: number) => (Math.abs(r - 1) < 1e-9 ? V1 : Math.abs(r - l.nextNearest) < 1e-9 ? V2 : 0);
       return { shape: 'nn', V, rmax: Math.min(rmax, l.nextNearest), shells };
@@ -88,16 +106,16 @@ export function resolvePotential(spec: InteractionSpec, l: Lattice): Potential {
       } else if (spec.Rb !== undefined) {
         const Rb = requireFinite(spec.Rb, 'rb');
         if (!(Rb > 0)) throw new InputError(`blockade radius rb must be > 0, got ${Rb}`, 'rb');
-        C = 2 * Math.pow(Rb, s);
+        C = strength(2 * Math.pow(Rb, s), 'rb', `rb = ${Rb} gives V1 = 2 rb^${s}`);
       } else if (spec.V1 !== undefined) {
-        C = requireFinite(spec.V1, 'v1');
+        C = strength(spec.V1, 'v1');
       } else {
         throw new InputError(`the ${spec.shape} shape needs rb or v1`, 'rb');
       }
       return { shape: spec.shape, V: (r) => C / Math.pow(r, s), rmax, powerLaw: { C, s } };
     }
     case 'softcore': {
-      const V0 = requireFinite(spec.V0 ?? NaN, 'v0');
+      const V0 = strength(spec.V0 ?? NaN, 'v0');
       const Rc = requireFinite(spec.Rc ?? NaN, 'rc');
       if (!(Rc > 0)) throw new InputError(`core radius rc must be > 0, got ${Rc}`, 'rc');
       if (l.dim === 2 && !Number.isFinite(rmax) && Rc > MAX_SOFTCORE_RC_2D) {

@@ -19,8 +19,10 @@
  * sublattice has xi_s < 0, every empty one xi_s > 0, and mean_s 1/|xi_s| < delta - mu
  * (the Hessian at alpha = 0 is then positive definite: the photon stays uncondensed).
  */
-import { cholesky, choleskySolve } from '../numerics/dense-solve.ts';
-import type { CellProblem, SolveCellOptions } from './sublattice.ts';
+import { choleskySolve } from '../numerics/dense-solve.ts';
+import { levenbergFactor, softestDirection } from '../numerics/negative-curvature.ts';
+import type { CellProblem, SolveCellOptions } from './cell-problem.ts';
+import { hartreeShifts } from './hartree-shift.ts';
 
 /** Converged angles' observables. */
 export interface AngleResult {
@@ -34,12 +36,7 @@ const KICK = 1e-3;
 const MAX_TURN = 1;
 
 function hartree(p: CellProblem, m: ArrayLike<number>, xi: Float64Array): void {
-  const M = p.M;
-  for (let s = 0; s < M; s++) {
-    let v = -p.mu;
-    for (let u = 0; u < M; u++) v += p.J[s * M + u] * m[u];
-    xi[s] = v;
-  }
+  hartreeShifts(p.J, p.M, p.mu, m, xi);
 }
 
 /** Whether the integer pattern n is a local minimum at alpha = 0 (see the module note). */
@@ -94,18 +91,14 @@ export function descendedPattern(p: CellProblem, m0: ArrayLike<number>): Float64
  * signed downhill, to the step d (both scaled to unit max-norm).
  */
 function addNegativeCurvature(L: Float64Array, M: number, grad: Float64Array, d: Float64Array, v: Float64Array): void {
-  for (let s = 0; s < M; s++) v[s] = 1 + 0.5 * Math.sin(1.3 * s + 0.7);
-  for (let k = 0; k < 6; k++) {
-    choleskySolve(L, M, v);
-    let n = 0;
-    for (let s = 0; s < M; s++) n = Math.max(n, Math.abs(v[s]));
-    for (let s = 0; s < M; s++) v[s] /= n;
-  }
-  let gv = 0, dn = 0;
-  for (let s = 0; s < M; s++) { gv += grad[s] * v[s]; dn = Math.max(dn, Math.abs(d[s])); }
-  const sign = gv > 0 ? -1 : 1;
-  for (let s = 0; s < M; s++) d[s] = (dn > 0 ? d[s] / dn : 0) + sign * v[s];
+  softestDirection(L, M, grad, 6, v);
+  let dn = 0;
+  for (let s = 0; s < M; s++) dn = Math.max(dn, Math.abs(d[s]));
+  for (let s = 0; s < M; s++) d[s] = (dn > 0 ? d[s] / dn : 0) + v[s];
 }
+
+/** Energy scale of the Hartree shift in the step test (g = 1): |dxi| < tol is asked too. */
+const XI_SCALE = 1;
 
 /** Phi and its pieces at theta (m, sin, cos, xi into the work arrays); returns Phi. */
 function energy(p: CellProblem, th: Float64Array, m: Float64Array, sn: Float64Array, cs: Float64Array, xi: Float64Array): number {
@@ -113,7 +106,10 @@ function energy(p: CellProblem, th: Float64Array, m: Float64Array, sn: Float64Ar
   let X = 0;
   for (let s = 0; s < M; s++) {
     cs[s] = Math.cos(th[s]); sn[s] = Math.sin(th[s]);
-    m[s] = (1 - cs[s]) / 2; X += sn[s];
+    // m = sin^2(theta/2), not (1 - cos theta)/2: a blockaded emitter has m ~ V^-1 far below
+    // the 1e-16 resolution of 1 - cos theta, and J m must stay exact for V up to ~1e300.
+    const h = Math.sin(th[s] / 2);
+    m[s] = h * h; X += sn[s];
   }
   X /= M;
   hartree(p, m, xi);
@@ -147,22 +143,15 @@ export function solveAngles(p: CellProblem, m0: ArrayLike<number>, opts: SolveCe
     let X = 0;
     for (let s = 0; s < M; s++) X += sn[s];
     const alpha = X / M / (2 * dmu);
-    let diagMax = 0;
     for (let s = 0; s < M; s++) {
       grad[s] = (xi[s] * sn[s] / 2 - alpha * cs[s]) / M;
       for (let t = 0; t < M; t++) {
         H[s * M + t] = (p.J[s * M + t] * sn[s] * sn[t] / 4 - cs[s] * cs[t] / (2 * M * dmu)) / M;
       }
       H[s * M + s] += (xi[s] * cs[s] / 2 + alpha * sn[s]) / M;
-      diagMax = Math.max(diagMax, Math.abs(H[s * M + s]));
     }
     // Levenberg shift: none where H is positive definite, else twice the least that makes it so.
-    let shift = 0;
-    if (!cholesky(H, M, 0, L)) {
-      shift = 1e-8 * (diagMax + 1e-300);
-      while (!cholesky(H, M, shift, L)) shift *= 4;
-      cholesky(H, M, 2 * shift, L);
-    }
+    const shift = levenbergFactor(H, M, L);
     for (let s = 0; s < M; s++) d[s] = -grad[s];
     choleskySolve(L, M, d);
     if (shift > 0) addNegativeCurvature(L, M, grad, d, v);
@@ -185,7 +174,8 @@ export function solveAngles(p: CellProblem, m0: ArrayLike<number>, opts: SolveCe
     if (!ok) break;
     step = 0;
     // m and <sigma^x> both: near alpha = 0, m ~ theta^2 settles long before sin theta does.
-    for (let s = 0; s < M; s++) step = Math.max(step, Math.abs(tm[s] - m[s]), Math.abs(tsn[s] - sn[s]));
+    // And xi: under a strong blockade m ~ 1/V is far below tol while V dm still moves xi.
+    for (let s = 0; s < M; s++) step = Math.max(step, Math.abs(tm[s] - m[s]), Math.abs(tsn[s] - sn[s]), Math.abs(txi[s] - xi[s]) / XI_SCALE);
     th.set(tth); m.set(tm); sn.set(tsn); cs.set(tcs); xi.set(txi); phi = tphi;
     opts.trace?.(m, alpha, phi, lambda);
     if (step < tol && lambda === 1) { converged = true; break; }

@@ -11,6 +11,7 @@ import { type Lattice, lattice } from '../lattice/geometry.ts';
 import { type Supercell, supercell, supercellsOfSize, supercellsUpTo } from '../lattice/supercells.ts';
 import { type Potential, resolvePotential } from '../interaction/potential.ts';
 import type { ModelParams } from '../model.ts';
+import { ConvergenceError } from '../convergence-error.ts';
 import { cellCouplings } from './coupling-cache.ts';
 import { type CellSolution, solveCell } from './sublattice.ts';
 import { descendedPattern } from './bloch-angles.ts';
@@ -138,7 +139,7 @@ export function searchCells(ctx: Context, mu: number, o: SearchOptions = {}): Ca
   for (const cell of ctx.cells) {
     for (const c of cellCandidates(ctx, cell, mu, o)) if (better(c.sol, best?.sol ?? null)) best = c;
   }
-  if (!best) throw new Error(`mean-field: no start converged at mu = ${mu}`);
+  if (!best) throw new ConvergenceError('mean-field', `no start converged in ${ctx.cells.length} cells at mu = ${mu}`);
   return best;
 }
 

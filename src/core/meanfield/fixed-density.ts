@@ -15,9 +15,8 @@
  */
 import type { ModelParams } from '../model.ts';
 import { InputError } from '../input-error.ts';
-import type { MeanFieldState } from './state.ts';
+import type { MeanFieldState, SolveResult } from './state.ts';
 import { context, searchCells, toState, type SearchOptions } from './cell-search.ts';
-import type { SolveResult } from './ground-state.ts';
 
 /** mu is converged when the bracket is below MU_TOL (absolute, units of g) ... */
 export const MU_TOL = 1e-11;

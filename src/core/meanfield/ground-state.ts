@@ -6,11 +6,11 @@
  * (InputError on bad input, mu >= delta refused).
  */
 import { validateModel, type ModelParams } from '../model.ts';
-import type { Coexistence, MeanFieldState } from './state.ts';
+import type { SolveResult } from './state.ts';
 import { context, searchCells, toState, type SearchOptions } from './cell-search.ts';
 import { solveFixedDensity } from './fixed-density.ts';
 
-export type SolveResult = MeanFieldState & { coexistence?: Coexistence | null };
+export type { SolveResult } from './state.ts';
 
 export type GroundStateOptions = SearchOptions;
 

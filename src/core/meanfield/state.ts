@@ -41,3 +41,6 @@ export interface Coexistence {
   phases: [MeanFieldState, MeanFieldState];
   fractions: [number, number];
 }
+
+/** A solved point: the state, with the coexisting phases where a fixed density falls in a jump. */
+export type SolveResult = MeanFieldState & { coexistence?: Coexistence | null };

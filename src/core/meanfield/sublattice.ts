@@ -16,15 +16,11 @@
 import { gOf, levelFreeEnergy, occupation } from './emitter.ts';
 import { solveAngles } from './bloch-angles.ts';
 import { solveFields } from './thermal-fields.ts';
+import { hartreeShift } from './hartree-shift.ts';
+import type { CellProblem, SolveCellOptions } from './cell-problem.ts';
 
-/** One supercell's problem: J_st(0) row-major (M x M), mu, delta, T. */
-export interface CellProblem {
-  readonly M: number;
-  readonly J: Float64Array;
-  readonly mu: number;
-  readonly delta: number;
-  readonly T: number;
-}
+export type { CellProblem, SolveCellOptions } from './cell-problem.ts';
+
 
 /** A self-consistent (or best-effort, converged = false) solution in one cell. */
 export interface CellSolution {
@@ -41,15 +37,6 @@ export interface CellSolution {
   step: number;
 }
 
-export interface SolveCellOptions {
-  /** Convergence threshold on max |dm| of a full step (default 1e-12). */
-  tol?: number;
-  maxIter?: number;
-  /** Called after each step (diagnostics). */
-  trace?: (m: Float64Array, alpha: number, phi: number, lambda: number) => void;
-  /** Called after each step; returning true abandons the start (e.g. a known duplicate). */
-  abandon?: (m: Float64Array, it: number) => boolean;
-}
 
 /**
  * A photon amplitude below this is the rounding left of a vanishing root and is reported as
@@ -57,11 +44,30 @@ export interface SolveCellOptions {
  */
 export const ALPHA_ZERO = 1e-13;
 
-/** Solve the sublattice equations of one cell from the start m0 (values in [0, 1]). */
-export function solveCell(p: CellProblem, m0: ArrayLike<number>, opts: SolveCellOptions = {}): CellSolution {
+/**
+ * Temperatures below this are solved as T = 0. The thermal Newton matrix holds 1/T^3
+ * (emitter.ts, qOf), which overflows for T < 1e-103 and has lost every digit long before;
+ * at T = 1e-12 g the thermal weight e^{-2E/T} of any level with E > 2.5e-11 g is below
+ * e^{-50}, below double rounding, so the T = 0 equations give
+ * the same state to rounding except for levels closer than ~1e-11 g to degeneracy.
+ */
+export const T_GROUND = 1e-12;
+
+/**
+ * Solve the sublattice equations of one cell from the start m0 (values in [0, 1]).
+ * A run that stops at its iteration cap, or where the line search can no longer descend,
+ * still counts as converged when its state satisfies the mean-field equations to
+ * CHECK_TOL: at a marginal point (a quartic minimum, e.g. where
+ * the filled state meets the condensate at (delta - mu) mu = 1) Newton converges only
+ * linearly and alpha ~ 1e-7 is all the rounding of Omega ~ alpha^4 can resolve; under a
+ * strong blockade (V ~ 1e18) the last step is below the rounding of Omega.
+ */
+export function solveCell(p0: CellProblem, m0: ArrayLike<number>, opts: SolveCellOptions = {}): CellSolution {
+  const p = p0.T > 0 && p0.T < T_GROUND ? { ...p0, T: 0 } : p0;
   const r = p.T === 0 ? solveAngles(p, m0, opts) : solveFields(p, m0, opts);
   if (r.alpha < ALPHA_ZERO) { r.alpha = 0; r.sx.fill(0); }
   if (r.converged && !selfConsistent(p, r.m, r.alpha)) r.converged = false;
+  else if (!r.converged && !opts.abandon?.(r.m, r.iterations) && selfConsistent(p, r.m, r.alpha)) r.converged = true;
   return { m: r.m, sx: r.sx, alpha: r.alpha, omega: grandPotential(p, r.m, r.xi, r.alpha), converged: r.converged, iterations: r.iterations, step: r.step };
 }
 
@@ -78,8 +84,7 @@ function selfConsistent(p: CellProblem, m: Float64Array, alpha: number): boolean
   const a = alpha * alpha;
   let G = 0;
   for (let s = 0; s < M; s++) {
-    let xi = -mu;
-    for (let t = 0; t < M; t++) xi += J[s * M + t] * m[t];
+    const xi = hartreeShift(J, M, mu, m, s);
     const E = Math.sqrt(xi * xi / 4 + a);
     // E = 0 (xi = 0, no photon) is a regular half-filled level at T > 0; at T = 0 it is degenerate.
     if (E === 0 && T === 0) return false;

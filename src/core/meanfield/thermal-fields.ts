@@ -18,7 +18,8 @@
  */
 import { photonDensity } from './emitter.ts';
 import { gaussSolve } from '../numerics/dense-solve.ts';
-import type { CellProblem, SolveCellOptions } from './sublattice.ts';
+import type { CellProblem, SolveCellOptions } from './cell-problem.ts';
+import { hartreeShifts } from './hartree-shift.ts';
 import { type Trial, evaluate, negativeCurvature, newTrial, slope } from './trial-state.ts';
 
 /** The solution's observables. */
@@ -31,11 +32,7 @@ export interface FieldResult {
 /** The Hartree fields of m and the photon alpha they support: h = (xi(m), alpha(xi)). */
 export function fieldsOf(p: CellProblem, m: ArrayLike<number>): Float64Array {
   const M = p.M, h = new Float64Array(M + 1);
-  for (let s = 0; s < M; s++) {
-    let xi = -p.mu;
-    for (let u = 0; u < M; u++) xi += p.J[s * M + u] * m[u];
-    h[s] = xi;
-  }
+  hartreeShifts(p.J, M, p.mu, m, h);
   h[M] = Math.sqrt(photonDensity(h.subarray(0, M), p.delta - p.mu, p.T));
   return h;
 }

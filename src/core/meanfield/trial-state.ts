@@ -13,8 +13,9 @@
  * Statistical Mechanics (1972), ch. 2).
  */
 import { gOf, qOf, occupation, levelFreeEnergy } from './emitter.ts';
-import { cholesky, choleskySolve } from '../numerics/dense-solve.ts';
-import type { CellProblem } from './sublattice.ts';
+import { levenbergFactor, softestDirection } from '../numerics/negative-curvature.ts';
+import type { CellProblem } from './cell-problem.ts';
+import { hartreeShift } from './hartree-shift.ts';
 
 /** The trial state of fields h: occupations m, coherences x, their derivatives, Phi. */
 export interface Trial {
@@ -57,8 +58,7 @@ export function evaluate(p: CellProblem, h: Float64Array, t: Trial, deriv: boole
   }
   let e = 0;
   for (let s = 0; s < M; s++) {
-    let xi = -mu;
-    for (let u = 0; u < M; u++) xi += J[s * M + u] * t.m[u];
+    const xi = hartreeShift(J, M, mu, t.m, s);
     t.xi[s] = xi;
     e += t.m[s] * (xi - mu); // m (J m) - 2 mu m, halved below
   }
@@ -111,30 +111,15 @@ export function negativeCurvature(p: CellProblem, h: Float64Array, cur: Trial, w
     hh[j] = h[j];
     for (let i = 0; i < n; i++) H[i * n + j] = (gp[i] - gm[i]) / (2 * e);
   }
-  let diagMax = 0;
   for (let i = 0; i < n; i++) {
-    diagMax = Math.max(diagMax, Math.abs(H[i * n + i]));
     for (let j = 0; j < i; j++) { const v = (H[i * n + j] + H[j * n + i]) / 2; H[i * n + j] = v; H[j * n + i] = v; }
   }
-  if (cholesky(H, n, 0, L)) return null;
-  let shift = 1e-8 * (diagMax + 1e-300);
-  while (!cholesky(H, n, shift, L)) shift *= 4;
-  cholesky(H, n, 2 * shift, L);
-  const v = new Float64Array(n);
-  for (let i = 0; i < n; i++) v[i] = 1 + 0.5 * Math.sin(1.3 * i + 0.7);
-  for (let k = 0; k < 8; k++) {
-    choleskySolve(L, n, v);
-    let nv = 0;
-    for (let i = 0; i < n; i++) nv = Math.max(nv, Math.abs(v[i]));
-    for (let i = 0; i < n; i++) v[i] /= nv;
-  }
+  if (levenbergFactor(H, n, L) === 0) return null;
+  gradient(p, cur, h, gp);
+  const v = softestDirection(L, n, gp, 8, new Float64Array(n));
   let curv = 0;
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) curv += v[i] * H[i * n + j] * v[j];
   if (!(curv < 0)) return null;
-  gradient(p, cur, h, gp);
-  let gv = 0;
-  for (let i = 0; i < n; i++) gv += gp[i] * v[i];
-  if (gv > 0) for (let i = 0; i < n; i++) v[i] = -v[i];
   for (let i = 0; i < n; i++) v[i] *= 0.1 * scale;
   return v;
 }

@@ -23,6 +23,7 @@ import { blochCouplings } from '../spectrum/bloch-couplings.ts';
 import { lattice } from '../lattice/geometry.ts';
 import { resolvePotential } from '../interaction/potential.ts';
 import { gaussSolve } from '../numerics/dense-solve.ts';
+import { hartreeShift } from '../meanfield/hartree-shift.ts';
 
 export type FollowedPhase = 'condensate' | 'normal' | { cell: { a: number; b: number; c: number }; pattern: number[] };
 
@@ -107,7 +108,7 @@ export function uniformNormal(V0: number, mu: number, T: number): number {
 export function crystal(J: Float64Array, M: number, pattern: number[], mu: number, T: number): Float64Array | null {
   if (pattern.length !== M) return null;
   const m = Float64Array.from(pattern);
-  const xiOf = (s: number) => { let x = -mu; for (let t = 0; t < M; t++) x += J[s * M + t] * m[t]; return x; };
+  const xiOf = (s: number) => hartreeShift(J, M, mu, m, s);
   if (T === 0) {
     for (let s = 0; s < M; s++) { const x = xiOf(s); if (m[s] === 1 ? !(x < 0) : !(x > 0)) return null; }
     return m;

@@ -18,11 +18,12 @@
  * tolerance; using it keeps the Goldstone mode an exact zero). `residual` says how far the
  * given m_s and delta - mu are from stationarity.
  */
-import { InputError } from '../input-error.ts';
+import { InputError, requireBelowDetuning } from '../input-error.ts';
 import { type Lattice, type LatticeName, lattice } from '../lattice/geometry.ts';
 import { type Supercell, supercell } from '../lattice/supercells.ts';
 import { type InteractionSpec, type Potential, resolvePotential } from '../interaction/potential.ts';
 import { blochCouplings } from './bloch-couplings.ts';
+import { hartreeShift } from '../meanfield/hartree-shift.ts';
 
 /** A state to expand about, as plain data. */
 export interface FluctuationInput {
@@ -77,15 +78,14 @@ export function background(inp: FluctuationInput): Background {
   if (inp.densities.length !== M) throw new InputError(`need ${M} sublattice densities for this cell, got ${inp.densities.length}`, 'densities');
   if (!(inp.alpha >= 0)) throw new InputError(`alpha must be >= 0, got ${inp.alpha}`, 'alpha');
   if (!(inp.T >= 0)) throw new InputError(`temperature must be >= 0, got ${inp.T}`, 'temperature');
-  if (!inp.fixedPhoton && !(inp.mu < inp.delta)) throw new InputError(`mu = ${inp.mu} must be below the detuning ${inp.delta}`, 'mu');
+  if (!inp.fixedPhoton) requireBelowDetuning(inp.mu, inp.delta);
   const pot = resolvePotential(inp.interaction, l);
   const J = blochCouplings(l, inp.interaction, pot, cell, [0, 0]).re;
   const xi = new Float64Array(M), E = new Float64Array(M), r = new Float64Array(M), frame = new Float64Array(9 * M);
   const { alpha, mu, T } = inp;
   let resE = 0, photonSum = 0;
   for (let s = 0; s < M; s++) {
-    let x = -mu;
-    for (let t = 0; t < M; t++) x += J[s * M + t] * inp.densities[t];
+    const x = hartreeShift(J, M, mu, inp.densities, s);
     xi[s] = x;
     E[s] = Math.sqrt(x * x / 4 + alpha * alpha);
     r[s] = T === 0 ? 1 : Math.tanh(E[s] / T);

@@ -2,7 +2,7 @@
  * The inputs of a variational Monte Carlo run as plain data, and their validation into the
  * settings the run uses (defaults filled in, bad input refused with an InputError).
  */
-import { InputError, requireFinite } from '../input-error.ts';
+import { InputError, requireBelowDetuning, requireFinite } from '../input-error.ts';
 import type { ClusterSpec } from '../cluster/spec.ts';
 import type { AnsatzSpec } from './ansatz.ts';
 
@@ -66,16 +66,16 @@ export function vmcSettings(req: VmcRequest): VmcSettings {
     throw new InputError('give alpha (a fixed photon amplitude) or the detuning (alpha optimised)', 'alpha');
   }
   if (req.alpha !== undefined && (requireFinite(req.alpha, 'alpha') < 0)) throw new InputError(`alpha must be >= 0, got ${req.alpha}`, 'alpha');
-  const gap = req.delta === undefined ? null : requireFinite(req.delta, 'detuning') - mu;
-  if (gap !== null && !(gap > 0)) {
-    throw new InputError(`mu = ${mu} must be below the detuning ${req.delta}: for mu >= delta the photon number is unbounded`, 'mu');
-  }
+  const gap = req.delta === undefined ? null : requireBelowDetuning(mu, req.delta);
   const chains = positiveInteger(req.chains ?? 1, 'chains'), steps = positiveInteger(req.steps ?? 200, 'steps', 0);
   const bins = positiveInteger(req.bins ?? 32, 'bins', chains > 1 ? 1 : 2);
   const thermalise = positiveInteger(req.thermalise ?? 100, 'thermalise', 0);
   const perStep = Math.ceil(positiveInteger(req.sweepsPerStep ?? 200, 'sweeps-per-step') / chains);
   const perChain = bins * Math.ceil(positiveInteger(req.sweeps ?? 8192, 'sweeps') / (chains * bins));
   const eta = requireFinite(req.learningRate ?? 0.05, 'learning-rate'), shift = requireFinite(req.shift ?? 1e-3, 'shift');
+  // A step -eta (S + shift)^-1 F with eta <= 0 climbs the energy or stands still; shift < 0 can make S singular.
+  if (!(eta > 0)) throw new InputError(`learning-rate must be > 0, got ${eta}`, 'learning-rate');
+  if (!(shift >= 0)) throw new InputError(`shift must be >= 0, got ${shift}`, 'shift');
   const beta = requireFinite(req.alphaMixing ?? 0.5, 'alpha-mixing');
   const exchange = requireFinite(req.exchange ?? 0.25, 'exchange');
   if (!(exchange >= 0 && exchange <= 1)) throw new InputError(`exchange must be a fraction in [0, 1], got ${exchange}`, 'exchange');
