@@ -10,7 +10,7 @@ import { LitElement, html, css, nothing } from 'lit';
 import type { AppState, ModelInputs } from '../state/app-state.ts';
 import type { ParsedModel } from '../model/model-inputs.ts';
 import { parseNumber } from '../model/model-inputs.ts';
-import { type ClusterSpec, buildCluster, parseClusterSize } from '../../core/cluster/spec.ts';
+import { type ClusterSpec, parseClusterSize } from '../../core/cluster/spec.ts';
 import { parseSiteCsv } from '../../core/cluster/site-array.ts';
 import type { EdResult } from '../../core/ed/exact-diagonalisation.ts';
 import type { VmcRequest } from '../../core/vmc/variational-monte-carlo.ts';
@@ -54,6 +54,8 @@ export class CorrelatedView extends LitElement {
   declare engine: EngineClient;
   private task = new EngineTask<Correlated>(this);
   private meanField = new EngineTask<SolveResult>(this);
+  /** The cluster's sites, built in the interactive worker (the build's lattice sums never run on this thread). */
+  private sites = new EngineTask<{ N: number; positions: number[] }>(this);
   /** The live optimisation trace of the running VMC. */
   private trace: VmcResult['trace'] = [];
   private problem: string | null = null;
@@ -92,7 +94,8 @@ export class CorrelatedView extends LitElement {
       } else {
         cluster = { kind: 'periodic', lattice: p.lattice, size: parseClusterSize(s.size), interaction: p.interaction };
       }
-      const N = buildCluster(cluster).N;
+      // the site count without building the cluster (its Ewald sums belong in a worker)
+      const N = cluster.kind === 'array' ? cluster.positions.length / 2 : cluster.size.reduce((a, b) => a * b, 1);
       if (s.method === 'ed' && N > 20) return { error: `exact diagonalisation is limited to 20 sites (2^N states); this cluster has ${N}` };
     } catch (e) {
       return { error: (e as Error).message };
@@ -112,10 +115,15 @@ export class CorrelatedView extends LitElement {
     };
   }
 
+  /** The job of the current inputs, described once an update (render reuses it). */
+  private described: { job?: Job; error?: string } = {};
+
   override willUpdate() {
-    const { job } = this.describe();
+    this.described = this.describe();
+    const { job } = this.described;
     if (!job || !this.engine) return;
     this.job = job;
+    this.sites.run(JSON.stringify(job.cluster), (signal) => this.engine.call((r) => r.correlated.clusterSites(job.cluster), signal));
     const key = JSON.stringify(job);
     if (key !== this.problem) {
       this.problem = key;
@@ -181,13 +189,12 @@ export class CorrelatedView extends LitElement {
 
   override render() {
     const s = this.section;
-    const { error } = this.describe();
+    const { error } = this.described;
     const v = this.task.value;
     const mf = this.meanField.value;
     const w = Math.max(340, Math.min(560, (this.size.width - 10) / (this.size.width > 900 ? 2 : 1)));
     const job = this.job;
-    let positions: Float64Array | null = null;
-    try { if (job) positions = buildCluster(job.cluster).positions; } catch { positions = null; }
+    const positions = job && this.sites.valueKey === JSON.stringify(job.cluster) && this.sites.value ? Float64Array.from(this.sites.value.positions) : null;
     const dens = v ? (v.kind === 'ed' ? v.r.siteDensities : v.r.siteDensities.map((e) => e.value)) : null;
     const trace = v?.kind === 'vmc' && this.task.status !== 'pending' ? v.r.trace : this.trace;
     return html`
