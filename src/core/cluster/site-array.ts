@@ -9,7 +9,7 @@
  *
  * Structure-factor momenta: the grid k = 2 pi (m1 / nx, m2 / ny), m_a folded into
  * (-n_a/2, n_a/2], of the smallest box of unit spacing holding the array (n_a = extent + 1,
- * rounded), which are the cluster momenta when the array is a full rectangle of the square
+ * rounded; at most MAX_BOX points), which are the cluster momenta when the array is a full rectangle of the square
  * lattice; ny = 1 when all sites lie on one line y = const.
  */
 import { InputError, requireFinite } from '../input-error.ts';
@@ -17,8 +17,18 @@ import { type LatticeName, lattice } from '../lattice/geometry.ts';
 import { type InteractionSpec, pairValue, resolvePotential } from '../interaction/potential.ts';
 import { type Cluster, MAX_CLUSTER_SITES, distanceShells } from './cluster.ts';
 
-/** Two sites closer than this (units of a) coincide: their V would be infinite. */
-const COINCIDENT = 1e-9;
+/**
+ * Closest pair separation taken (units of a): 0.05. The pair potentials of the model (r^-6,
+ * r^-3, the soft core) hold only outside the overlap of the two Rydberg electron clouds (the
+ * LeRoy radius, 2 sqrt(<r^2>) ~ 2 n^2 a0 ~ 0.5 um at n = 70), a few hundredths of a tweezer
+ * spacing of 3-10 um; closer emitters are outside the model. Numerically V(0.05) = 6.4e7 V1
+ * for vdw, and Lanczos resolves energies of order g only to eps |H| (~1e-8 at V1 = 1);
+ * at 1e-3 a (V ~ 1e18 V1) the ED energy was wrong, closer it was NaN.
+ */
+export const MIN_SEPARATION = 0.05;
+
+/** Largest box of unit spacing around the array (sites of its momentum grid): 1e6. */
+export const MAX_BOX = 1e6;
 
 /** Parse CSV text of `x,y` lines into positions [x0, y0, x1, y1, ...] in units of a. */
 export function parseSiteCsv(text: string, spacing?: number): number[] {
@@ -67,8 +77,9 @@ export function arrayCluster(name: LatticeName, positions: readonly number[], in
   for (let i = 0; i < N; i++) {
     for (let j = i + 1; j < N; j++) {
       const r = Math.hypot(pos[2 * j] - pos[2 * i], pos[2 * j + 1] - pos[2 * i + 1]);
-      if (r < COINCIDENT) {
-        throw new InputError(`sites ${i + 1} and ${j + 1} coincide at (${pos[2 * i]}, ${pos[2 * i + 1]}) in units of a`, 'sites');
+      if (!(r >= MIN_SEPARATION)) {
+        throw new InputError(
+          `sites ${i + 1} (${pos[2 * i]}, ${pos[2 * i + 1]}) and ${j + 1} (${pos[2 * j]}, ${pos[2 * j + 1]}) are ${r} a apart, closer than ${MIN_SEPARATION} a: the pair potential does not hold inside the overlap of the Rydberg orbits`, 'sites');
       }
       distance[i * N + j] = distance[j * N + i] = r;
       V[i * N + j] = V[j * N + i] = pairValue(pot, r);
@@ -88,6 +99,10 @@ function boxMomenta(pos: Float64Array): { momenta: Float64Array; momentumLabels:
     y0 = Math.min(y0, pos[2 * i + 1]); y1 = Math.max(y1, pos[2 * i + 1]);
   }
   const nx = Math.max(1, Math.round(x1 - x0) + 1), ny = Math.max(1, Math.round(y1 - y0) + 1);
+  if (!(nx * ny <= MAX_BOX)) {
+    throw new InputError(
+      `sites: the array spans ${x1 - x0} x ${y1 - y0} lattice spacings; its momentum grid of ${nx} x ${ny} exceeds the limit of ${MAX_BOX} points (give coordinates in units of a, or the spacing in um)`, 'sites');
+  }
   const fold = (m: number, n: number) => (m > n / 2 ? m - n : m);
   const momenta = new Float64Array(2 * nx * ny), momentumLabels = new Int32Array(2 * nx * ny);
   for (let b = 0; b < ny; b++) {

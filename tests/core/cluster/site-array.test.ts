@@ -26,8 +26,19 @@ describe('user arrays from CSV: open boundaries', () => {
     bad('0,0\n1,1e999\n', /line 2: y is not a number/);
   });
 
-  it('refuses coincident sites', () => {
-    expect(() => arrayCluster('square', [0, 0, 1, 0, 0, 0], { shape: 'vdw', Rb: 1 })).toThrow(/sites 1 and 3 coincide/);
+  it('refuses coincident sites and sites closer than 0.05 a, naming both and the threshold', () => {
+    expect(() => arrayCluster('square', [0, 0, 1, 0, 0, 0], { shape: 'vdw', Rb: 1 })).toThrow(/sites 1 \(0, 0\) and 3 \(0, 0\).*0\.05/);
+    // Issue 10: 1e-3 a apart gave a wrong ED energy, 1e-6 a NaN.
+    for (const d of [1e-3, 1e-6, 0.049]) {
+      expect(() => arrayCluster('square', [0, 0, 2, 0, d, 0], { shape: 'vdw', Rb: 1 })).toThrow(/sites 1 .* and 3 .*closer than 0\.05 a/);
+    }
+    expect(() => arrayCluster('square', [0, 0, 0.05, 0], { shape: 'vdw', Rb: 1 })).not.toThrow();
+  });
+
+  it('refuses arrays whose unit-spacing box is beyond 1e6 points (far apart in 2D, coordinates like 1e300)', () => {
+    expect(() => arrayCluster('square', [0, 0, 1e4, 1e4], { shape: 'vdw', Rb: 1 })).toThrow(/momentum grid .* exceeds the limit of 1000000/);
+    expect(() => arrayCluster('square', [0, 0, 1e300, 0], { shape: 'vdw', Rb: 1 })).toThrow(/exceeds the limit/);
+    expect(() => arrayCluster('square', [-1e300, 0, 1e300, 1e300], { shape: 'vdw', Rb: 1 })).toThrow(/exceeds the limit/);
   });
 
   it('V_ij = 2 Rb^6 / r^6 with plain distances, no images (closed form)', () => {

@@ -19,6 +19,11 @@ describe('VMC refuses bad input with InputError', () => {
     await refuse({ ...ok, steps: 1.5 }, /steps/);
     await refuse({ ...ok, bins: 1 }, /bins must be an integer >= 2/);
   });
+  it('optimiser settings (issue 10: a negative learning rate was taken silently)', async () => {
+    await refuse({ ...ok, learningRate: -1 }, /learning-rate must be > 0/);
+    await refuse({ ...ok, learningRate: 0 }, /learning-rate must be > 0/);
+    await refuse({ ...ok, shift: -1e-3 }, /shift must be >= 0/);
+  });
   it('one-body cells', async () => {
     await refuse({ ...ok, ansatz: { oneBody: { cell: [4] } } }, /does not tile the 6x1 cluster/);
     await refuse({ ...ok, ansatz: { oneBody: { cell: [2, 0, 1] } } }, /cell must be \[M\]/);
