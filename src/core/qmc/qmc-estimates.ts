@@ -60,7 +60,9 @@ export function chainEstimates(g: QmcGeometry, beta: number, chains: SseChainRes
   const scalar = (v: number) => {
     const est = binnedMean(col(v));
     const sq = chains.reduce((s, c) => s + c.squares[v], 0);
-    return { est, tau: autocorrelationTime(est, samples, sq) };
+    // tau_int in sweeps: the energy is sampled every fourierInterval sweeps.
+    const n = v === 0 ? chains.reduce((s, c) => s + c.energySamples, 0) : samples;
+    return { est, tau: autocorrelationTime(est, n, sq) * (v === 0 ? chains[0].fourierInterval : 1) };
   };
   const [e, rho, sx] = [0, 1, 2].map(scalar);
   const nkRe = cat((c) => c.nkRe, K), nkIm = cat((c) => c.nkIm, K), nk2 = cat((c) => c.nk2, K), nk4 = cat((c) => c.nk4, K);

@@ -18,8 +18,12 @@ import { linkVertices, readBackState, vertexLinks } from './vertex-links.ts';
 import { clusterScratch, clusterUpdate } from './cluster-update.ts';
 import { lineScratch, lineUpdate } from './line-update.ts';
 import { sampleConfig } from './sse-sample.ts';
+import { diagonalEnergy } from './diagonal-energy.ts';
 
-/** Scalars binned per sample, in this order. */
+/**
+ * Scalars binned per sample, in this order. The energy E_diag/N - n_flip/(beta N)
+ * (diagonal-energy.ts) is sampled with the Fourier components, the rest every sweep.
+ */
 export const SCALARS = ['energy', 'density', 'sigmaX', 'kubo', 'number'] as const;
 const NS = SCALARS.length;
 
@@ -44,6 +48,9 @@ export interface SseChainResult {
   scalars: Float64Array;
   /** Sum over every sample of each scalar squared (for tau_int). */
   squares: Float64Array;
+  /** Samples of the energy (every fourierInterval sweeps) and of the other scalars. */
+  energySamples: number;
+  samples: number;
   /** Bin means of Re n_k, Im n_k, |n_k|^2, |n_k|^4 at [b * K + q]. */
   nkRe: Float64Array;
   nkIm: Float64Array;
@@ -96,6 +103,7 @@ export function runSseChain(req: SseChainRequest, g: QmcGeometry, hooks: SseChai
   const interval = Math.max(1, Math.min(binSize, Math.ceil(fourier.work / (4 * cfg.L))));
   const out: SseChainResult = {
     bins, binSize, fourierInterval: interval, scalars: new Float64Array(bins * NS), squares: new Float64Array(NS),
+    energySamples: bins * Math.ceil(binSize / interval), samples: bins * binSize,
     nkRe: new Float64Array(bins * K), nkIm: new Float64Array(bins * K), nk2: new Float64Array(bins * K), nk4: new Float64Array(bins * K),
     sites: g.kind === 'array' ? new Float64Array(bins * N) : null,
     shellSums: g.kind === 'array' ? new Float64Array(bins * g.shells.length) : null,
@@ -103,14 +111,17 @@ export function runSseChain(req: SseChainRequest, g: QmcGeometry, hooks: SseChai
   };
   const re = new Float64Array(K), im = new Float64Array(K), values = new Float64Array(NS);
   const shellOf = g.cluster ? g.cluster.shellOf : null;
+  const diag = diagonalEnergy(g, req.mu);
   let operators = 0, bin = 0, inBin = 0;
   measure = () => {
-    const x = sampleConfig(links.counts, N, terms.E0, beta, alpha);
-    values[0] = x.energy; values[1] = x.density; values[2] = x.sigmaX; values[3] = x.kubo; values[4] = x.number;
-    for (let v = 0; v < NS; v++) { out.scalars[bin * NS + v] += values[v]; out.squares[v] += values[v] * values[v]; }
+    const x = sampleConfig(links.counts, N, beta, alpha);
+    values[1] = x.density; values[2] = x.sigmaX; values[3] = x.kubo; values[4] = x.number;
+    for (let v = 1; v < NS; v++) { out.scalars[bin * NS + v] += values[v]; out.squares[v] += values[v] * values[v]; }
     operators += x.operators;
     if (inBin % interval === 0) {
       fourier.transform(cfg.state, re, im);
+      const e = diag(cfg.state, re, im) / N - links.counts.flips / (beta * N);
+      out.scalars[bin * NS] += e; out.squares[0] += e * e;
       for (let q = 0; q < K; q++) {
         const p2 = re[q] * re[q] + im[q] * im[q];
         out.nkRe[bin * K + q] += re[q]; out.nkIm[bin * K + q] += im[q];
@@ -134,7 +145,7 @@ export function runSseChain(req: SseChainRequest, g: QmcGeometry, hooks: SseChai
     }
   }
   const scale = 1 / binSize, fscale = 1 / Math.ceil(binSize / interval);
-  for (const a of [out.scalars]) for (let t = 0; t < a.length; t++) a[t] *= scale;
+  for (let t = 0; t < out.scalars.length; t++) out.scalars[t] *= t % NS === 0 ? fscale : scale;
   for (const a of [out.nkRe, out.nkIm, out.nk2, out.nk4, out.sites, out.shellSums]) if (a) for (let t = 0; t < a.length; t++) a[t] *= fscale;
   out.cutoff = cfg.L;
   out.meanOperators = operators / (bins * binSize);
