@@ -18,6 +18,12 @@ export const SOURCES = {
   sorella: 'Sorella, Phys. Rev. Lett. 80, 4558 (1998)',
   stinchcombe: 'Stinchcombe, J. Phys. C 6, 2459 (1973): RPA (linear spin-wave) modes of the transverse Ising model, paramagnet omega_k^2 = 4h(h + J(k)/2) in sigma units (from memory)',
   braggWilliams: 'mean-field lattice gas (Bragg-Williams): instability where 1 + V(k) m(1-m)/T = 0, T_c = z J_Ising (textbook, e.g. Chaikin and Lubensky, Principles of Condensed Matter Physics (1995), ch. 4; from memory)',
+  liebSchultzMattis: 'Lieb, Schultz and Mattis, Ann. Phys. 16, 407 (1961): the Jordan-Wigner free-fermion solution of the transverse-field Ising chain',
+  pfeutyFreeEnergy: 'Pfeuty, Annals of Physics 57, 79 (1970): transverse-field Ising chain free energy f = -(T/pi) int_0^pi ln(2 cosh(Lambda_k/2T)) dk, Lambda_k = 2 sqrt(J^2 + h^2 - 2 J h cos k) (Pauli matrices)',
+  onsager: 'Onsager, Phys. Rev. 65, 117 (1944): square-lattice Ising T_c = 2 J / ln(1 + sqrt 2) (J of sigma sigma)',
+  bloteDeng: 'Bloete and Deng, Phys. Rev. E 66, 066110 (2002): square-lattice transverse-field Ising critical point h_c / J = 3.04438(2)',
+  binder: 'Binder, Z. Phys. B 43, 119 (1981): U_L = 1 - <m^4>/(3 <m^2>^2) is size-independent at a critical point, so curves of two sizes cross there',
+  fullSpectrumEd: 'exact diagonalisation in the test: the full spectrum of the 2^N basis by ml-matrix EigenvalueDecomposition (tred2/tql2), thermal averages summed over every eigenstate',
   wilkinsonReinsch: 'Wilkinson and Reinsch, Handbook for Automatic Computation II: Linear Algebra (Springer 1971): hqr2 (src/core/numerics, translated from ml-matrix with an iteration cap), tred2/tql2 (via ml-matrix)',
 } as const;
 
@@ -34,4 +40,46 @@ export function expectRel(actual: number, expected: number, rel: number, floor =
 export function expectAbs(actual: number, expected: number, abs: number): void {
   const err = Math.abs(actual - expected);
   if (!(err <= abs)) expect.fail(`expected ${actual} to equal ${expected} within ${abs} (error ${err})`);
+}
+
+/**
+ * Tolerance of a Monte Carlo estimate against an exact value: 4 standard errors. With the
+ * seeds fixed every run is deterministic, but the seed is arbitrary, so the tolerance must
+ * hold for almost any seed: a Gaussian error leaves 4 sigma with probability 6e-5, so
+ * even a hundred such comparisons fail for correct code with a chance below 1%, while any
+ * bias of several error bars still fails.
+ */
+export const MC_SIGMAS = 4;
+
+/** A Monte Carlo value with its error bar. */
+export interface McEstimate {
+  value: number;
+  error: number;
+}
+
+/**
+ * |est - expected| <= MC_SIGMAS est.error + extra, where `extra` is a deterministic
+ * allowance the caller names (grid resolution, a bounded finite-size term). `maxError`
+ * keeps the check sharp: an error bar larger than it fails (a run too short to test).
+ */
+export function expectWithinSigmas(
+  est: McEstimate, expected: number, what: string, opts: { maxError?: number; extra?: number; sigmas?: number } = {},
+): void {
+  const sigmas = opts.sigmas ?? MC_SIGMAS, extra = opts.extra ?? 0;
+  if (!Number.isFinite(est.value) || !Number.isFinite(est.error)) expect.fail(`${what}: not finite (${est.value} +- ${est.error})`);
+  if (opts.maxError !== undefined && !(est.error <= opts.maxError)) {
+    expect.fail(`${what}: error bar ${est.error} above ${opts.maxError}, too large for a sharp check`);
+  }
+  const dev = Math.abs(est.value - expected), tol = sigmas * est.error + extra;
+  if (!(dev <= tol)) {
+    expect.fail(`${what}: ${est.value} +- ${est.error} vs ${expected}: off by ${(dev / est.error).toFixed(1)} sigma (allowed ${sigmas} sigma + ${extra})`);
+  }
+}
+
+/** a - b > k * (combined error of a and b), the errors independent. */
+export function expectAboveBy(a: McEstimate, b: McEstimate, what: string, k = 1): void {
+  const combined = Math.hypot(a.error, b.error);
+  if (!(a.value - b.value > k * combined)) {
+    expect.fail(`${what}: ${a.value} +- ${a.error} is not above ${b.value} +- ${b.error} by ${k} combined errors (${combined})`);
+  }
 }
