@@ -11,6 +11,7 @@
  * b_{j+1} |y_j| is below tolerance. E = <x|H|x> with residual |Hx - E x|;
  * if the residual is above tolerance the run restarts from x. Memory: five vectors of D.
  */
+import { ConvergenceError } from '../convergence-error.ts';
 
 export interface LanczosOptions {
   /** Start vector (copied, normalised); default the uniform positive vector. */
@@ -32,6 +33,9 @@ export interface LanczosResult {
 }
 
 type Apply = (x: Float64Array, y: Float64Array) => void;
+
+/** Relative residual above which the restarted iteration has failed (1e4 times the default tol). */
+const GIVE_UP = 1e-6;
 
 /** Lowest eigenpair of the operator `apply` on vectors of length D. */
 export function lanczosGround(apply: Apply, D: number, opts: LanczosOptions = {}): LanczosResult {
@@ -73,6 +77,10 @@ export function lanczosGround(apply: Apply, D: number, opts: LanczosOptions = {}
     for (let s = 0; s < D; s++) w[s] -= energy * x[s];
     residual = Math.sqrt(dot(w, w));
     if (residual <= tol * Math.max(1, Math.abs(energy))) break;
+  }
+  // A residual far above tol after every restart (or a NaN) is a failure, not an answer.
+  if (!(residual <= GIVE_UP * Math.max(1, Math.abs(energy)))) {
+    throw new ConvergenceError('Lanczos', `residual ${residual} after ${maxRestarts} restarts (${iterations} steps)`);
   }
   return { energy, vector: x, iterations, residual };
 }

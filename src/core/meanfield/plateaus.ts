@@ -80,8 +80,10 @@ export function refinePlateaus(
   const on = (mu: number, f: string) => plateauFraction(solve(mu), maxCell, tol) === f;
   const edge = (inside: number, outside: number, f: string) => {
     let a = inside, b = outside;
-    while (Math.abs(b - a) > muTol) {
+    // Capped: a muTol below the spacing of doubles near mu would never be reached.
+    for (let it = 0; it < 200 && Math.abs(b - a) > muTol; it++) {
       const mid = 0.5 * (a + b);
+      if (mid === a || mid === b) break;
       if (on(mid, f)) a = mid; else b = mid;
     }
     return a;

@@ -15,6 +15,7 @@ import type { SoftKind } from './lowest-mode.ts';
 import { type FollowedPhase, type PointModel, ownSolution, phaseName } from './own-solution.ts';
 import { type PlaneAxis, checkPlane, planePoint } from './plane.ts';
 import { traceZeroLines } from './zero-line-trace.ts';
+import { InputError } from '../input-error.ts';
 
 export interface SoftLineRequest {
   /** Lattice, base interaction (its strength; the shape comes from `range`), delta, mu, T. */
@@ -47,7 +48,16 @@ export interface SoftLineResult {
   lines: { points: SoftLinePoint[]; closed: boolean }[];
   /** Margin evaluations spent (each one a softest-mode search). */
   evaluations: number;
+  /** The evaluation cap was reached: the lines may be incomplete. */
+  truncated?: boolean;
 }
+
+/** Accuracy taken, in units of an axis span: the trace costs ~ length / sqrt(tol) evaluations. */
+export const MIN_TOL = 1e-6;
+/** Margin evaluations allowed (default and largest): each is a mean-field solve and a zone search. */
+export const MAX_EVALUATIONS = 200000;
+/** Seed points along an axis (the seed grid costs count^2 evaluations). */
+export const MAX_SEED = 200;
 
 /** The margin of the followed phase at a point (null where it does not exist). */
 export function marginAt(phase: FollowedPhase, p: PointModel, zone?: SoftestOptions): { value: number | null; k: number | [number, number]; kind: SoftKind } {
@@ -61,6 +71,17 @@ export function marginAt(phase: FollowedPhase, p: PointModel, zone?: SoftestOpti
 /** Trace the soft-mode lines of one range and phase over the plane. */
 export function softLines(req: SoftLineRequest): SoftLineResult {
   checkPlane(req.x, req.y);
+  const tol = req.tol ?? 1e-3;
+  if (!(tol >= MIN_TOL && tol <= 0.25)) {
+    throw new InputError(`tol must be in [${MIN_TOL}, 0.25] of the axis span, got ${tol}: finer lines cost ~1/sqrt(tol) solves each`, 'tol');
+  }
+  const maxEval = req.maxEvaluations ?? MAX_EVALUATIONS;
+  if (!(Number.isInteger(maxEval) && maxEval >= 1 && maxEval <= MAX_EVALUATIONS)) {
+    throw new InputError(`max-evaluations must be an integer 1..${MAX_EVALUATIONS}, got ${maxEval}`, 'max-evaluations');
+  }
+  if (Math.max(req.x.count, req.y.count) > MAX_SEED) {
+    throw new InputError(`at most ${MAX_SEED} seed points along an axis (the seed grid costs count^2 solves)`, req.x.count > MAX_SEED ? 'x' : 'y');
+  }
   const { x, y } = req;
   const X = (u: number) => x.start + u * (x.stop - x.start);
   const Y = (v: number) => y.start + v * (y.stop - y.start);
@@ -72,9 +93,10 @@ export function softLines(req: SoftLineRequest): SoftLineResult {
     return { value: m.value, payload: { k: m.k, kind: m.kind } };
   };
   const seed = Math.max(x.count, y.count);
-  const t = traceZeroLines(f, { seed, tol: req.tol ?? 1e-3, maxEvaluations: req.maxEvaluations });
+  const t = traceZeroLines(f, { seed, tol, maxEvaluations: maxEval });
   return {
     range: req.range, phase: phaseName(req.phase), evaluations: t.evaluations,
+    ...(t.evaluations >= maxEval ? { truncated: true } : {}),
     lines: t.lines.map((L) => ({
       closed: L.closed,
       points: L.points.map((q) => {

@@ -17,6 +17,19 @@ import type { Vec2 } from '../lattice/geometry.ts';
 import type { Background } from '../spectrum/background.ts';
 import { fromFractional, isZoneCentre, kOut, reduceToZone } from '../spectrum/zone.ts';
 import { type SoftKind, lowestMode } from './lowest-mode.ts';
+import { InputError } from '../input-error.ts';
+import { ConvergenceError } from '../convergence-error.ts';
+
+/** Grid divisions taken (the 2D grid costs N^2/2 diagonalisations). */
+export const MAX_ZONE_GRID = 480;
+/** Smallest refinement step taken: 1e-12 in f, a thousand times the rounding of f ~ 1. */
+export const MIN_F_TOL = 1e-12;
+/**
+ * Compass-search evaluations per start: each halving of h takes at most ~2 dim moves before
+ * the next (a move lowers the value, and the grid spacing bounds the moves at one h), so
+ * 40 halvings (h from 1/96 to 1e-12) need far fewer.
+ */
+const MAX_COMPASS = 20000;
 
 export interface SoftMode {
   /** k* reduced to the supercell's zone: a number in 1D, [kx, ky] in 2D. */
@@ -41,6 +54,12 @@ export interface SoftestOptions {
 /** The softest mode of bg over its zone. */
 export function softestMode(bg: Background, o: SoftestOptions = {}): SoftMode & { evaluations: number } {
   const dim = bg.l.dim;
+  if (o.grid !== undefined && !(o.grid >= 1 && o.grid <= MAX_ZONE_GRID)) {
+    throw new InputError(`zone grid must be 1..${MAX_ZONE_GRID}, got ${o.grid}`, 'zone-grid');
+  }
+  if (o.fTol !== undefined && !(o.fTol >= MIN_F_TOL && o.fTol < 1)) {
+    throw new InputError(`zone refinement step must be in [${MIN_F_TOL}, 1), got ${o.fTol}`, 'zone-tol');
+  }
   const N0 = o.grid ?? (dim === 1 ? 48 : 24) / (bg.M > 1 ? 2 : 1);
   const N = Math.max(12, Math.ceil(N0 / 12) * 12);
   let evaluations = 0;
@@ -63,9 +82,10 @@ export function softestMode(bg: Background, o: SoftestOptions = {}): SoftMode & 
     .filter((s) => !isZoneCentre(bg.l, bg.cell, fromFractional(bg.l, bg.cell, s.f)))
     .sort((x, y) => x.v - y.v).slice(0, 3);
   for (const s0 of starts) {
-    let cur = { ...s0 }, h = h0;
+    let cur = { ...s0 }, h = h0, tries = 0;
     const dirs: [number, number][] = dim === 1 ? [[1, 0], [-1, 0]] : [[1, 0], [-1, 0], [0, 1], [0, -1]];
     while (h >= fTol) {
+      if (++tries > MAX_COMPASS) throw new ConvergenceError('softest mode', `compass search not settled after ${MAX_COMPASS} steps`);
       let moved = false;
       for (const d of dirs) {
         const f: [number, number] = [cur.f[0] + h * d[0], cur.f[1] + h * d[1]];

@@ -11,6 +11,7 @@
  * M sublattices shows its bands folded into this primitive path (periodic in k with the
  * reciprocal superlattice), so a uniform state's branch reads unfolded.
  */
+import { InputError } from '../input-error.ts';
 import type { Lattice, Vec2 } from '../lattice/geometry.ts';
 
 export interface ZonePath {
@@ -42,8 +43,14 @@ export function pathCorners(l: Lattice): { label: string; k: Vec2 }[] {
   }
 }
 
+/** Most points along the path (each is one eigenproblem of the linearised map). */
+export const MAX_PATH_POINTS = 10000;
+
 /** n >= 2 points along the path (corners included, so n grows to at least the corner count). */
 export function zonePath(l: Lattice, n: number): ZonePath {
+  if (!(Number.isInteger(n) && n >= 2 && n <= MAX_PATH_POINTS)) {
+    throw new InputError(`points along the zone path must be an integer 2..${MAX_PATH_POINTS}, got ${n}`, 'points');
+  }
   const corners = pathCorners(l);
   const legs = corners.length - 1;
   const len: number[] = [];
