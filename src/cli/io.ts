@@ -5,7 +5,7 @@
  * write its finished part says so with catchInterrupts(true), otherwise Ctrl-C ends the
  * process at once.
  */
-import { closeSync, existsSync, openSync, readFileSync, realpathSync, renameSync, rmSync, statfsSync, statSync, writeFileSync } from 'node:fs';
+import { chmodSync, closeSync, existsSync, openSync, readFileSync, realpathSync, renameSync, rmSync, statfsSync, statSync, writeFileSync } from 'node:fs';
 import { dirname } from 'node:path';
 import { InputError } from '../core/input-error.ts';
 import type { Engine } from '../../workers/engine.ts';
@@ -104,7 +104,12 @@ function refuse(path: string, why: string): InputError {
 export function checkOutputPath(path: string): void {
   const target = realTarget(path);
   const folder = dirname(target);
-  const folderStat = statSync(folder, { throwIfNoEntry: false });
+  let folderStat;
+  try {
+    folderStat = statSync(folder, { throwIfNoEntry: false });
+  } catch (e) {
+    throw cannotWrite(path, e); // ENOTDIR: a file on the way, EACCES: a folder we may not enter
+  }
   if (!folderStat) throw refuse(path, `the folder ${dirname(path)} does not exist`);
   if (!folderStat.isDirectory()) throw refuse(path, `${dirname(path)} is not a folder`);
   if (statSync(target, { throwIfNoEntry: false })?.isDirectory()) throw refuse(path, 'it is a folder');
@@ -131,6 +136,8 @@ export function writeTextFile(path: string, text: string): void {
   const tmp = tempBeside(target);
   try {
     writeFileSync(tmp, text);
+    const old = statSync(target, { throwIfNoEntry: false });
+    if (old) chmodSync(tmp, old.mode & 0o7777); // the replacement keeps the file's permissions
     renameSync(tmp, target);
   } catch (e) {
     rmSync(tmp, { force: true });
