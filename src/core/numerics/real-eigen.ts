@@ -18,8 +18,41 @@ export interface RealEigen {
   V: Matrix;
 }
 
-/** A V = V diag(lambda) for real A (row-major, n x n). */
+/** Householder reflections tried, in turn, when the QR iteration does not deflate. */
+const REFLECTIONS = 3;
+
+/**
+ * A V = V diag(lambda) for real A (row-major, n x n). The realified matrices of the
+ * fluctuation spectra (a complex structure, spectra +-i omega) can hold the QR sweep at a
+ * fixed point even with exceptional shifts; then the same problem is solved for Q A Q with a
+ * Householder reflection Q = I - 2 u u^T/(u.u) (u fixed, without symmetry), which breaks the
+ * structure and not the spectrum, and V = Q V'. A ConvergenceError only if all of them fail.
+ */
 export function realEigenDecomposition(n: number, A: ArrayLike<number>): RealEigen {
+  let failure: unknown;
+  for (let t = 0; t <= REFLECTIONS; t++) {
+    try {
+      if (t === 0) return decompose(n, A);
+      const u = Array.from({ length: n }, (_, i) => Math.sin(1.7 * (i + 1) * t + 0.3) + 1.1);
+      const uu = u.reduce((x, y) => x + y * y, 0);
+      const Q = (i: number, j: number) => (i === j ? 1 : 0) - (2 * u[i] * u[j]) / uu;
+      const B = new Float64Array(n * n), QA = new Float64Array(n * n);
+      for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) { let x = 0; for (let k = 0; k < n; k++) x += Q(i, k) * A[k * n + j]; QA[i * n + j] = x; }
+      for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) { let x = 0; for (let k = 0; k < n; k++) x += QA[i * n + k] * Q(k, j); B[i * n + j] = x; }
+      const r = decompose(n, B);
+      const V = new Matrix(n, n);
+      for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) { let x = 0; for (let k = 0; k < n; k++) x += Q(i, k) * r.V.get(k, j); V.set(i, j, x); }
+      return { re: r.re, im: r.im, V };
+    } catch (e) {
+      if ((e as Error).name !== 'ConvergenceError') throw e;
+      failure = e;
+    }
+  }
+  throw failure;
+}
+
+/** Hessenberg reduction, capped QR and back-substitution of one matrix. */
+function decompose(n: number, A: ArrayLike<number>): RealEigen {
   const H = new Matrix(n, n), V = new Matrix(n, n);
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) H.set(i, j, A[i * n + j]);
   const d = new Float64Array(n), e = new Float64Array(n), ort = new Float64Array(n);

@@ -38,6 +38,22 @@ describe(`real eigensolver with a capped QR iteration (${SOURCES.wilkinsonReinsc
     expect(residual(4, A, ev)).toBeLessThan(1e-12);
   });
 
+  it('the thermal normal state (delta -1, mu -3.2146, T 10), on which the QR sweep with exceptional shifts still stalls', () => {
+    // A realified 2 x 2 complex problem (layout [da, db, u, v]): its frequencies are the
+    // eigenvalues of the block [[delta - mu, 1/2], [c, -mu]] with c = 0.31872 (the spin-photon
+    // entry, r/2 for the Bloch vector length r = tanh(E/T)), w = (delta - 2 mu)/2 +- sqrt(delta^2/4 + c/2),
+    // closed form computed below; tolerance 1e-12 (a 4 x 4 problem), and A v = lambda v.
+    const A = Float64Array.from([0, 2.2145963542921314, -0.5, 0, -2.2145963542921314, 0, 0, -0.5,
+      0.3187197409693236, 0, 0, 3.2145963542921314, 0, 0.3187197409693236, -3.2145963542921314, 0]);
+    const ev = realEigenDecomposition(4, A);
+    expect(residual(4, A, ev)).toBeLessThan(1e-12);
+    const dmu = 2.2145963542921314, mu = -3.2145963542921314, c = 0.5 * 0.3187197409693236;
+    const disc = Math.sqrt(((dmu + mu) / 2) ** 2 + c);
+    const want = [Math.abs((dmu - mu) / 2 - disc), Math.abs((dmu - mu) / 2 + disc)].sort((a, b) => a - b);
+    const omegas = Array.from(ev.im).filter((x) => x > 0).sort((a, b) => a - b);
+    omegas.forEach((w, i) => expectAbs(w, want[i], 1e-12));
+  });
+
   it('A v = lambda v for seeded random matrices and for skew (purely oscillating) ones', () => {
     // Invariant check; 1e-10 relative: backward-stable QR on matrices of order <= 12 with entries O(1).
     const rng = seedrandom('real-eigen');
