@@ -67,12 +67,12 @@ export function expectWithinSigmas(
 ): void {
   const sigmas = opts.sigmas ?? MC_SIGMAS, extra = opts.extra ?? 0;
   if (!Number.isFinite(est.value) || !Number.isFinite(est.error)) expect.fail(`${what}: not finite (${est.value} +- ${est.error})`);
-  if (opts.maxError !== undefined && !(est.error <= opts.maxError)) {
-    expect.fail(`${what}: error bar ${est.error} above ${opts.maxError}, too large for a sharp check`);
-  }
   const dev = Math.abs(est.value - expected), tol = sigmas * est.error + extra;
   if (!(dev <= tol)) {
     expect.fail(`${what}: ${est.value} +- ${est.error} vs ${expected}: off by ${(dev / est.error).toFixed(1)} sigma (allowed ${sigmas} sigma + ${extra})`);
+  }
+  if (opts.maxError !== undefined && !(est.error <= opts.maxError)) {
+    expect.fail(`${what}: error bar ${est.error} above ${opts.maxError}, too large for a sharp check`);
   }
 }
 
