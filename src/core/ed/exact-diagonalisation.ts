@@ -57,6 +57,30 @@ export interface EdResult {
   lanczos: { iterations: number; residual: number; evaluations: number };
 }
 
+/**
+ * Largest |V_ij| of a pair the basis holds: 1e8 g. Lanczos resolves the ground energy only to
+ * about eps |H| (2e-8 g here, against the 1e-6 relative at which lanczos.ts gives up); a
+ * stronger pair is blockaded to every purpose and belongs outside the basis (the
+ * blockade-truncated basis drops pairs with V_ij >= Vb). A ring with Rb = 1000 (V ~ 1e18)
+ * gave a residual of 1e6.
+ */
+export const ED_MAX_PAIR = 1e8;
+
+/** Refuse a basis holding a pair beyond ED_MAX_PAIR, saying how to drop it. */
+function checkResolvable(cluster: Cluster, blockade: number | undefined): void {
+  const N = cluster.N;
+  let worst = 0;
+  for (let i = 0; i < N * N; i++) {
+    const v = cluster.V[i];
+    if (blockade !== undefined && v >= blockade) continue;
+    worst = Math.max(worst, Math.abs(v));
+  }
+  if (worst > ED_MAX_PAIR) {
+    throw new InputError(
+      `a pair interaction of ${worst.toExponential(3)} g in the basis is beyond what Lanczos resolves (${ED_MAX_PAIR} g); give a blockade threshold (e.g. 2) to drop blockaded pairs`, 'blockade');
+  }
+}
+
 /** Run exact diagonalisation; `cluster` may be passed pre-built (it must match request.cluster). */
 export function exactDiagonalisation(req: EdRequest, cluster: Cluster = buildCluster(req.cluster)): EdResult {
   const mu = requireFinite(req.mu, 'mu');
@@ -64,6 +88,7 @@ export function exactDiagonalisation(req: EdRequest, cluster: Cluster = buildClu
     throw new InputError('give alpha (a fixed photon amplitude) or the detuning (alpha found self-consistently)', 'alpha');
   }
   if (req.delta !== undefined) requireBelowDetuning(mu, req.delta);
+  checkResolvable(cluster, req.blockade);
   const sys = edSystem(cluster, mu, req.blockade, req.symmetric ?? true);
   let g: GroundState, evaluations = 1;
   if (req.alpha !== undefined) g = groundState(sys, req.alpha);

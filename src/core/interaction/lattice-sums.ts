@@ -16,8 +16,8 @@
  * result is exact to rounding (~1e-14 relative). Softcore on the chain with Rc >= 1: Poisson
  * summation with the closed-form transform (softcore-poisson.ts), stable at any Rc. Softcore
  * otherwise: V0 Rc^6 times the r^-6 Ewald sum plus the direct sum of
- * V - V0 Rc^6/r^6 = -V0 Rc^12/(r^6 (r^6 + Rc^6)), whose neglected tail beyond 15 Rc is below
- * (1/15)^{12-d} of the nearest term; the two parts are ~Rc^{6-d} times the result, so rounding
+ * V - V0 Rc^6/r^6 = -V0 Rc^12/(r^6 (r^6 + Rc^6)), whose neglected tail beyond 15 Rc (1D) or
+ * 10 Rc (2D) is below (1/15)^11 or (1/10)^10 of the result; the two parts are ~Rc^{6-d} times the result, so rounding
  * costs eps Rc^{6-d} relative (< 1e-12 for Rc < 1 in 1D and < 1e-10 for Rc <= MAX_SOFTCORE_RC_2D = 20
  * in 2D, where potential.ts refuses larger Rc).
  */
@@ -48,6 +48,8 @@ export function couplings(l: Lattice, cell: Supercell, pot: Potential, k: Vec2 =
     directSum(l, cell, (r) => (r > pot.rmax + 1e-9 ? 0 : pot.V(r)), pot.rmax, k, J);
   } else if (pot.powerLaw) {
     ewaldSum(l, cell, pot.powerLaw.s, pot.powerLaw.C, k, J);
+  } else if (pot.softcore && pot.softcore.V0 === 0) {
+    // V = 0: nothing to sum.
   } else if (pot.softcore && l.dim === 1 && pot.softcore.Rc >= POISSON_MIN_RC) {
     softcorePoissonChain(M, pot.softcore.V0, pot.softcore.Rc, k[0], J);
   } else if (pot.softcore) {
@@ -55,7 +57,7 @@ export function couplings(l: Lattice, cell: Supercell, pot: Potential, k: Vec2 =
     const Rc6 = Math.pow(Rc, 6);
     ewaldSum(l, cell, 6, V0 * Rc6, k, J);
     const rest = (r: number) => { const r6 = Math.pow(r, 6); return (-V0 * Rc6 * Rc6) / (r6 * (r6 + Rc6)); };
-    directSum(l, cell, rest, Math.max(15 * Rc, 10), k, J);
+    directSum(l, cell, rest, Math.max((l.dim === 1 ? 15 : 10) * Rc, 10), k, J);
   } else {
     throw new Error(`no lattice sum for ${pot.shape} without a range`);
   }
