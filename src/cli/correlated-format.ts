@@ -18,7 +18,7 @@ function momenta<T extends Momentum>(c: ClusterSpec, points: T[]): (Omit<T, 'k' 
 }
 
 /** The input as JSON-safe data (positions of an array left out; their count kept). */
-function clusterJson(c: ClusterSpec): Record<string, unknown> {
+export function clusterJson(c: ClusterSpec): Record<string, unknown> {
   const interaction = { ...c.interaction };
   if (interaction.rmax === Infinity) delete interaction.rmax;
   return c.kind === 'array' ? { kind: 'array', lattice: c.lattice, sites: c.positions.length / 2, interaction } : { ...c, interaction };

@@ -1,0 +1,66 @@
+/**
+ * How `qmc-scan` prints: CSV with one row per cluster size and axis value (index, size, the
+ * axis value, then energy, density, sigmaX, alpha, photonDensity, orderParameter and binder,
+ * each followed by its error, then the phase and, for a failed run, why), or JSON with the
+ * same per point plus the notes and the Binder crossings; and the crossings in one line.
+ */
+import type { BinderCrossing } from '../core/qmc/binder-crossing.ts';
+import type { QmcScanPoint, QmcScanRequest } from '../../workers/protocol.ts';
+
+type Estimate = { value: number; error: number };
+
+/** Observables of a row, in column order (each with an error column after it). */
+const OBSERVABLES = ['energy', 'density', 'sigmaX', 'alpha', 'photonDensity', 'orderParameter', 'binder'] as const;
+
+/** One point's observables as { value, error } (null where the run has none). */
+export function pointSummary(p: QmcScanPoint): Record<(typeof OBSERVABLES)[number], Estimate | null> {
+  const r = p.result;
+  const e = (x: Estimate | null | undefined) => (x ? { value: x.value, error: x.error } : null);
+  return {
+    energy: e(r?.energyPerSite), density: e(r?.density), sigmaX: e(r?.sigmaX), alpha: e(r?.alpha),
+    photonDensity: e(r?.photonDensity), orderParameter: e(r?.orderParameter), binder: e(r?.binder),
+  };
+}
+
+function field(v: number | string | null | undefined): string {
+  if (v === null || v === undefined) return '';
+  const s = String(v);
+  return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+/** The CSV: a '# ...' line naming the shard when sharded, the header, one row a point. */
+export function qmcScanCsv(req: QmcScanRequest, points: readonly QmcScanPoint[]): string {
+  const head = ['index', 'size', req.axis.name, ...OBSERVABLES.flatMap((o) => [o, `${o}Error`]), 'phase', 'error'];
+  const rows = points.map((p) => {
+    const s = pointSummary(p);
+    return [p.index, p.size, p.value, ...OBSERVABLES.flatMap((o) => [s[o]?.value, s[o]?.error]), p.result?.phase, p.error].map(field).join(',');
+  });
+  const tag = req.shard ? [`# blockade-atlas qmc-scan shard=${req.shard.k}/${req.shard.n} points=${req.sizes.length * req.axis.values.length}`] : [];
+  return [...tag, head.join(','), ...rows].join('\n') + '\n';
+}
+
+/** The JSON document. */
+export function qmcScanJson(req: QmcScanRequest, points: readonly QmcScanPoint[], crossings: BinderCrossing[], complete: boolean): string {
+  const { cluster, ...run } = req.base;
+  return JSON.stringify({
+    axis: req.axis, sizes: req.sizes, shard: req.shard ?? null, complete,
+    params: { lattice: cluster.lattice, interaction: cluster.interaction, ...run },
+    points: points.map((p) => ({
+      index: p.index, size: p.size, [req.axis.name]: p.value, ...pointSummary(p), phase: p.result?.phase ?? null,
+      orderMomentum: p.result?.orderParameter?.m ?? null, notes: p.result?.notes ?? [], ...(p.error !== undefined ? { error: p.error } : {}),
+    })),
+    crossings: crossings.map((c) => ({ sizes: c.sizes, at: c.at, error: c.error, between: c.between })),
+  }) + '\n';
+}
+
+/** "Binder crossings along mu: L 8/16 at 0.512 +- 0.004; L 16/32 none in the range". */
+export function crossingLine(req: QmcScanRequest, crossings: BinderCrossing[]): string {
+  const parts: string[] = [];
+  for (let i = 0; i + 1 < req.sizes.length; i++) {
+    const [a, b] = [req.sizes[i], req.sizes[i + 1]];
+    const cs = crossings.filter((c) => c.sizes[0] === a && c.sizes[1] === b);
+    parts.push(cs.length === 0 ? `L ${a}/${b} none in the range`
+      : `L ${a}/${b} at ${cs.map((c) => `${Number(c.at.toPrecision(6))} +- ${Number(c.error.toPrecision(2))}`).join(' and ')}`);
+  }
+  return `Binder crossings along ${req.axis.name}: ${parts.length ? parts.join('; ') : 'need two sizes or more'}${req.shard ? ' (this shard only)' : ''}\n`;
+}
