@@ -55,7 +55,7 @@ export function crossingsOf(a: BinderCurve, b: BinderCurve): BinderCrossing[] {
     out.push({ sizes, at: p.x + (h * p.d) / D, error: scale * Math.sqrt(q.d * q.d * p.s2 + p.d * p.d * q.s2), between: [p.x, q.x] });
   }
   const last = pts[pts.length - 1];
-  if (last && last.d === 0 && pts.length > 0) out.push({ sizes, at: last.x, error: 0, between: [last.x, last.x] });
+  if (last && last.d === 0) out.push({ sizes, at: last.x, error: 0, between: [last.x, last.x] });
   return out;
 }
 
