@@ -83,3 +83,21 @@ export function expectAboveBy(a: McEstimate, b: McEstimate, what: string, k = 1)
     expect.fail(`${what}: ${a.value} +- ${a.error} is not above ${b.value} +- ${b.error} by ${k} combined errors (${combined})`);
   }
 }
+
+/**
+ * The grid part of the tolerance of a self-consistent alpha. The Monte Carlo takes the root
+ * of D(alpha) = 2 (delta - mu) alpha - <sigma^x>(alpha) by linear interpolation between two
+ * points of its alpha grid (free-energy-scan.ts). Even with the exact <sigma^x>, that
+ * interpolation between the grid points that bracket the exact root misses it by the amount
+ * returned (the curvature of <sigma^x> over one grid step), which the statistical error does
+ * not contain. `grid` is the run's grid (its alphaScan), `dmu` = delta - mu; a root outside
+ * the grid gets the largest spacing.
+ */
+export function gridAllowance(grid: readonly number[], dmu: number, sigmaX: (alpha: number) => number, exactRoot: number): number {
+  const g = [...grid].sort((x, y) => x - y);
+  const k = g.findIndex((a, i) => i + 1 < g.length && a <= exactRoot && exactRoot <= g[i + 1]);
+  if (k < 0) return Math.max(...g.slice(1).map((a, i) => a - g[i]));
+  const a = g[k], b = g[k + 1];
+  const Da = 2 * dmu * a - sigmaX(a), Db = 2 * dmu * b - sigmaX(b);
+  return Math.abs(a + ((b - a) * -Da) / (Db - Da) - exactRoot);
+}
