@@ -71,6 +71,22 @@ export interface SseChainHooks {
   onProgress?: (done: number, total: number) => void;
 }
 
+/**
+ * Thermalisation by annealing: beta / 2^m, ..., beta / 2, beta, from beta_0 <= 1 / (weight
+ * per site) (where defects of a random start heal at once) up to beta, a share of the
+ * sweeps each and the last half at beta itself. A string at beta' stays a valid start at
+ * 2 beta' (the diagonal update rescales n). Without it, domain walls of a random start
+ * coarsen only diffusively (~L^2 sweeps) at low T and bias every estimate.
+ */
+function annealing(beta: number, weight: number, sweeps: number): { beta: number; sweeps: number }[] {
+  const beta0 = Math.min(beta, 1 / Math.max(weight, 1e-300));
+  const m = Math.min(30, Math.max(0, Math.ceil(Math.log2(beta / beta0))));
+  const each = m > 0 ? Math.floor(sweeps / (2 * m)) : 0;
+  const out = Array.from({ length: m }, (_, k) => ({ beta: beta / 2 ** (m - k), sweeps: each }));
+  out.push({ beta, sweeps: sweeps - m * each });
+  return out;
+}
+
 /** Run one chain on a built geometry (`fourier` may be passed in to reuse its tables). */
 export function runSseChain(req: SseChainRequest, g: QmcGeometry, hooks: SseChainHooks = {}, fourier: DensityFourier = densityFourier(g)): SseChainResult {
   const { beta, alpha, bins } = req;
@@ -80,12 +96,14 @@ export function runSseChain(req: SseChainRequest, g: QmcGeometry, hooks: SseChai
   const state = new Uint8Array(N);
   for (let i = 0; i < N; i++) state[i] = rng() < 0.5 ? 1 : 0;
   const total = terms.constWeight + terms.bondWeight + terms.fieldWeight;
-  const cfg = emptyConfig(state, Math.max(32, Math.ceil(1.25 * beta * total)));
+  const schedule = annealing(beta, total, req.thermalization);
+  const cfg = emptyConfig(state, Math.max(32, Math.ceil(1.25 * schedule[0].beta * total)));
   const links = vertexLinks(N, cfg.L), cs = clusterScratch(cfg.L), ls = lineScratch(64);
   // A sweep measures between its diagonal and off-diagonal halves, on the linked string.
   let measure: (() => void) | null = null;
+  let b = beta;
   const sweep = () => {
-    diagonalUpdate(cfg, terms, beta, rng);
+    diagonalUpdate(cfg, terms, b, rng);
     linkVertices(cfg, links);
     if (measure) measure();
     if (alpha > 0) clusterUpdate(cfg, terms, links, cs, rng);
@@ -94,11 +112,16 @@ export function runSseChain(req: SseChainRequest, g: QmcGeometry, hooks: SseChai
   };
   const totalSweeps = req.thermalization + req.sweeps;
   const every = Math.max(1, Math.floor(totalSweeps / 50));
-  for (let s = 0; s < req.thermalization; s++) {
-    sweep();
-    adjustCutoff(cfg);
-    if ((s + 1) % every === 0) hooks.onProgress?.(s + 1, totalSweeps);
+  let s = 0;
+  for (const stage of schedule) {
+    b = stage.beta;
+    for (let k = 0; k < stage.sweeps; k++, s++) {
+      sweep();
+      adjustCutoff(cfg);
+      if ((s + 1) % every === 0) hooks.onProgress?.(s + 1, totalSweeps);
+    }
   }
+  b = beta;
   const binSize = Math.floor(req.sweeps / bins);
   const interval = Math.max(1, Math.min(binSize, Math.ceil(fourier.work / (4 * cfg.L))));
   const out: SseChainResult = {

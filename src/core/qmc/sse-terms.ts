@@ -14,9 +14,16 @@
  *   mu_i^(j) = mu |V_ij| / S_i,   S_i = sum_j |V_ij|   (so sum_j mu_i^(j) = mu),
  *   C_ij = -min over (n_i, n_j) of the rest + EPSILON (|V_ij| + |mu_i^(j)| + |mu_j^(i)|).
  *
+ * EPSILON = 0: the least favoured configuration of a bond (a blockaded pair, or in the
+ * transverse-field Ising limit an anti-aligned pair) carries no bond operator, as in
+ * Sandvik's algorithm, so multibranch clusters follow domains and a domain wall of a random
+ * start is removed by one cluster flip. A positive shift lets bonds sit across walls, binds
+ * the domains into one cluster, and leaves walls to coarsen diffusively (measured: trapped
+ * walls in a 32-site ring at beta = 64 tripled <sigma^x> at small alpha). Operators only ever
+ * sit where their weight is positive, so no ratio divides by zero.
+ *
  * A site with no interaction (S_i = 0, set F) carries mu alone in a diagonal field operator
- * h_i = mu n_i + C_i. E0 = N alpha + sum C. All weights are >= EPSILON times their scale, so
- * no move meets a zero weight. On the nearest-neighbour chain at mu = V1 the bond weights are
+ * h_i = mu n_i + C_i. E0 = N alpha + sum C. On the nearest-neighbour chain at mu = V1 the bond weights are
  * symmetric under flipping both sites (the transverse-field Ising point), so multibranch
  * clusters are accepted with probability one there.
  *
@@ -28,8 +35,8 @@
 import { type AliasTable, aliasTable } from './alias-table.ts';
 import type { Torus } from './torus.ts';
 
-/** Relative positive shift of every diagonal weight. */
-export const EPSILON = 0.1;
+/** Relative positive shift of every diagonal weight (see the header for why it is zero). */
+export const EPSILON = 0;
 
 /** What the sampler needs of the cluster: couplings by displacement (torus) or by pair (array). */
 export type SseCouplings =
