@@ -1,8 +1,8 @@
 /**
  * How `qmc-scan` prints: CSV with one row per cluster size and axis value (index, size, the
- * axis value, then energy, density, sigmaX, alpha, photonDensity, orderParameter and binder,
+ * axis value (column named after the axis; 'alphaAxis' for alpha), then energy, density, sigmaX, alpha, photonDensity, orderParameter and binder,
  * each followed by its error, then the phase and, for a failed run, why), or JSON with the
- * same per point plus the notes and the Binder crossings; and the crossings in one line.
+ * same per point (the axis value as `value`) plus the notes and the Binder crossings; and the crossings in one line.
  */
 import type { BinderCrossing } from '../core/qmc/binder-crossing.ts';
 import type { QmcScanPoint, QmcScanRequest } from '../../workers/protocol.ts';
@@ -22,6 +22,11 @@ export function pointSummary(p: QmcScanPoint): Record<(typeof OBSERVABLES)[numbe
   };
 }
 
+/** The CSV column of the axis: its name, but 'alphaAxis' beside the observable alpha. */
+export function axisColumn(name: string): string {
+  return name === 'alpha' ? 'alphaAxis' : name;
+}
+
 function field(v: number | string | null | undefined): string {
   if (v === null || v === undefined) return '';
   const s = String(v);
@@ -30,7 +35,7 @@ function field(v: number | string | null | undefined): string {
 
 /** The CSV: a '# ...' line naming the shard when sharded, the header, one row a point. */
 export function qmcScanCsv(req: QmcScanRequest, points: readonly QmcScanPoint[]): string {
-  const head = ['index', 'size', req.axis.name, ...OBSERVABLES.flatMap((o) => [o, `${o}Error`]), 'phase', 'error'];
+  const head = ['index', 'size', axisColumn(req.axis.name), ...OBSERVABLES.flatMap((o) => [o, `${o}Error`]), 'phase', 'error'];
   const rows = points.map((p) => {
     const s = pointSummary(p);
     return [p.index, p.size, p.value, ...OBSERVABLES.flatMap((o) => [s[o]?.value, s[o]?.error]), p.result?.phase, p.error].map(field).join(',');
@@ -46,7 +51,7 @@ export function qmcScanJson(req: QmcScanRequest, points: readonly QmcScanPoint[]
     axis: req.axis, sizes: req.sizes, shard: req.shard ?? null, complete,
     params: { lattice: cluster.lattice, interaction: cluster.interaction, ...run },
     points: points.map((p) => ({
-      index: p.index, size: p.size, [req.axis.name]: p.value, ...pointSummary(p), phase: p.result?.phase ?? null,
+      index: p.index, size: p.size, ix: p.ix, value: p.value, ...pointSummary(p), phase: p.result?.phase ?? null,
       orderMomentum: p.result?.orderParameter?.m ?? null, notes: p.result?.notes ?? [], ...(p.error !== undefined ? { error: p.error } : {}),
     })),
     crossings: crossings.map((c) => ({ sizes: c.sizes, at: c.at, error: c.error, between: c.between })),
