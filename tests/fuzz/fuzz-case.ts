@@ -7,7 +7,7 @@
  *   named     a ConvergenceError (a numerical limit at a valid input, named);
  *   crash     any other exception; wrong: a result that fails a check (with the reason).
  *
- * Checks without interaction (V = 0, or a range below the nearest-neighbour distance), from
+ * Checks without interaction (V = 0, or a range below the closest pair distance), from
  * DESIGN.md's check values, on any lattice:
  *   - mean-field at fixed mu: every emitter alone in the photon field. Normal state while
  *     (delta - mu) >= g0 = tanh(|mu|/(2T))/|mu| (T = 0: 1/|mu|; the Dicke transition, Hepp and
@@ -34,6 +34,7 @@ import { exactDiagonalisation } from '../../src/core/ed/exact-diagonalisation.ts
 import { variationalMonteCarlo } from '../../src/core/vmc/variational-monte-carlo.ts';
 import type { InteractionSpec } from '../../src/core/interaction/potential.ts';
 import type { ModelParams } from '../../src/core/model.ts';
+import type { ClusterSpec } from '../../src/core/cluster/spec.ts';
 import type { FuzzCase } from './fuzz-inputs.ts';
 
 export type Verdict = 'answered' | 'refused' | 'named' | 'crash' | 'wrong';
@@ -46,12 +47,21 @@ export interface Outcome {
   checked?: boolean;
 }
 
-/** No pair interacts: zero strengths, or a range below the nearest-neighbour distance 1. */
-export function noInteraction(s: InteractionSpec): boolean {
-  if (s.rmax !== undefined && s.rmax < 1 - 1e-9) return true;
+/** No pair interacts: zero strengths, or a range below the closest distance (1 on a lattice). */
+export function noInteraction(s: InteractionSpec, closest = 1): boolean {
+  if (s.rmax !== undefined && s.rmax < closest - 1e-9) return true;
   if (s.shape === 'nn') return s.V1 === 0 && !s.V2;
   if (s.shape === 'softcore') return s.V0 === 0;
   return s.V1 === 0;
+}
+
+/** Closest pair distance of a cluster (1 for a periodic one, the lattice spacing). */
+function closestPair(c: ClusterSpec): number {
+  if (c.kind === 'periodic') return 1;
+  let d = Infinity;
+  const p = c.positions;
+  for (let i = 0; i < p.length; i += 2) for (let j = i + 2; j < p.length; j += 2) d = Math.min(d, Math.hypot(p[j] - p[i], p[j + 1] - p[i + 1]));
+  return d;
 }
 
 /** The first NaN or infinite number inside a result (its path), or null. */
@@ -129,7 +139,7 @@ function check(c: FuzzCase, r: unknown, mark: { checked: boolean }): string | nu
       if (b.omega.length !== 1 || !close(b.omega[0], -mu, 1e-9 * Math.abs(mu))) return `branch at k = ${b.k}: ${b.omega}, flat band ${-mu}`;
     }
   }
-  if ((c.kind === 'ed' || c.kind === 'vmc') && c.alpha !== undefined && noInteraction(c.cluster.interaction)) {
+  if ((c.kind === 'ed' || c.kind === 'vmc') && c.alpha !== undefined && noInteraction(c.cluster.interaction, closestPair(c.cluster))) {
     const exact = -c.mu / 2 - Math.sqrt(c.mu * c.mu / 4 + c.alpha * c.alpha);
     mark.checked = true;
     if (c.kind === 'ed') {

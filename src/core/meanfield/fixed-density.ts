@@ -15,6 +15,7 @@
  */
 import type { ModelParams } from '../model.ts';
 import { InputError } from '../input-error.ts';
+import { ConvergenceError } from '../convergence-error.ts';
 import type { MeanFieldState, SolveResult } from './state.ts';
 import { context, searchCells, toState, type SearchOptions } from './cell-search.ts';
 
@@ -22,6 +23,9 @@ import { context, searchCells, toState, type SearchOptions } from './cell-search
 export const MU_TOL = 1e-11;
 /** ... or rho is matched to RHO_TOL. */
 export const RHO_TOL = 1e-12;
+
+/** A continuous rho(mu) whose closed bracket still misses the target by more than this (1 + rho) is refused. */
+export const STEEP_TOL = 1e-6;
 
 /** A rho step across the closed bracket below JUMP_MIN (1 + rho) is never called a jump. */
 export const JUMP_MIN = 1e-9;
@@ -79,7 +83,15 @@ export function solveFixedDensity(p: ModelParams, o: SearchOptions = {}): SolveR
   const outMu = hiMu + w < p.delta ? hiMu + w : loMu - w;
   const out = at(outMu, outMu > hiMu ? hi : lo);
   const kappa = Math.abs(out.excitationDensity - (outMu > hiMu ? rh : rl)) / w;
-  if (rh - rl <= Math.max(JUMP_MIN * (1 + target), 100 * kappa * width)) return target - rl < rh - target ? lo : hi;
+  if (rh - rl <= Math.max(JUMP_MIN * (1 + target), 100 * kappa * width)) {
+    const near = target - rl < rh - target ? lo : hi;
+    // A continuous rho(mu) too steep for the resolution of mu (e.g. T >> g, where the
+    // condensate appears within 1/(2T) of delta): say so rather than return another density.
+    if (Math.abs(near.excitationDensity - target) > STEEP_TOL * (1 + target)) {
+      throw new ConvergenceError('fixed density', `rho(mu) rises from ${rl} to ${rh} within mu = ${loMu}..${hiMu}, finer than mu resolves; density ${target} not reached`);
+    }
+    return near;
+  }
   const xLow = (rh - target) / (rh - rl);
   return { ...lo, coexistence: { phases: [lo, hi], fractions: [xLow, 1 - xLow] } };
 }
