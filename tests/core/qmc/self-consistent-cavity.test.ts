@@ -91,6 +91,7 @@ describe(`self-consistent cavity on the nn chain at mu = V1, exact from free fer
     const r = quantumMonteCarlo({ cluster: ring, mu, delta: mu + c, temperature: T, sweeps: 2000, seed: 1 });
     const extra = gridAllowance(r.alphaScan!.map((p) => p.alpha), c, (a) => transverseIsingChain(J, a, T).sigmaX, exact);
     expectWithinSigmas(r.alpha, exact, `alpha (exact ${exact}, mean-field 0)`, { extra, maxError: 0.01 });
+    expect(r.phase).toBe('superradiant');
   });
 
   it(`Monte Carlo, crystal side c = c_c + 0.15: alpha = 0 (ring of 16, T = ${T})`, () => {
@@ -100,6 +101,7 @@ describe(`self-consistent cavity on the nn chain at mu = V1, exact from free fer
     expect(condensed(c, T).f).toBeGreaterThan(f(c, 0, T) + 0.004);
     const r = quantumMonteCarlo({ cluster: ring, mu, delta: mu + c, temperature: T, sweeps: 2000, seed: 1 });
     expectWithinSigmas(r.alpha, 0, 'alpha (exact 0)');
+    expect(['superradiant', 'supersolid']).not.toContain(r.phase);
   });
 
   // Longer variant (QMC_LONG=1, about 40 s): the crystal side over several seeds. With the
