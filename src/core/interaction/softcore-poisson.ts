@@ -17,7 +17,6 @@
  * cancellation (the split V0 Rc^6 r^-6 + remainder cancels catastrophically when Rc >> 1:
  * issue 10). Used where Rc >= POISSON_MIN_RC = 1; the sum over j has about 32 M/Rc terms.
  */
-import type { CouplingMatrix } from './lattice-sums.ts';
 
 /** Core radius from which the chain's soft-core sum goes by Poisson summation. */
 export const POISSON_MIN_RC = 1;
@@ -38,8 +37,8 @@ export function softcoreTransform(u: number): number {
   return re;
 }
 
-/** Add the soft-core J_st(k) of an M-periodic chain cell into J (sublattice s at x = s). */
-export function softcorePoissonChain(M: number, V0: number, Rc: number, k: number, J: CouplingMatrix): void {
+/** Add the soft-core J_st(k) of an M-periodic chain cell into J (row-major re, im; sublattice s at x = s). */
+export function softcorePoissonChain(M: number, V0: number, Rc: number, k: number, J: { re: Float64Array; im: Float64Array }): void {
   const pmax = U_CUT / Rc;
   const jlo = Math.floor(((k - pmax) * M) / (2 * Math.PI)), jhi = Math.ceil(((k + pmax) * M) / (2 * Math.PI));
   for (let j = jlo; j <= jhi; j++) {
