@@ -39,7 +39,7 @@ export function clusterUpdate(c: SseConfig, t: SseTerms, v: VertexLinks, s: Clus
   const L4 = 4 * c.L;
   visited.fill(0, 0, L4);
   const { kind, cls } = c, { link, spin } = v;
-  const bondW = t.bondW, fieldW = t.fieldW;
+  const flipBoth = t.flipBoth, fieldW = t.fieldW;
   let flipped = 0;
   for (let start = 0; start < L4; start++) {
     if (visited[start]) continue;
@@ -51,8 +51,8 @@ export function clusterUpdate(c: SseConfig, t: SseTerms, v: VertexLinks, s: Clus
     for (let w = start; ;) {
       const q = w >> 2, kq = kind[q];
       if (kq === SLOT_BOND) {
-        const b = 4 * cls[q], base = 4 * q, si = spin[base], sj = spin[base + 1];
-        ratio *= bondW[b + 3 - 2 * si - sj] / bondW[b + 2 * si + sj];
+        const base = 4 * q;
+        ratio *= flipBoth[4 * cls[q] + 2 * spin[base] + spin[base + 1]];
         visited[base] = visited[base + 1] = visited[base + 2] = visited[base + 3] = 1;
         queue[tail++] = base; queue[tail++] = base + 1; queue[tail++] = base + 2; queue[tail++] = base + 3;
       } else if (kq === SLOT_FIELD) {

@@ -35,9 +35,8 @@ export function lineScratch(L: number): LineScratch {
 function legRatio(c: SseConfig, t: SseTerms, spin: Uint8Array, v: number): number {
   const q = v >> 2;
   if (c.kind[q] === SLOT_FIELD) return t.fieldW[1 - spin[v]] / t.fieldW[spin[v]];
-  const b = 4 * c.cls[q], si = spin[4 * q], sj = spin[4 * q + 1];
-  const fi = (v & 1) === 0 ? 1 - si : si, fj = (v & 1) === 0 ? sj : 1 - sj;
-  return t.bondW[b + 2 * fi + fj] / t.bondW[b + 2 * si + sj];
+  const x = 4 * c.cls[q] + 2 * spin[4 * q] + spin[4 * q + 1];
+  return (v & 1) === 0 ? t.flipI[x] : t.flipJ[x];
 }
 
 /** Try every segment of every site's line once; free sites get a random occupation. Returns accepted flips. */

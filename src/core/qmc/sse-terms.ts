@@ -53,6 +53,13 @@ export interface SseTerms {
   /** Bond class c: W_c(n_i, n_j) at [4c + 2 n_i + n_j]; its maximum at wmax[c]. */
   readonly bondW: Float64Array;
   readonly bondMax: Float64Array;
+  /**
+   * Weight ratios of the off-diagonal moves at [4c + 2 n_i + n_j]: both sites flipped
+   * (clusters), site i flipped, site j flipped (lines); 0 where the new weight is 0.
+   */
+  readonly flipBoth: Float64Array;
+  readonly flipI: Float64Array;
+  readonly flipJ: Float64Array;
   /** Torus: draw d (class = d) from this table over d = 1..N-1 (index d - 1). */
   readonly displacementTable: AliasTable | null;
   /** Array: class = pair index; pair sites and the table. */
@@ -135,9 +142,13 @@ export function sseTerms(c: SseCouplings, mu: number, alpha: number): SseTerms {
     fieldWeight = fieldSites.length * fieldMax;
     E0 += fieldSites.length * C;
   }
+  const ratio = (f: (s: number) => number) => bondW.map((w, x) => {
+    const base = x & ~3, to = bondW[base + f(x & 3)];
+    return w > 0 ? to / w : 0;
+  });
   return {
     N, alpha, kind: c.kind, Lx: c.kind === 'torus' ? c.torus.Lx : N, Ly: c.kind === 'torus' ? c.torus.Ly : 1,
-    bondW, bondMax, displacementTable, pairI, pairJ, pairTable, fieldW, fieldMax, fieldSites,
+    bondW, bondMax, flipBoth: ratio((s) => 3 - s), flipI: ratio((s) => s ^ 2), flipJ: ratio((s) => s ^ 1), displacementTable, pairI, pairJ, pairTable, fieldW, fieldMax, fieldSites,
     constWeight: N * alpha, bondWeight, fieldWeight, E0,
   };
 }
