@@ -1,7 +1,9 @@
 /**
  * One Markov chain of stochastic series expansion for H(alpha) at inverse temperature beta:
  * a sweep is a diagonal update, the multibranch cluster update (alpha > 0) and the line
- * updates; the expansion cutoff grows during thermalisation only. The scalar estimators are
+ * updates; the expansion cutoff L grows whenever the operators fill more than 3/4 of it (the
+ * expansion truncated at L is exact while n never reaches L, so growing it never biases,
+ * and a short thermalisation cannot leave it too small). The scalar estimators are
  * read after every sweep, the density Fourier components (O(N (Lx + Ly)) each) every
  * `fourierInterval` sweeps, chosen so that they cost at most about a quarter of the sweeps;
  * both are averaged in `bins` consecutive bins, the raw material of binning errors and
@@ -163,6 +165,7 @@ export function runSseChain(req: SseChainRequest, g: QmcGeometry, hooks: SseChai
   for (bin = 0; bin < bins; bin++) {
     for (inBin = 0; inBin < binSize; inBin++) {
       sweep();
+      adjustCutoff(cfg);
       const done = req.thermalization + bin * binSize + inBin + 1;
       if (done % every === 0) hooks.onProgress?.(done, totalSweeps);
     }
