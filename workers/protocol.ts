@@ -12,7 +12,7 @@ import type { ModelParams } from '../src/core/model.ts';
 import type { MeanFieldState } from '../src/core/meanfield/state.ts';
 import type { SolveResult } from '../src/core/meanfield/ground-state.ts';
 import type { Plateau } from '../src/core/meanfield/plateaus.ts';
-import type { ScanPlan, ScanPoint } from '../src/core/scan/grid.ts';
+import type { ScanPlan, ScanPoint, Segment } from '../src/core/scan/grid.ts';
 import type { Shard } from '../src/core/scan/shards.ts';
 import type { PhaseMargin, PhaseMarginOptions } from '../src/core/scan/phase-margin.ts';
 import type { SpectrumRequest, StateSpectrum } from '../src/core/spectrum/state-spectrum.ts';
@@ -104,6 +104,11 @@ export interface MapScanRequest {
   /** Pass each state to the next point of its segment as a guess (default true). */
   continuation?: boolean;
   order?: 'rows' | 'spread';
+  /**
+   * Only these segments of the plan's grid (in this order; shard is then ignored): the CLI
+   * streams a big map a window of segments at a time and resumes a part where it stopped.
+   */
+  segments?: Segment[];
 }
 
 /** The points of a map scan, ordered by index (failed points carry their error). */
@@ -171,6 +176,12 @@ export interface ScanOptions<Item> {
   pointBudgetMs?: number;
   /** Stream each point through a Comlink callback as it finishes (default: a segment at a time). */
   streamPoints?: boolean;
+  /**
+   * false: keep none of the items; each goes only to onItem and the result's list is empty
+   * (memory independent of the scan's size; a map keeps only the indices it delivered, to
+   * drop a point that arrives twice). Default true.
+   */
+  keepPoints?: boolean;
 }
 
 // ---- quantum Monte Carlo (workers/api/qmc.ts, qmc-run.ts, qmc-scan.ts) -----------------

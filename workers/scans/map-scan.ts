@@ -21,7 +21,7 @@ export const DEFAULT_POINT_BUDGET_MS = 120_000;
 export async function runMapScan(pool: WorkerPool<Engine>, req: MapScanRequest, o: ScanOptions<ScanPoint> = {}): Promise<MapScanResult> {
   const { plan } = req;
   const { nx, ny } = gridShape(plan);
-  let segs = shardSegments(nx, ny, req.shard);
+  let segs = req.segments ?? shardSegments(nx, ny, req.shard);
   if (req.order === 'spread') {
     const rank = new Map(spreadRows(ny).map((iy, r) => [iy, r]));
     segs = [...segs].sort((a, b) => (rank.get(a.iy) as number) - (rank.get(b.iy) as number) || a.ix0 - b.ix0);
@@ -29,13 +29,16 @@ export async function runMapScan(pool: WorkerPool<Engine>, req: MapScanRequest, 
   const total = segs.reduce((a, s) => a + s.length, 0);
   const continuation = req.continuation ?? true;
   const delivered = new Map<number, ScanPoint>();
+  // keepPoints false (streaming): only the indices, to drop a point that arrives twice
+  const seen = o.keepPoints === false ? new Set<number>() : undefined;
   const deliver = (seg: Segment, i: number, r: PointOutcome) => {
     const ix = seg.ix0 + i, index = seg.iy * nx + ix;
-    if (delivered.has(index)) return; // the run's return value and its callback may both carry it
+    if (seen ? seen.has(index) : delivered.has(index)) return; // the run's return value and its callback may both carry it
     const pt: ScanPoint = { index, ix, iy: seg.iy, ...r };
-    delivered.set(index, pt);
+    if (seen) seen.add(index);
+    else delivered.set(index, pt);
     o.onItem?.(pt);
-    o.onProgress?.(delivered.size, total);
+    o.onProgress?.(seen ? seen.size : delivered.size, total);
   };
   const pointBudget = o.pointBudgetMs ?? DEFAULT_POINT_BUDGET_MS;
   await pool.run(segs, async (remote, seg) => {
