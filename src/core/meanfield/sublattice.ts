@@ -76,13 +76,15 @@ const CHECK_TOL = 1e-9;
 
 /**
  * Final guard against a false convergence: the state must satisfy the equations as written
- * in DESIGN.md, m_s = (1 - xi_s tanh(E_s/T)/(2E_s))/2 with xi from m, and for alpha > 0 the
+ * in DESIGN.md, m_s = (1 - xi_s tanh(E_s/T)/(2E_s))/2 with xi from m (to CHECK_TOL in m, and
+ * in the Hartree field those m produce, to CHECK_TOL (1 + |xi|)), and for alpha > 0 the
  * photon equation (delta - mu) = mean tanh(E_s/T)/(2E_s), to CHECK_TOL.
  */
 function selfConsistent(p: CellProblem, m: Float64Array, alpha: number): boolean {
   const { M, J, mu, T } = p;
   const a = alpha * alpha;
   let G = 0;
+  const occ = new Float64Array(M);
   for (let s = 0; s < M; s++) {
     const xi = hartreeShift(J, M, mu, m, s);
     const E = Math.sqrt(xi * xi / 4 + a);
@@ -90,7 +92,14 @@ function selfConsistent(p: CellProblem, m: Float64Array, alpha: number): boolean
     if (E === 0 && T === 0) return false;
     const g = gOf(E, T);
     G += g / M;
-    if (!(Math.abs(occupation(xi, a, E, g, T) - m[s]) <= CHECK_TOL)) return false;
+    occ[s] = occupation(xi, a, E, g, T);
+    if (!(Math.abs(occ[s] - m[s]) <= CHECK_TOL)) return false;
+  }
+  // And in energy: under a strong blockade m ~ 1e-13 passes the test above while J m is 1e33
+  // away from the field that m itself sees; the fields of m and of its occupations must agree.
+  for (let s = 0; s < M; s++) {
+    const xi = hartreeShift(J, M, mu, m, s), xiOcc = hartreeShift(J, M, mu, occ, s);
+    if (!(Math.abs(xiOcc - xi) <= CHECK_TOL * (1 + Math.abs(xi)))) return false;
   }
   return alpha === 0 || Math.abs(G - (p.delta - mu)) <= CHECK_TOL * (p.delta - mu);
 }
