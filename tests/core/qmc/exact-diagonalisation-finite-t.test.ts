@@ -114,8 +114,8 @@ describe(`Monte Carlo against exact diagonalisation at finite T (${SOURCES.fullS
     { name: 'vdw Rb = 1.2, generic', spec: ring({ shape: 'vdw', Rb: 1.2 }), mu: 1, alpha: 0.6, T: 0.5, sweeps: 8000 },
     { name: 'vdw Rb = 1, classical (alpha = 0)', spec: ring({ shape: 'vdw', Rb: 1 }), mu: 1.5, alpha: 0, T: 0.4, sweeps: 8000 },
     // V1 = 2 * 1.6^6 = 33.6: neighbours blockaded, a half-filled crystal forming (S(pi) ~ N/4).
-    // Known failure (reported to the lead with the core of d29b88c): energy, <n> and
-    // <sigma^x> agree, but S(pi) = 0.27 +- 0.14 against 1.30. A chain keeps one of the two
+    // Known failure (reported to the lead): energy, <n> and <sigma^x> agree, but
+    // S(pi) = 0.27 +- 0.14 (core d29b88c), 0.54 +- 0.15 (a04a594) against 1.30. A chain keeps one of the two
     // crystal orientations for ~1000 sweeps, and S(k) subtracts the run's own |<n_k>|^2,
     // which on a translation-invariant ring is exactly 0 for k != 0: the order is
     // subtracted away. Eight independent chains pooled give <|n_pi|^2>/N = 1.306 +- 0.031.
