@@ -18,6 +18,8 @@
  *     (the solver converges m to 1e-12; near the transition alpha^2 ~ distance and a quartic
  *     minimum leaves alpha ~ 1e-7), 1e-9 relative on Omega (second order in those errors).
  *     Skipped within 1e-6 of the transition (either side is then right to that accuracy).
+ *   - at any repulsion (V >= 0), fixed mu: Omega >= the free Omega above (the Hartree term
+ *     (1/2M) m.J.m >= 0 only adds), and at T = 0 Omega <= 0 (the empty product state), to 1e-9.
  *   - fixed density: the state found has the asked density unless it reports coexistence, to
  *     the solver's promise STEEP_TOL (1 + rho) = 1e-6 (1 + rho) (RHO_TOL = 1e-12 where mu resolves
  *     rho(mu); at T >> g the condensate rises within 1/(2T) of delta, finer than mu resolves).
@@ -66,6 +68,13 @@ function closestPair(c: ClusterSpec): number {
   return d;
 }
 
+/** Every pair repels or is free (V >= 0 everywhere). */
+function repulsive(s: InteractionSpec): boolean {
+  if (s.shape === 'nn') return (s.V1 ?? 0) >= 0 && (s.V2 ?? 0) >= 0;
+  if (s.shape === 'softcore') return (s.V0 ?? 0) >= 0;
+  return s.Rb !== undefined || (s.V1 ?? 0) >= 0;
+}
+
 /** The first NaN or infinite number inside a result (its path), or null. */
 function nonFinite(x: unknown, path = 'result', depth = 0): string | null {
   if (typeof x === 'number') return Number.isFinite(x) ? null : `${path} = ${x}`;
@@ -109,6 +118,14 @@ export function freeState(p: ModelParams): { alpha2: number; m: number; omega: n
 function check(c: FuzzCase, r: unknown, mark: { checked: boolean }): string | null {
   const bad = nonFinite(r);
   if (bad) return `non-finite number: ${bad}`;
+  if (c.kind === 'solve' && c.params.mu !== undefined && repulsive(c.params.interaction)) {
+    // Bounds at any repulsion: Omega(V) of a product state is Omega(0) plus (1/2M) m.J.m >= 0,
+    // so the minimum lies above the free one; at T = 0 the empty product state has Omega = 0.
+    const s = r as ReturnType<typeof solveGroundState>, f = freeState(c.params);
+    const tol = 1e-9 * (1 + Math.abs(s.grandPotential));
+    if (f && s.grandPotential < f.omega - tol) return `Omega = ${s.grandPotential} below the free ${f.omega} for a repulsive interaction`;
+    if (c.params.T === 0 && s.grandPotential > tol) return `Omega = ${s.grandPotential} above the empty state's 0 at T = 0`;
+  }
   if (c.kind === 'solve' && noInteraction(c.params.interaction)) {
     const s = r as ReturnType<typeof solveGroundState>;
     if (c.params.rho !== undefined) {

@@ -57,13 +57,14 @@ const NO_RANGE = Infinity;
 export const MAX_RANGE = { chain: 1e5, plane: 200 } as const;
 
 /**
- * Largest |V1|, |V2|, |V0| or power-law strength C (units of g) taken: 1e100. A blockade is
+ * Largest |V1|, |V2|, |V0| or power-law strength C (units of g) taken: 1e30. A blockade is
  * complete once V exceeds every other energy (m ~ 1/V), so nothing physical changes beyond
- * ~1e3, while the solvers multiply V up to three times (Hessians, stability matrices)
- * and 1e300 is the end of double precision: V1 = 1e308 overflowed and hung a shift loop.
- * For vdw this is rb < 3.7e16, for dipolar rb < 3.7e33.
+ * ~1e3; the solvers multiply V up to three times (Hessians, stability matrices) and resolve
+ * a blockaded m ~ 1/V only while V m stays exact, which failed for V ~ 1e45 - 1e90 at T = 0
+ * (and V1 = 1e308 overflowed and hung a shift loop). For vdw this is rb < 8.9e4, for dipolar
+ * rb < 7.9e9.
  */
-export const MAX_STRENGTH = 1e100;
+export const MAX_STRENGTH = 1e30;
 
 /** Refuse a strength beyond MAX_STRENGTH, naming the flag. */
 function strength(x: number, field: string, what = field): number {
