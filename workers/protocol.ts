@@ -14,12 +14,15 @@ import type { SolveResult } from '../src/core/meanfield/ground-state.ts';
 import type { Plateau } from '../src/core/meanfield/plateaus.ts';
 import type { ScanPlan, ScanPoint, Segment } from '../src/core/scan/grid.ts';
 import type { Shard } from '../src/core/scan/shards.ts';
+import type { Boundary } from '../src/core/scan/boundaries.ts';
+import type { AdaptivePixel, ColdPoint, FilledPoint } from '../src/core/scan/certified-fill.ts';
 import type { PhaseMargin, PhaseMarginOptions } from '../src/core/scan/phase-margin.ts';
 import type { SpectrumRequest, StateSpectrum } from '../src/core/spectrum/state-spectrum.ts';
 import type { SoftLineRequest, SoftLineResult } from '../src/core/softmode/soft-lines.ts';
 import type { EdRequest, EdResult } from '../src/core/ed/exact-diagonalisation.ts';
 import type { SegmentRequest, SegmentResult } from '../src/core/vmc/segment.ts';
 
+export type { Boundary, AdaptivePixel, ColdPoint, FilledPoint };
 export type {
   ModelParams, MeanFieldState, SolveResult, Plateau, ScanPlan, ScanPoint, Shard, PhaseMargin, PhaseMarginOptions,
   SpectrumRequest, StateSpectrum, SoftLineRequest, SoftLineResult, EdRequest, EdResult, SegmentRequest, SegmentResult,
@@ -105,6 +108,11 @@ export interface MapScanRequest {
   continuation?: boolean;
   order?: 'rows' | 'spread';
   /**
+   * true: solve every pixel (the check of the adaptive map). Default false: the adaptive map
+   * (workers/scans/adaptive-map-scan.ts; docs/certified-maps.md), same pixels, fewer solves.
+   */
+  dense?: boolean;
+  /**
    * Only these segments of the plan's grid (in this order; shard is then ignored): the CLI
    * streams a big map a window of segments at a time and resumes a part where it stopped.
    */
@@ -114,6 +122,30 @@ export interface MapScanRequest {
 /** The points of a map scan, ordered by index (failed points carry their error). */
 export interface MapScanResult {
   points: ScanPoint[];
+  /** Points really solved in full (the adaptive map; a dense map solves every pixel). */
+  solves?: number;
+  /** Phase boundaries as polylines (src/core/scan/boundaries.ts). */
+  boundaries?: Boundary[];
+  /** What the adaptive map could not do here (no certification, a shard solved densely). */
+  notes?: string[];
+}
+
+/** A row segment of an adaptive map, filled point by point as the dense scan would (certified-fill.ts). */
+export interface FillSegmentRequest {
+  pixels: AdaptivePixel[];
+  continuation: boolean;
+}
+
+/** Points solved without a guess (an adaptive map's refinement corners). */
+export interface ColdRunRequest {
+  points: ModelParams[];
+  seeds: number[];
+}
+
+/** One cold point: its state with its search cell, or why it failed. */
+export interface ColdOutcome {
+  cold?: ColdPoint;
+  error?: string;
 }
 
 /** A mu line (plan.x is the mu axis, no y) and its plateaus, edges bisected to edgeTol unless gridEdges. */

@@ -14,7 +14,7 @@
 import type { Engine } from './engine.ts';
 import type { WorkerPool } from './pool.ts';
 import type { ScanItem, ScanKind, ScanKinds, ScanOptions, ScanResult } from './protocol.ts';
-import { runMapScan } from './scans/map-scan.ts';
+import { runMap } from './scans/adaptive-map-scan.ts';
 import { runStaircase } from './scans/staircase-scan.ts';
 import { runPhaseMargin, runSoftLines } from './scans/point-tasks.ts';
 
@@ -24,7 +24,7 @@ export type ScanRunner<K extends ScanKind> = (
 ) => Promise<ScanResult<K>>;
 
 const RUNNERS: { [K in ScanKind]: ScanRunner<K> } = {
-  map: runMapScan,
+  map: runMap,
   staircase: runStaircase,
   'phase-margin': runPhaseMargin,
   'soft-lines': runSoftLines,

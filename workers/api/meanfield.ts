@@ -6,8 +6,9 @@
 import { solveGroundState, type SolveResult } from '../../src/core/meanfield/ground-state.ts';
 import { refinePlateaus, type Plateau } from '../../src/core/meanfield/plateaus.ts';
 import { phaseMargin, type PhaseMargin } from '../../src/core/scan/phase-margin.ts';
+import { fillSegment, solveCold, type FilledPoint } from '../../src/core/scan/certified-fill.ts';
 import type {
-  PhaseMarginRequest, PlateauEdgeRequest, PointCallback, PointOutcome, SolveRequest, SolveRunRequest,
+  ColdOutcome, ColdRunRequest, FillSegmentRequest, PhaseMarginRequest, PlateauEdgeRequest, PointCallback, PointOutcome, SolveRequest, SolveRunRequest,
 } from '../protocol.ts';
 
 /** An error as one line for a scan row. */
@@ -44,6 +45,22 @@ export const meanfieldApi = {
       void onPoint?.(i, r);
     }
     return out;
+  },
+
+  /** Points solved without a guess, each with its winner's search cell (an adaptive map's corners). */
+  solveColdRun(req: ColdRunRequest): ColdOutcome[] {
+    return req.points.map((p, i) => {
+      try {
+        return { cold: solveCold(p, req.seeds[i]) };
+      } catch (e) {
+        return { error: reason(e) };
+      }
+    });
+  },
+
+  /** A row segment of an adaptive map, each point as the dense run would give it (fillSegment). */
+  fillSegment(req: FillSegmentRequest, onPoint?: PointCallback<FilledPoint>): FilledPoint[] {
+    return fillSegment(req.pixels, req.continuation, onPoint ? (i, r) => void onPoint(i, r) : undefined);
   },
 
   /** One plateau with its edges bisected to req.muTol (see PlateauEdgeRequest). */

@@ -1,0 +1,258 @@
+/**
+ * The map scan: the adaptive map by default, the dense one (map-scan.ts) on request.
+ *
+ * Adaptive (docs/certified-maps.md): the map is worked in bands of rows (refinement.ts).
+ * In each band the coarse grid's corners are solved cold, rectangles whose corners are one
+ * crystal are certified, the others split until every pixel is certified or solved; then
+ * each row segment is filled point by point exactly as the dense scan would give it
+ * (certified-fill.ts, on the workers), and the band's rows are delivered in order, so a
+ * writer can stream row by row (memory: one band of states, the coarse rows' corners and the
+ * boundary crossings). Boundaries between crystals are located exactly on the affine axes
+ * (boundaries.ts) with one confirming solve each. A plan that cannot be certified (T > 0,
+ * fixed density, a temperature or density axis), a shard, or a window of segments that
+ * are not whole rows is solved densely (same pixels), with a note saying so.
+ * Progress counts full solves against the budget: solves so far plus the pixels of the
+ * bands not yet finished.
+ */
+import { gridPoint, gridShape, pointSeed, rowCuts, spreadRows, type ScanPlan, type ScanPoint } from '../../src/core/scan/grid.ts';
+import { applyAxis, type Axis } from '../../src/core/scan/axes.ts';
+import { affineCoordinate, axisValue, certificationBlocker } from '../../src/core/scan/affine-axes.ts';
+import { crystalOf, type Crystal } from '../../src/core/scan/crystal.ts';
+import { bandRects, coarseColumns, coarseRows, corners, refineLevel } from '../../src/core/scan/refinement.ts';
+import {
+  affineCrossing, chainBoundaries, crossing, crystalOmega, phaseName, type Crossing,
+} from '../../src/core/scan/boundaries.ts';
+import type { AdaptivePixel, ColdPoint } from '../../src/core/scan/certified-fill.ts';
+import type { SolveResult } from '../../src/core/meanfield/ground-state.ts';
+import type { ModelParams } from '../../src/core/model.ts';
+import type { Engine } from '../engine.ts';
+import type { WorkerPool } from '../pool.ts';
+import type { ColdOutcome, MapScanRequest, MapScanResult, ScanOptions } from '../protocol.ts';
+import { DEFAULT_POINT_BUDGET_MS, runMapScan } from './map-scan.ts';
+
+/** Cold points per worker task (small: the refinement levels are short). */
+const COLD_TASK = 4;
+
+/** Run a map: adaptive unless req.dense (or a case the adaptive map does not cover; see notes). */
+export async function runMap(pool: WorkerPool<Engine>, req: MapScanRequest, o: ScanOptions<ScanPoint> = {}): Promise<MapScanResult> {
+  const { nx, ny } = gridShape(req.plan);
+  const dense = async (note?: string): Promise<MapScanResult> => {
+    const r = await runMapScan(pool, req, o);
+    const solved = req.segments ? req.segments.reduce((a, s) => a + s.length, 0) : req.shard ? r.points.length : nx * ny;
+    return { ...r, solves: solved, ...(note ? { notes: [note] } : {}) };
+  };
+  if (req.dense) return dense();
+  if (req.shard) return dense('an adaptive map is not sharded yet: this part was solved densely (same pixels)');
+  let rows: number[] | undefined;
+  if (req.segments) {
+    const count = new Map<number, number>();
+    for (const s of req.segments) count.set(s.iy, (count.get(s.iy) ?? 0) + s.length);
+    if ([...count.values()].some((c) => c !== nx)) return dense('the segments asked for are not whole rows: solved densely (same pixels)');
+    rows = [...count.keys()].sort((a, b) => a - b);
+  }
+  const blocker = certificationBlocker(req.plan);
+  if (blocker) return dense(blocker);
+  return runAdaptive(pool, req, o, rows ?? Array.from({ length: ny }, (_, i) => i));
+}
+
+interface Band { y0: number; y1: number; rows: number[] }
+
+async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: ScanOptions<ScanPoint>, wanted: number[]): Promise<MapScanResult> {
+  const { plan } = req;
+  const { nx, ny } = gridShape(plan);
+  const continuation = req.continuation ?? true;
+  const pointBudget = o.pointBudgetMs ?? DEFAULT_POINT_BUDGET_MS;
+  const want = new Set(wanted);
+  const cols = coarseColumns(nx), crows = coarseRows(ny);
+  let bands: Band[] = [];
+  for (let j = 0; j < crows.length; j++) {
+    const y0 = crows[j], y1 = crows[j + 1] ?? crows[j];
+    const last = j + 2 >= crows.length; // the last band also produces its closing row
+    const produced: number[] = [];
+    for (let y = y0; y < y1 || (last && y === y1); y++) if (want.has(y)) produced.push(y);
+    if (produced.length) bands.push({ y0, y1, rows: produced });
+    if (last) break;
+  }
+  if (req.order === 'spread') {
+    const rank = spreadRows(bands.length);
+    bands = rank.map((r) => bands[r]);
+  }
+  const known = new Map<number, ColdOutcome>();
+  const points: ScanPoint[] = [];
+  const crossings: Crossing[] = [];
+  const edgeRows = new Map<number, Array<SolveResult | undefined>>();
+  let solves = 0, remaining = bands.reduce((a, b) => a + b.rows.length * nx, 0);
+  const progress = () => o.onProgress?.(solves, solves + remaining);
+
+  const solveCold = async (pts: Array<{ p: ModelParams; seed: number; what: string }>): Promise<ColdOutcome[]> => {
+    const tasks: Array<typeof pts> = [];
+    for (let i = 0; i < pts.length; i += COLD_TASK) tasks.push(pts.slice(i, i + COLD_TASK));
+    const res = await pool.run(tasks, async (remote, t) => {
+      const r = await remote.meanfield.solveColdRun({ points: t.map((x) => x.p), seeds: t.map((x) => x.seed) });
+      solves += t.length;
+      progress();
+      return r;
+    }, {
+      signal: o.signal,
+      budgetMs: (t) => t.length * pointBudget,
+      describe: (t) => `adaptive map corners ${t.map((x) => x.what).join('; ')}; first point ${JSON.stringify(t[0].p)}`,
+      recover: (e, _i, t) => t.map(() => ({ error: e.message.replace(/\s*\n\s*/g, ' ') })),
+    });
+    return res.flat();
+  };
+  const at = (ix: number, iy: number) => `(${plan.x.name} = ${plan.x.values[ix]}${plan.y ? `, ${plan.y.name} = ${plan.y.values[iy]}` : ''})`;
+
+  for (const band of bands) {
+    // refinement: every pixel of the band certified or solved cold
+    const certified = new Map<number, Crystal>();
+    let rects = bandRects(cols, band.y0, band.y1);
+    for (let level = 0; rects.length && level < 64; level++) {
+      const need = new Map<number, [number, number]>();
+      for (const r of rects) for (const [x, y] of corners(r)) if (!known.has(y * nx + x)) need.set(y * nx + x, [x, y]);
+      const list = [...need.values()];
+      const got = await solveCold(list.map(([x, y]) => ({ p: gridPoint(plan, x, y), seed: pointSeed(plan.seed, y * nx + x), what: at(x, y) })));
+      list.forEach(([x, y], i) => known.set(y * nx + x, got[i]));
+      const lvl = refineLevel(rects, (x, y) => known.get(y * nx + x)?.cold?.state);
+      for (const { rect, crystal } of lvl.certified) {
+        for (let y = rect.y0; y <= rect.y1; y++) for (let x = rect.x0; x <= rect.x1; x++) certified.set(y * nx + x, crystal);
+      }
+      rects = lvl.children;
+    }
+    // production: each wanted row's segments, point by point as the dense scan
+    const segs: Array<{ iy: number; ix0: number; length: number }> = [];
+    for (const iy of band.rows) {
+      let ix0 = 0;
+      for (const length of rowCuts(nx)) { segs.push({ iy, ix0, length }); ix0 += length; }
+    }
+    const bandPoints: ScanPoint[] = [];
+    await pool.run(segs, async (remote, seg) => {
+      const pixels: AdaptivePixel[] = [];
+      for (let i = 0; i < seg.length; i++) {
+        const ix = seg.ix0 + i, index = seg.iy * nx + ix;
+        const cr = certified.get(index), cold = known.get(index)?.cold;
+        pixels.push({
+          params: gridPoint(plan, ix, seg.iy), seed: pointSeed(plan.seed, index),
+          ...(cr ? { crystal: { cell: cr.cell, n: cr.n } } : {}), ...(cold ? { cold } : {}),
+        });
+      }
+      const out = await remote.meanfield.fillSegment({ pixels, continuation });
+      out.forEach((r, i) => {
+        solves += r.solves;
+        const ix = seg.ix0 + i;
+        bandPoints.push({ index: seg.iy * nx + ix, ix, iy: seg.iy, ...(r.state ? { state: r.state } : {}), ...(r.error !== undefined ? { error: r.error } : {}) });
+      });
+      remaining -= seg.length;
+      progress();
+      return out.length;
+    }, {
+      signal: o.signal,
+      budgetMs: (seg) => seg.length * pointBudget,
+      describe: (seg) => `adaptive map points ix ${seg.ix0}..${seg.ix0 + seg.length - 1}, iy ${seg.iy}; first point ${JSON.stringify(gridPoint(plan, seg.ix0, seg.iy))}`,
+      recover: (e, _i, seg) => {
+        for (let i = 0; i < seg.length; i++) {
+          bandPoints.push({ index: seg.iy * nx + seg.ix0 + i, ix: seg.ix0 + i, iy: seg.iy, error: e.message.replace(/\s*\n\s*/g, ' ') });
+        }
+        remaining -= seg.length;
+        return seg.length;
+      },
+    });
+    bandPoints.sort((a, b) => a.index - b.index);
+    for (const pt of bandPoints) o.onItem?.(pt);
+    if ((o as { keepPoints?: boolean }).keepPoints !== false) points.push(...bandPoints);
+    // boundaries of the band's rows, and to the neighbouring bands' rows already done
+    const rowStates = new Map<number, Array<SolveResult | undefined>>();
+    for (const pt of bandPoints) {
+      if (!rowStates.has(pt.iy)) rowStates.set(pt.iy, new Array(nx));
+      (rowStates.get(pt.iy) as Array<SolveResult | undefined>)[pt.ix] = pt.state;
+    }
+    const first = band.rows[0], last = band.rows[band.rows.length - 1];
+    const edges: EdgeJob[] = [];
+    for (const iy of band.rows) {
+      const s = rowStates.get(iy) as Array<SolveResult | undefined>;
+      for (let ix = 0; ix + 1 < nx; ix++) edges.push({ edge: `h${iy * nx + ix}`, axis: plan.x, a: s[ix], b: s[ix + 1], pa: gridPoint(plan, ix, iy), pb: gridPoint(plan, ix + 1, iy), va: plan.x.values[ix], vb: plan.x.values[ix + 1], fixed: plan.y ? [plan.y.values[iy]] : [], along: 0 });
+      const up = rowStates.get(iy + 1) ?? (iy === last ? edgeRows.get(iy + 1) : undefined);
+      const down = iy === first ? edgeRows.get(iy - 1) : undefined;
+      const pairs: Array<[number, Array<SolveResult | undefined>, Array<SolveResult | undefined>]> = [];
+      if (up && plan.y) pairs.push([iy, s, up]);
+      if (down && plan.y) pairs.push([iy - 1, down, s]);
+      for (const [y, lo, hi] of pairs) {
+        const ya = (plan.y as Axis).values[y], yb = (plan.y as Axis).values[y + 1];
+        for (let ix = 0; ix < nx; ix++) edges.push({ edge: `v${y * nx + ix}`, axis: plan.y as Axis, a: lo[ix], b: hi[ix], pa: gridPoint(plan, ix, y), pb: gridPoint(plan, ix, y + 1), va: ya, vb: yb, fixed: [plan.x.values[ix]], along: 1 });
+      }
+    }
+    edgeRows.set(first, rowStates.get(first) as Array<SolveResult | undefined>);
+    edgeRows.set(last, rowStates.get(last) as Array<SolveResult | undefined>);
+    crossings.push(...await locate(edges, plan, solveCold));
+    for (const [index] of known) {
+      const iy = Math.floor(index / nx);
+      if (iy > band.y0 && iy < band.y1) known.delete(index);
+    }
+  }
+  const centre = (ix: number, iy: number) => [
+    (plan.x.values[ix] + plan.x.values[ix + 1]) / 2, ...(plan.y ? [(plan.y.values[iy] + plan.y.values[iy + 1]) / 2] : []),
+  ];
+  const boundaries = chainBoundaries(crossings, nx, ny, centre);
+  o.onProgress?.(solves, solves);
+  return { points, solves, boundaries };
+}
+
+/** An edge between neighbouring pixels, along one axis. */
+interface EdgeJob {
+  edge: string;
+  axis: Axis;
+  a?: SolveResult; b?: SolveResult;
+  pa: ModelParams; pb: ModelParams;
+  va: number; vb: number;
+  /** The other axis's value (the crossing's fixed coordinate). */
+  fixed: number[];
+  /** 0: the crossing's varying coordinate is x; 1: it is y. */
+  along: 0 | 1;
+}
+
+/** Seed of an edge's confirming solve: fixed by the edge alone (any band order). */
+function edgeSeed(seed: number, edge: string): number {
+  return pointSeed(seed ^ 0x5bd1e995, 2 * Number(edge.slice(1)) + (edge[0] === 'v' ? 1 : 0));
+}
+
+const identity = (s: SolveResult | undefined) => crystalOf(s)?.key ?? phaseName(s);
+
+/** The crossings of the edges whose pixels differ (boundaries.ts): crystals exactly, with one confirming solve each. */
+async function locate(
+  edges: EdgeJob[], plan: ScanPlan,
+  solveCold: (pts: Array<{ p: ModelParams; seed: number; what: string }>) => Promise<ColdOutcome[]>,
+): Promise<Crossing[]> {
+  const out: Crossing[] = [];
+  const put = (e: EdgeJob, v: number, a: string, b: string, exact: boolean, ra?: number, rb?: number) => {
+    const point = e.along === 0 ? [v, ...e.fixed] : [...e.fixed, v];
+    out.push(crossing(e.edge, a, b, point, exact, ra, rb));
+  };
+  const checks: Array<{ e: EdgeJob; v: number; p: ModelParams; omega: number }> = [];
+  for (const e of edges) {
+    if (!e.a || !e.b || identity(e.a) === identity(e.b)) continue;
+    const A = crystalOf(e.a), B = crystalOf(e.b);
+    const ua = affineCoordinate(e.axis.name, e.va, plan.base), ub = affineCoordinate(e.axis.name, e.vb, plan.base);
+    if (A && B && ua !== null && ub !== null) {
+      const t = affineCrossing(crystalOmega(e.pa, A) - crystalOmega(e.pa, B), crystalOmega(e.pb, A) - crystalOmega(e.pb, B));
+      if (t !== null) {
+        const v = t === 0 ? e.va : t === 1 ? e.vb : axisValue(e.axis.name, ua + t * (ub - ua), plan.base);
+        const p = applyAxis(e.pa, e.axis.name, v);
+        checks.push({ e, v, p, omega: Math.min(crystalOmega(p, A), crystalOmega(p, B)) });
+        continue;
+      }
+    }
+    put(e, (e.va + e.vb) / 2, phaseName(e.a), phaseName(e.b), false);
+  }
+  const got = await solveCold(checks.map((c) => ({ p: c.p, seed: edgeSeed(plan.seed, c.e.edge), what: `boundary ${c.e.axis.name} = ${c.v}` })));
+  checks.forEach((c, i) => {
+    const { e, v } = c;
+    const s = got[i].cold?.state;
+    const a = e.a as SolveResult, b = e.b as SolveResult;
+    if (s && s.grandPotential >= c.omega - 1e-9 * Math.max(1, Math.abs(c.omega))) {
+      put(e, v, phaseName(a), phaseName(b), true, a.excitationDensity, b.excitationDensity);
+    } else {
+      put(e, (e.va + v) / 2, phaseName(a), phaseName(s), false);
+      put(e, (v + e.vb) / 2, phaseName(s), phaseName(b), false);
+    }
+  });
+  return out;
+}
