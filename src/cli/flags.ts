@@ -16,6 +16,8 @@ export interface FlagSpec {
   value?: string;
   /** Default shown in help. */
   def?: string;
+  /** The value is a file the command writes: checked before any work starts (runCli). */
+  writes?: boolean;
 }
 
 export interface ParsedArgs {

@@ -11,6 +11,8 @@ import { InputError } from '../core/input-error.ts';
 import type { Engine } from '../../workers/engine.ts';
 import type { WorkerPool } from '../../workers/pool.ts';
 import { defaultWorkerCount, nodeEnginePool } from '../../workers/node-spawn.ts';
+import { fileLineReader, type LineReader } from './line-reader.ts';
+import { fileOutput, type OutputTarget } from './stream-writer.ts';
 
 export interface CliIo {
   stdout(text: string): void;
@@ -27,6 +29,13 @@ export interface CliIo {
    * an InputError, before any work starts (runCli calls it). Absent: no check (files in memory).
    */
   checkOutput?(path: string): void;
+  /**
+   * Open a file for streaming output (stream-writer.ts), continuing the part there when
+   * `resume`. Absent: the file is kept in memory through readText and writeText.
+   */
+  openOutput?(path: string, resume: boolean): OutputTarget;
+  /** Read a file a line at a time (merge of big parts). Absent: through readText. */
+  openLines?(path: string): LineReader;
   /** A worker pool of `size` engines; the command closes it with release(). */
   pool(size: number): { pool: WorkerPool<Engine>; release(): void };
   /** Default --workers. */
@@ -162,6 +171,14 @@ export function nodeIo(interrupt: AbortSignal, catchInterrupts: (on: boolean) =>
     readText: readTextFile,
     writeText: writeTextFile,
     checkOutput: checkOutputPath,
+    openOutput: fileOutput,
+    openLines(path) {
+      try {
+        return fileLineReader(path);
+      } catch (e) {
+        throw new InputError(`cannot read ${path}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`, 'file');
+      }
+    },
     pool(size) {
       const pool = nodeEnginePool(size);
       return { pool, release: () => pool.close() };

@@ -46,9 +46,12 @@ export async function runCli(argv: readonly string[], io: CliIo, commands: reado
       io.stdout(commandHelp(command));
       return 0;
     }
-    // A bad --out is refused now, not after the computation that would fill it.
-    const out = command.flags.some((f) => f.name === 'out') ? str(args, 'out') : undefined;
-    if (out) io.checkOutput?.(out);
+    // A bad --out (or any other file a command writes) is refused now, not after the
+    // computation that would fill it.
+    for (const f of command.flags) {
+      const path = f.writes || f.name === 'out' ? str(args, f.name) : undefined;
+      if (path) io.checkOutput?.(path);
+    }
     return await command.run(args, io);
   } catch (e) {
     if (io.interrupt.aborted && e instanceof Error && e.name === 'AbortError') {

@@ -11,10 +11,11 @@ import { parseShard, scanFingerprint } from '../../core/scan/shards.ts';
 import { HELP_FLAG, type Command } from '../command.ts';
 import { bool, str, type FlagSpec } from '../flags.ts';
 import { MODEL_FLAGS, modelFromArgs, seedFromArgs } from '../model-flags.ts';
-import { mapCsv, mapHeader, mapJson } from '../map-output.ts';
-import { scanWithProgress, SCAN_FLAGS, validatePlan } from '../scan-run.ts';
+import { mapHeader } from '../map-output.ts';
+import { streamMap } from '../map-stream.ts';
+import { SCAN_FLAGS, validatePlan } from '../scan-run.ts';
 import { OUTPUT_FLAGS } from './solve.ts';
-import { finishOutput, OUT_FLAG } from './output.ts';
+import { OUT_FLAG, RESUME_FLAG, streamOutput } from './output.ts';
 
 const AXIS_HELP = 'rb, v1, mu, density, detuning or temperature';
 
@@ -23,6 +24,7 @@ const MAP_FLAGS: readonly FlagSpec[] = [
   { name: 'y', kind: 'string', value: 'name=start:stop:count', help: 'second axis (optional: one row)' },
   { name: 'shard', kind: 'string', value: 'k/n', help: 'compute only the k-th of n interleaved parts (join them with merge)' },
   OUT_FLAG,
+  RESUME_FLAG,
 ];
 
 /** Largest map accepted in one run (shard anything bigger). */
@@ -39,7 +41,9 @@ export const mapCommand: Command = {
     '(ix, iy, the axis values, then the state), or JSON with --json. The model flags fix\n' +
     'everything the axes do not.\n' +
     'For a cluster: run each of n parts with --shard k/n (k = 1..n) as one job of a job array,\n' +
-    'each with its own --out, then join the parts with merge. Ctrl-C writes the finished points.\n' +
+    'each with its own --out, then join the parts with merge. Rows are written as they finish, in\n' +
+    'point order. Ctrl-C or SIGTERM writes the finished points; --resume continues such a part (or\n' +
+    'one killed outright) and computes only what is missing.\n' +
     'A point that cannot be solved (or runs past --point-budget) is written with its reason in the\n' +
     'error column (empty for solved points) and the other points are still computed.',
   flags: [...MAP_FLAGS, ...MODEL_FLAGS, ...SCAN_FLAGS, ...OUTPUT_FLAGS, HELP_FLAG],
@@ -47,6 +51,7 @@ export const mapCommand: Command = {
     'map --x mu=-1:2.5:200 --y rb=1:2:100 --detuning 3 --out map.csv',
     'map --x mu=-1:2.5:200 --y temperature=0:0.5:50 --interaction nn --v1 2 --detuning 3 --json',
     'map --x mu=-1:2.5:400 --y rb=1:2:400 --detuning 3 --shard 3/16 --out part-3.csv',
+    'map --x mu=-1:2.5:400 --y rb=1:2:400 --detuning 3 --shard 3/16 --out part-3.csv --resume',
   ],
   async run(args, io) {
     const xs = str(args, 'x');
@@ -64,8 +69,8 @@ export const mapCommand: Command = {
     const shard = shardText ? parseShard(shardText) : undefined;
     validatePlan(plan);
     const header = mapHeader(plan, shard ? { ...shard, scan: scanFingerprint(plan), nx, ny } : null);
-    const out = await scanWithProgress(io, args, plan, shard ? `map ${shard.k}/${shard.n}` : 'map', shard, !bool(args, 'cold'));
-    const text = bool(args, 'json') ? mapJson(header, out.points, out.complete) : mapCsv(header, out.points);
-    return finishOutput(io, args, text, out);
+    // rows are written as they finish, in point order; --resume continues a part (map-stream.ts)
+    const job = { plan, shard, header, format: bool(args, 'json') ? 'json' as const : 'csv' as const, continuation: !bool(args, 'cold'), label: shard ? `map ${shard.k}/${shard.n}` : 'map' };
+    return streamOutput(io, args, (target) => streamMap(io, args, job, target));
   },
 };

@@ -1,0 +1,122 @@
+/**
+ * A map streamed to its output as it is computed: rows are written in point order (the
+ * order of one uninterrupted run), through a reorder buffer of bounded size. The shard's
+ * segments go to the driver a window at a time (runScan with `segments` and keepPoints
+ * false), at most two windows in flight, so the pool always has work queued while no more
+ * than 2 x WINDOW segments of finished points wait for an earlier one: memory does not
+ * grow with the map. `--resume` first reads back the part on disk (resume.ts) and
+ * computes only the missing points: a segment cut in the middle is computed again from its
+ * start (continuation makes a point depend on the points before it in its segment) and its
+ * points already written are dropped, so the file is byte for byte the uninterrupted one.
+ */
+import type { ScanPlan, ScanPoint } from '../core/scan/grid.ts';
+import type { Shard } from '../core/scan/shards.ts';
+import type { MapHeader } from '../core/scan/map-columns.ts';
+import { runScan } from '../../workers/scan-driver.ts';
+import type { ParsedArgs } from './flags.ts';
+import { interruptible, type CliIo } from './io.ts';
+import { mapLayout, type MapFormat } from './map-layout.ts';
+import { Progress } from './progress.ts';
+import { readBack } from './resume.ts';
+import { pointBudgetMs, workerCount } from './scan-run.ts';
+import { PointCursor, ShardSegments } from './shard-cursor.ts';
+import type { OutputTarget } from './stream-writer.ts';
+
+/** Segments a window holds per worker (a window is at least MIN_WINDOW segments). */
+const WINDOW_PER_WORKER = 8;
+const MIN_WINDOW = 16;
+
+/** What a streamed map run did. */
+export interface StreamedMap {
+  /** Rows in the output now (read back and new). */
+  written: number;
+  /** Rows read back from the part being resumed. */
+  resumed: number;
+  /** Points of the map (or shard). */
+  total: number;
+  complete: boolean;
+}
+
+/** What to stream. */
+export interface MapJob {
+  plan: ScanPlan;
+  shard?: Shard;
+  header: MapHeader;
+  format: MapFormat;
+  continuation: boolean;
+  label: string;
+}
+
+/** Run the map (or its shard) into `target`, continuing what is there when it holds a part. */
+export async function streamMap(io: CliIo, a: ParsedArgs, job: MapJob, target: OutputTarget): Promise<StreamedMap> {
+  const { nx, ny } = { nx: job.plan.x.count, ny: job.plan.y?.count ?? 1 };
+  const segs = new ShardSegments(nx, ny, job.shard);
+  const layout = mapLayout(job.header, job.format);
+  let rows = 0, failed = 0, cursor = new PointCursor(segs);
+  const existing = target.existing();
+  if (existing) {
+    const back = readBack(existing, layout, job.header, segs, target.name);
+    target.keep(back.keepBytes);
+    if (back.keepBytes === 0) target.write(layout.head);
+    ({ rows, failed, cursor } = back);
+  } else {
+    target.write(layout.head);
+  }
+  const resumed = rows;
+  const total = segs.points;
+  const progress = new Progress(io, job.label, total);
+  if (cursor.done) {
+    target.write(layout.tail(true));
+    progress.finish(rows, resumed ? ', all read back from the part (nothing left to compute)' : '');
+    return { written: rows, resumed, total, complete: true };
+  }
+  const left = segs.count - cursor.j;
+  const workers = workerCount(a, io, left);
+  const window = Math.max(MIN_WINDOW, WINDOW_PER_WORKER * workers);
+  const budget = pointBudgetMs(a);
+  progress.update(rows);
+  const waiting = new Map<number, string>();
+  const accept = (pt: ScanPoint) => {
+    const at = cursor.point;
+    if (!at || pt.index < at.index || waiting.has(pt.index)) return; // written before (a resumed segment's head)
+    waiting.set(pt.index, (pt.error === undefined ? '' : '!') + layout.row(pt));
+    for (let p = cursor.point; p && waiting.has(p.index); p = cursor.point) {
+      const row = waiting.get(p.index) as string;
+      waiting.delete(p.index);
+      const bad = row.startsWith('!');
+      target.write(layout.separator(rows) + (bad ? row.slice(1) : row) + '\n');
+      rows++;
+      if (bad) failed++;
+      cursor.advance();
+    }
+    progress.update(rows + waiting.size);
+  };
+  const run = await interruptible(io, workers, async (pool, signal) => {
+    const stop = new AbortController();
+    const onAbort = () => stop.abort(signal.reason);
+    signal.addEventListener('abort', onAbort, { once: true });
+    let firstError: unknown;
+    const inFlight: Promise<void>[] = [];
+    try {
+      for (let j = cursor.j; j < segs.count && firstError === undefined;) {
+        const part = [];
+        for (let t = 0; t < window && j < segs.count; t++, j++) part.push(segs.at(j));
+        inFlight.push(runScan(pool, { kind: 'map', plan: job.plan, segments: part, continuation: job.continuation }, {
+          signal: stop.signal, pointBudgetMs: budget, keepPoints: false, onItem: accept,
+        }).then(() => undefined, (e: unknown) => {
+          firstError ??= e;
+          stop.abort(e);
+        }));
+        if (inFlight.length >= 2) await inFlight.shift();
+      }
+      await Promise.all(inFlight);
+      if (firstError !== undefined) throw firstError;
+    } finally {
+      signal.removeEventListener('abort', onAbort);
+    }
+  });
+  target.write(layout.tail(run.complete));
+  const w = ` on ${workers} worker${workers === 1 ? '' : 's'}`;
+  progress.finish(rows, `${w}${resumed ? ` (${resumed} read back)` : ''}${failed ? `, ${failed} point${failed === 1 ? '' : 's'} failed (see the error column)` : ''}${run.complete ? '' : ', interrupted'}`);
+  return { written: rows, resumed, total, complete: run.complete };
+}

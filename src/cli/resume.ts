@@ -1,0 +1,90 @@
+/**
+ * `--resume`: read back what an interrupted run of the same map wrote, to continue it.
+ * The file must start with exactly the head this run would write (for a shard's CSV and
+ * any JSON that includes the scan's fingerprint or its parameters; an unsharded CSV has
+ * only its columns), and every row must be the point this run writes there (its grid
+ * position and axis values). A torn last line (no line end: the process died mid-write)
+ * is dropped, as is the `],"complete":false}` that closes a JSON part stopped by a signal.
+ * A line that is complete but not the expected row is refused: the file is another scan's.
+ */
+import { InputError } from '../core/input-error.ts';
+import { csvField, parseCsvLine } from '../core/scan/csv.ts';
+import { mapColumns, type MapHeader } from '../core/scan/map-columns.ts';
+import type { LineReader } from './line-reader.ts';
+import type { MapLayout } from './map-layout.ts';
+import { PointCursor, type ShardSegments } from './shard-cursor.ts';
+
+/** What is on disk: the rows to keep, the bytes they end at, and a cursor at the first missing point. */
+export interface ReadBack {
+  rows: number;
+  keepBytes: number;
+  cursor: PointCursor;
+  /** Rows among them that carry an error. */
+  failed: number;
+}
+
+function foreign(name: string, line: number, why: string): InputError {
+  return new InputError(`${name} line ${line} does not continue this scan (${why}): give another --out or run without --resume`, 'resume');
+}
+
+/** Read back an existing part (see the module comment); `name` names it in messages. */
+export function readBack(lines: LineReader, layout: MapLayout, h: MapHeader, segs: ShardSegments, name: string): ReadBack {
+  const cursor = new PointCursor(segs);
+  const result: ReadBack = { rows: 0, keepBytes: 0, cursor, failed: 0 };
+  try {
+    let head = '', headBytes = 0;
+    for (let i = 0; i < layout.headLines; i++) {
+      const l = lines.next();
+      if (!l || !l.ended) return result; // torn inside the head: nothing was done
+      head += l.text + '\n';
+      headBytes += l.bytes;
+    }
+    if (head !== layout.head) {
+      const mine = layout.head.split('\n'), theirs = head.split('\n');
+      const d = theirs.findIndex((t, i) => t !== mine[i]);
+      throw foreign(name, d + 1, `its header differs from this scan's: '${theirs[d].slice(0, 100)}' against '${mine[d].slice(0, 100)}'`);
+    }
+    result.keepBytes = headBytes;
+    const columns = mapColumns(h);
+    const errCol = columns.indexOf('error');
+    for (let lineNo = layout.headLines + 1; lineNo <= layout.headLines + segs.points + 2; lineNo++) {
+      const l = lines.next();
+      if (!l || !l.ended) return result; // the end, or a torn last line: dropped
+      if (layout.format === 'json' && l.text.startsWith(']')) return result; // the closing line: written again at the end
+      const pt = cursor.point;
+      if (!pt) throw foreign(name, lineNo, `the scan has ${segs.points} points, the file more`);
+      let ix: unknown, iy: unknown, xs: unknown, ys: unknown, failed: boolean;
+      if (layout.format === 'csv') {
+        const f = parseCsvLine(l.text);
+        if (!f || f.length !== columns.length) throw foreign(name, lineNo, `${f ? f.length : 'unreadable'} fields, the header ${columns.length}`);
+        ix = Number(f[0]);
+        iy = Number(f[1]);
+        xs = f[2];
+        ys = h.y ? f[3] : undefined;
+        failed = f[errCol] !== '';
+        const wantX = csvField(h.x.values[pt.ix]), wantY = h.y ? csvField(h.y.values[pt.iy]) : undefined;
+        if (xs !== wantX || ys !== wantY) throw foreign(name, lineNo, `axis values ${xs}${h.y ? `, ${ys}` : ''}, expected ${wantX}${h.y ? `, ${wantY}` : ''}`);
+      } else {
+        const want = result.rows > 0 ? ',' : '';
+        if (!l.text.startsWith(want + '{')) throw foreign(name, lineNo, 'not a point line');
+        let o: Record<string, unknown>;
+        try {
+          o = JSON.parse(l.text.slice(want.length)) as Record<string, unknown>;
+        } catch {
+          throw foreign(name, lineNo, 'not valid JSON');
+        }
+        ({ ix, iy } = o);
+        failed = o.error !== undefined;
+        if (o[h.x.name] !== h.x.values[pt.ix] || (h.y && o[h.y.name] !== h.y.values[pt.iy])) throw foreign(name, lineNo, 'other axis values');
+      }
+      if (ix !== pt.ix || iy !== pt.iy) throw foreign(name, lineNo, `point (ix ${String(ix)}, iy ${String(iy)}), expected (ix ${pt.ix}, iy ${pt.iy})`);
+      result.rows++;
+      result.keepBytes += l.bytes;
+      if (failed) result.failed++;
+      cursor.advance();
+    }
+    return result;
+  } finally {
+    lines.close();
+  }
+}
