@@ -58,13 +58,30 @@ export function globalMinimum(curve: AlphaScanPoint[]): number {
   return best;
 }
 
-/** Local minima of f on the grid (the ends count when f rises away from them). */
-export function localMinima(curve: AlphaScanPoint[]): AlphaMinimum[] {
+/**
+ * Local minima of f on the grid that noise alone cannot make: f rises away from the point on
+ * both sides (the ends count when f rises away from them), and, away from alpha = 0, the
+ * highest f on each side (up to the ends) lies more than z errors of f above it. A shallow
+ * dip near alpha = 0, where f - f(0) ~ alpha^2 is below the error bars, is no minimum.
+ */
+export function localMinima(curve: AlphaScanPoint[], z = 2): AlphaMinimum[] {
   const out: AlphaMinimum[] = [];
-  for (let g = 0; g < curve.length; g++) {
-    const f = curve[g].f.value;
-    const left = g === 0 || curve[g - 1].f.value > f, right = g === curve.length - 1 || curve[g + 1].f.value > f;
-    if (left && right) out.push({ alpha: curve[g].alpha, f: curve[g].f });
+  const n = curve.length;
+  // alpha = 0 (f = 0 exactly) is a minimum unless f dips significantly below 0 before it
+  // rises significantly above.
+  for (let k = 1; k <= n; k++) {
+    if (k === n || curve[k].f.value - z * curve[k].f.error > 0) { out.push({ alpha: 0, f: curve[0].f }); break; }
+    if (curve[k].f.value + z * curve[k].f.error < 0) break;
+  }
+  for (let g = 1; g < n; g++) {
+    const f = curve[g].f.value, e = curve[g].f.error;
+    const left = curve[g - 1].f.value > f, right = g === n - 1 || curve[g + 1].f.value > f;
+    if (!left || !right) continue;
+    let hl = -Infinity, hr = -Infinity;
+    for (let k = 0; k < g; k++) hl = Math.max(hl, curve[k].f.value);
+    for (let k = g + 1; k < n; k++) hr = Math.max(hr, curve[k].f.value);
+    if (hl - f <= z * e || (g < n - 1 && hr - f <= z * e)) continue;
+    out.push({ alpha: curve[g].alpha, f: curve[g].f });
   }
   return out;
 }
@@ -95,4 +112,25 @@ export function refinementGrid(curve: AlphaScanPoint[], g: number, R: number): n
     if (!curve.some((p) => Math.abs(p.alpha - a) < 1e-12 * Math.max(1, hi))) out.push(a);
   }
   return out;
+}
+
+/**
+ * The global minimum when it lies significantly below f(0) = 0, f_min + z sigma_f < 0, else
+ * 0 (alpha = 0): near alpha = 0, f - f(0) ~ alpha^2 is below any error bar, and a minimum
+ * that noise alone can make must not decide the phase.
+ */
+export function resolvedMinimum(curve: AlphaScanPoint[], z = 2): number {
+  const g = globalMinimum(curve);
+  return curve[g].f.value + z * curve[g].f.error < 0 ? g : 0;
+}
+
+/** The largest alpha, contiguous from 0, whose f is within z errors of f(0) = 0: the range alpha = 0 cannot exclude. */
+export function unresolvedRange(curve: AlphaScanPoint[], z = 2): number {
+  let a = 0;
+  for (const p of curve) {
+    if (p.f.value + z * p.f.error < 0) break;
+    a = p.alpha;
+    if (p.f.value - z * p.f.error > 0) break;
+  }
+  return a;
 }

@@ -5,6 +5,10 @@
  * (binning.ts), and each scalar reports its integrated autocorrelation time in sweeps:
  *
  *   S(k) = (<|n_k|^2> - |<n_k>|^2) / N          (connected, as the exact diagonalisation's)
+ *
+ * On a torus <n_k> = 0 for k != 0 exactly (translation invariance), so only k = 0 is
+ * subtracted there: a chain that stays in one orientation of a crystal for a while has a
+ * sample <n_k> != 0, and subtracting it would remove the order it is measuring.
  *   m^2  = <|n_k*|^2> / N^2,   U = 1 - <m^4> / (3 <m^2>^2)   (Binder, Z. Phys. B 43, 119 (1981))
  *   d rho / d mu = (1/N) [ int_0^beta <N(tau) N> dtau - beta <N>^2 ]
  *   C(r) = mean over pairs at distance r of <n_i n_j> - <n_i><n_j>
@@ -38,6 +42,12 @@ export interface ChainEstimates {
   /** Integrated autocorrelation times (sweeps) of energy, density, sigma^x. */
   autocorrelation: { energy: number; density: number; sigmaX: number };
   drift: { energy: Drift; density: Drift; sigmaX: Drift };
+  /**
+   * Binning convergence: the error from bins merged four at a time over the error from the
+   * bins (about 1 when the bins are longer than the autocorrelation time; Flyvbjerg and
+   * Petersen 1989). Null where there are too few bins to merge.
+   */
+  binningGrowth: { energy: number; density: number; sigmaX: number; orderParameter: number } | null;
   bins: number;
   samples: number;
   cutoff: number;
@@ -78,6 +88,7 @@ export function chainEstimates(g: QmcGeometry, beta: number, chains: SseChainRes
     return Float64Array.of((k - beta * n * n) / N);
   });
   const sk = jackknife(B, (ex) => Float64Array.from({ length: K }, (_, q) => {
+    if (g.torus && q !== 0) return mean(nk2, K, q, ex) / N;
     const re = mean(nkRe, K, q, ex), im = mean(nkIm, K, q, ex);
     return (mean(nk2, K, q, ex) - re * re - im * im) / N;
   }));
@@ -110,6 +121,10 @@ export function chainEstimates(g: QmcGeometry, beta: number, chains: SseChainRes
     siteDensities: g.kind === 'array' ? siteMeans(g.N, B, cat((c) => c.sites!, g.N)) : null,
     autocorrelation: { energy: e.tau, density: rho.tau, sigmaX: sx.tau },
     drift: { energy: drift(chains, 0), density: drift(chains, 1), sigmaX: drift(chains, 2) },
+    binningGrowth: chains.every((c) => c.bins % 4 === 0) && B >= 16 ? {
+      energy: growth(col(0)), density: growth(col(1)), sigmaX: growth(col(2)),
+      orderParameter: star >= 0 ? growth(Float64Array.from({ length: B }, (_, b) => nk2[b * K + star])) : 1,
+    } : null,
     bins: B, samples,
     cutoff: Math.max(...chains.map((c) => c.cutoff)),
     meanOperators: chains.reduce((s, c) => s + c.meanOperators, 0) / chains.length,
@@ -144,6 +159,13 @@ function correlation(g: QmcGeometry, B: number, nk2: Float64Array, cat: Cat, mea
   }
   const est = jackknife(B, f);
   return Array.from(g.shells, (r, s) => ({ r, value: est[s].value, error: est[s].error, pairs: g.shellPairs[s] }));
+}
+
+/** Error of the mean from bins merged four at a time over the error from the bins themselves. */
+function growth(x: Float64Array): number {
+  const merged = Float64Array.from({ length: Math.floor(x.length / 4) }, (_, b) => (x[4 * b] + x[4 * b + 1] + x[4 * b + 2] + x[4 * b + 3]) / 4);
+  const e1 = binnedMean(x).error, e4 = binnedMean(merged).error;
+  return e1 > 0 ? e4 / e1 : 1;
 }
 
 /** Per-site means with binning errors. */

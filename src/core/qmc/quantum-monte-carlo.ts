@@ -20,7 +20,8 @@ import { type SseChainRequest, type SseChainResult, runSseChain } from './sse-ch
 import { sseTerms } from './sse-terms.ts';
 import { type ChainEstimates, chainEstimates } from './qmc-estimates.ts';
 import {
-  type AlphaScanPoint, alphaGrid, freeEnergyCurve, globalMinimum, localMinima, refinementGrid, stationaryAlpha,
+  type AlphaScanPoint, alphaGrid, freeEnergyCurve, globalMinimum, localMinima, refinementGrid, resolvedMinimum,
+  stationaryAlpha, unresolvedRange,
 } from './free-energy-scan.ts';
 import { type QmcResult, qmcPhase } from './qmc-result.ts';
 
@@ -85,9 +86,12 @@ export function* qmcBatches(req: QmcRequest, geometry?: QmcGeometry): Generator<
       const fine = split(refine, beta, yield batch('refine', beta, refine));
       curve = freeEnergyCurve(delta, r.mu, [...pts, ...refine.map((a, k) => ({ alpha: a, sigmaX: fine[k].sigmaX }))]);
     }
-    const best = globalMinimum(curve);
+    const best = resolvedMinimum(curve);
     alpha = stationaryAlpha(delta, r.mu, curve, best);
-    alphaError = alphaUncertainty(delta, r.mu, curve, best);
+    alphaError = best > 0 ? alphaUncertainty(delta, r.mu, curve, best) : unresolvedRange(curve);
+    if (best === 0 && globalMinimum(curve) > 0) {
+      notes.push(`the lowest f(alpha) on the grid (alpha = ${fmt(curve[globalMinimum(curve)].alpha)}) is not significantly below f(0): alpha = 0 is kept, and alpha up to ${fmt(alphaError)} is not excluded`);
+    }
     alphaScan = curve;
     const minima = localMinima(curve);
     if (minima.length > 1) {
@@ -141,6 +145,11 @@ function assemble(
     && (2 * est.orderParameter.m[0]) % g.torus.Lx === 0 && (2 * est.orderParameter.m[1]) % g.torus.Ly === 0;
   for (const [name, d] of Object.entries(est.drift)) {
     if (Math.abs(d.sigmas) > 4) notes.push(`${name} drifts by ${d.sigmas.toFixed(1)} sigma between the halves of the run: not equilibrated, raise the sweeps`);
+  }
+  if (r.chains === 1) notes.push('one chain: a mode it never leaves (a crystal orientation under strong blockade) cannot show in its error bars; run two or more chains');
+  if (est.binningGrowth) {
+    const slow = Object.entries(est.binningGrowth).filter(([, v]) => v > 1.5).map(([k, v]) => `${k} (x${v.toFixed(1)})`);
+    if (slow.length) notes.push(`error bars still grow with bin length for ${slow.join(', ')}: the chain has not sampled its slowest mode often enough; run more chains or sweeps`);
   }
   const binSweeps = Math.floor(r.sweeps / r.bins);
   const tauMax = Math.max(est.autocorrelation.energy, est.autocorrelation.density, est.autocorrelation.sigmaX);

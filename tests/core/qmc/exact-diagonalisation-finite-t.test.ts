@@ -109,22 +109,23 @@ describe(`Monte Carlo against exact diagonalisation at finite T (${SOURCES.fullS
     for (const key of ['energy', 'density', 'sigmaX', 'sPi'] as const) expectAbs(a[key], b[key], 1e-10);
   });
 
-  const points: { name: string; spec: ClusterSpec; mu: number; alpha: number; T: number; sweeps: number }[] = [
+  const points: { name: string; spec: ClusterSpec; mu: number; alpha: number; T: number; sweeps: number; chains?: number }[] = [
     { name: 'nn, generic', spec: ring({ shape: 'nn', V1: 1 }), mu: 0.5, alpha: 0.4, T: 0.3, sweeps: 8000 },
     { name: 'vdw Rb = 1.2, generic', spec: ring({ shape: 'vdw', Rb: 1.2 }), mu: 1, alpha: 0.6, T: 0.5, sweeps: 8000 },
     { name: 'vdw Rb = 1, classical (alpha = 0)', spec: ring({ shape: 'vdw', Rb: 1 }), mu: 1.5, alpha: 0, T: 0.4, sweeps: 8000 },
     // V1 = 2 * 1.6^6 = 33.6: neighbours blockaded, a half-filled crystal forming (S(pi) ~ N/4).
-    // Known failure (reported to the lead): energy, <n> and <sigma^x> agree, but
-    // S(pi) = 0.27 +- 0.14 (core d29b88c), 0.54 +- 0.15 (a04a594) against 1.30. A chain keeps one of the two
-    // crystal orientations for ~1000 sweeps, and S(k) subtracts the run's own |<n_k>|^2,
-    // which on a translation-invariant ring is exactly 0 for k != 0: the order is
-    // subtracted away. Eight independent chains pooled give <|n_pi|^2>/N = 1.306 +- 0.031.
-    { name: 'vdw Rb = 1.6, strong blockade', spec: ring({ shape: 'vdw', Rb: 1.6 }), mu: 2, alpha: 0.5, T: 0.25, sweeps: 4000 },
+    // A single chain here keeps one crystal orientation (and its particle number) for
+    // thousands of sweeps: one chain of 4000 sweeps gave <n> 3.4 sigma and S(pi) 7 sigma
+    // off with bin errors that looked converged. Independent chains expose it (the run
+    // notes that the error still grows with bin length), so this point pools four, as a
+    // user must at strong blockade. (Before the core's fix, S(k) also subtracted the run's
+    // own |<n_k>|^2, which is exactly 0 on a ring for k != 0, and removed the order.)
+    { name: 'vdw Rb = 1.6, strong blockade, 4 chains', spec: ring({ shape: 'vdw', Rb: 1.6 }), mu: 2, alpha: 0.5, T: 0.25, sweeps: 4000, chains: 4 },
   ];
-  for (const { name, spec, mu, alpha, T, sweeps } of points) {
+  for (const { name, spec, mu, alpha, T, sweeps, chains } of points) {
     it(`${name}: mu = ${mu}, alpha = ${alpha}, T = ${T}: energy, <n>, <sigma^x>, S(pi) within 4 sigma`, () => {
       const exact = exactThermal(spec, mu, alpha, T);
-      const r = quantumMonteCarlo({ cluster: spec, mu, alpha, temperature: T, sweeps, seed: 1 });
+      const r = quantumMonteCarlo({ cluster: spec, mu, alpha, temperature: T, sweeps, seed: 1, chains });
       // Source of every expected value: exactThermal above. maxError: about 2% of each
       // quantity's scale (energy ~ mu, n and sigma^x ~ 1/2); S(pi), a fluctuation of
       // |n_pi|^2 whose own spread is as large as its mean, 10%. So 4 sigma stays sharp.
