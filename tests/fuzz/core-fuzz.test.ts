@@ -10,16 +10,16 @@ import { runFuzz, summary } from './fuzz-driver.ts';
  * The longer run is `npm run bench -- fuzz`.
  */
 describe('fuzz of the physics core', () => {
-  it('500 seeded inputs: answers or clean refusals, closed forms where they apply, nothing hangs', async () => {
-    const r = await runFuzz({ seed: 20261202, count: 500, quick: true, budgetMs: 20000 });
+  it('400 seeded inputs: answers or clean refusals, closed forms where they apply, nothing hangs', async () => {
+    const r = await runFuzz({ seed: 20261202, count: 400, quick: true, budgetMs: 20000 });
     console.log(summary(r));
     for (const f of r.failures) console.log(`case ${f.i} ${f.verdict}: ${f.note}\n  ${JSON.stringify(f.input)}`);
-    expect(r.tried).toBe(500);
+    expect(r.tried).toBe(400);
     expect(r.counts.hung).toBe(0);
     expect(r.counts.crash).toBe(0);
     expect(r.counts.wrong).toBe(0);
     // The stream must exercise both sides: real answers checked against closed forms, and refusals.
-    expect(r.checked).toBeGreaterThan(60);
-    expect(r.counts.refused).toBeGreaterThan(25);
+    expect(r.checked).toBeGreaterThan(50);
+    expect(r.counts.refused).toBeGreaterThan(20);
   }, 120_000);
 });
