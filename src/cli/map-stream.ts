@@ -94,7 +94,8 @@ export async function streamMap(io: CliIo, a: ParsedArgs, job: MapJob, target: O
   const run = await interruptible(io, workers, async (pool, signal) => {
     const stop = new AbortController();
     const onAbort = () => stop.abort(signal.reason);
-    signal.addEventListener('abort', onAbort, { once: true });
+    if (signal.aborted) onAbort();
+    else signal.addEventListener('abort', onAbort, { once: true });
     let firstError: unknown;
     const inFlight: Promise<void>[] = [];
     try {
