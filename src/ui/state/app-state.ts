@@ -19,10 +19,18 @@ export type ModelInputs = Record<ModelKey, string>;
 export interface AppState {
   view: ViewName;
   model: ModelInputs;
-  atlas: { x: string; y: string; lines: string; shade: string; point: string };
+  atlas: {
+    x: string; y: string; lines: string; shade: string; point: string;
+    /** "Check this boundary" (QMC line scan): the line "x0,y0;x1,y1" in map units, sizes, points, sweeps, T, ground ('1' or ''). */
+    check: string; sizes: string; cpoints: string; csweeps: string; ctemp: string; cground: string;
+  };
   staircase: { mu: string; compare: string };
   modes: { points: string; cell: string };
-  correlated: { method: string; cluster: string; size: string; alpha: string; seed: string; steps: string; samples: string; sites: string };
+  correlated: {
+    method: string; cluster: string; size: string; alpha: string; seed: string; steps: string; samples: string; sites: string;
+    /** QMC: temperature T, ground-state mode ('1' or ''), sweeps per chain, chains, points of the alpha grid. */
+    temperature: string; ground: string; sweeps: string; chains: string; apoints: string;
+  };
   planner: {
     c6: string; spacing: string; coupling: string; g0: string; emitters: string; splitting: string;
     detuning: string; mu: string; temperature: string; tunit: string;
@@ -39,10 +47,16 @@ export function demoState(): AppState {
       lattice: 'chain', interaction: 'vdw', strength: 'rb', rb: '1.5', v1: '1', v2: '0', v0: '4', rc: '1.5',
       range: '', detuning: '3', pump: 'mu', mu: '1', density: '0.3', temperature: '0', 'max-cell': '12',
     },
-    atlas: { x: 'mu=-1:2.9:64', y: 'rb=0.8:2.4:40', lines: 'vdw:inf', shade: 'phase', point: '' },
+    atlas: {
+      x: 'mu=-1:2.9:64', y: 'rb=0.8:2.4:40', lines: 'vdw:inf', shade: 'phase', point: '',
+      check: '', sizes: '8,12,16', cpoints: '9', csweeps: '200', ctemp: '0.05', cground: '',
+    },
     staircase: { mu: '-1:2.9:400', compare: '1' },
     modes: { points: '96', cell: '' },
-    correlated: { method: 'ed', cluster: 'periodic', size: '12', alpha: '', seed: '7', steps: '60', samples: '4000', sites: '' },
+    correlated: {
+      method: 'ed', cluster: 'periodic', size: '12', alpha: '', seed: '7', steps: '60', samples: '4000', sites: '',
+      temperature: '0.1', ground: '', sweeps: '200', chains: '2', apoints: '8',
+    },
     planner: {
       c6: '140', spacing: '4', coupling: 'single', g0: '0.5', emitters: '200', splitting: '',
       detuning: '21', mu: '7', temperature: '0', tunit: 'uK',

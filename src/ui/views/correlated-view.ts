@@ -1,9 +1,12 @@
 /**
  * <correlated-view>: the correlated check. Exact diagonalisation or variational Monte
- * Carlo on a periodic cluster of the model's lattice or on the user's own array (CSV
- * upload), at the model's mu and detuning (alpha self-consistent, or fixed), next to the
- * mean-field answer for the same inputs. Shows the array to scale shaded by <n_i>, the
- * live optimisation trace (VMC), S(k) and C(r). T = 0 for both methods.
+ * Carlo, or unbiased quantum Monte Carlo (the reference), on a periodic cluster of the
+ * model's lattice or on the user's own array (CSV upload), at the model's mu and detuning
+ * (alpha self-consistent, or fixed), next to the mean-field answer for the same inputs.
+ * Shows the array to scale shaded by <n_i>, the live optimisation trace (VMC), S(k) and
+ * C(r), and for QMC f(alpha) - f(0). ED and VMC at T = 0; QMC at any T or in its
+ * ground-state mode (its run: controllers/qmc-task.ts; its numbers: qmc-numbers.ts).
+ * VMC is checked against ED, ground-state QMC and mean field (qmc-reference.ts).
  */
 import { HostWidthController } from '../controllers/host-width.ts';
 import { LitElement, html, css, nothing } from 'lit';
@@ -29,10 +32,32 @@ import { PHASE_NAMES } from '../plot/phase-palette.ts';
 import '../app/figure-panel.ts';
 import '../app/data-export.ts';
 import '../app/limits-note.ts';
+import type { QmcRequest, QmcResult } from '../../core/qmc/quantum-monte-carlo.ts';
+import type { Estimate } from '../../core/vmc/binning.ts';
+import { QmcTask, qmcProgressText } from '../controllers/qmc-task.ts';
+import { qmcRows, qmcTable } from './qmc-numbers.ts';
+import { vmcWarnings } from './qmc-reference.ts';
+import { freeEnergyFigure } from '../figures/qmc-figures.ts';
 
 type Section = AppState['correlated'];
 export type Correlated = { kind: 'ed'; r: EdResult } | { kind: 'vmc'; r: VmcResult };
-interface Job { method: 'ed' | 'vmc'; cluster: ClusterSpec; mu: number; delta?: number; alpha?: number; seed: number; steps: number; sweeps: number; chains: number }
+/** What the view shows: an ED or VMC result, or a QMC one. */
+type Shown = Correlated | { kind: 'qmc'; r: QmcResult };
+interface Job {
+  method: 'ed' | 'vmc' | 'qmc'; cluster: ClusterSpec; mu: number; delta?: number; alpha?: number; seed: number; steps: number; sweeps: number; chains: number;
+  /** QMC: temperature (null: ground-state mode), sweeps per chain, chains, alpha grid points. */
+  qmc?: { temperature: number | null; sweeps: number; chains: number; alphaPoints: number };
+}
+
+/** The QMC request of a job (the CLI's `qmc` builds the same from its flags). */
+function qmcRequest(j: Job): QmcRequest {
+  const q = j.qmc!;
+  return {
+    cluster: j.cluster, mu: j.mu, ...(j.alpha === undefined ? { delta: j.delta } : { alpha: j.alpha }),
+    ...(q.temperature === null ? { ground: true } : { temperature: q.temperature }),
+    sweeps: q.sweeps, chains: q.chains, seed: j.seed, alphaPoints: q.alphaPoints,
+  };
+}
 
 /** The inputs that fix the physics (not the method's settings). */
 function physicsKey(j: Job): string {
@@ -54,6 +79,10 @@ export class CorrelatedView extends LitElement {
   declare engine: EngineClient;
   private task = new EngineTask<Correlated>(this);
   private meanField = new EngineTask<SolveResult>(this);
+  /** The QMC run (on the scan workers, through workers/qmc-run.ts like the CLI's qmc). */
+  private qmc = new QmcTask(this, () => this.engine);
+  /** The last ground-state QMC energy and the inputs it belongs to (the reference VMC is held against). */
+  private lastQmc: { key: string; e: Estimate } | null = null;
   /** The cluster's sites, built in the interactive worker (the build's lattice sums never run on this thread). */
   private sites = new EngineTask<{ N: number; positions: number[] }>(this);
   /** The live optimisation trace of the running VMC. */
@@ -104,6 +133,19 @@ export class CorrelatedView extends LitElement {
     const alpha = alphaText === '' ? undefined : parseNumber(alphaText);
     if (alpha !== undefined && !(alpha >= 0)) return { error: `fixed \u03b1 must be a number >= 0, got "${alphaText}"` };
     const seed = parseNumber(s.seed), steps = parseNumber(s.steps), sweeps = parseNumber(s.samples);
+    if (s.method === 'qmc') {
+      const ground = s.ground === '1', temperature = parseNumber(s.temperature), qs = parseNumber(s.sweeps), qc = parseNumber(s.chains), ap = parseNumber(s.apoints);
+      if (!ground && !(temperature > 0)) return { error: `QMC needs a temperature T > 0 (got "${s.temperature}"), or tick the ground state` };
+      if (!Number.isInteger(seed) || !Number.isInteger(qs) || qs < 64 || !Number.isInteger(qc) || qc < 1 || qc > 64 || !Number.isInteger(ap) || ap < 4 || ap > 64) {
+        return { error: 'QMC needs a whole-number seed, sweeps >= 64, chains from 1 to 64 and 4 to 64 α grid points' };
+      }
+      return {
+        job: {
+          method: 'qmc', cluster, mu: p.mu, ...(alpha === undefined ? { delta: p.delta } : { alpha }), seed, steps: 0, sweeps: 0, chains: qc,
+          qmc: { temperature: ground ? null : temperature, sweeps: qs, chains: qc, alphaPoints: ap },
+        },
+      };
+    }
     if (s.method === 'vmc' && (!Number.isInteger(seed) || !Number.isInteger(steps) || steps < 1 || !Number.isInteger(sweeps) || sweeps < 64)) {
       return { error: 'VMC needs a whole-number seed, steps >= 1 and samples >= 64' };
     }
@@ -129,19 +171,23 @@ export class CorrelatedView extends LitElement {
       this.problem = key;
       this.trace = [];
     }
-    this.task.run(key, (signal) => (job.method === 'ed'
+    if (job.method === 'qmc') this.qmc.run(qmcRequest(job));
+    else this.task.run(key, (signal) => (job.method === 'ed'
       ? this.engine.call((r) => r.correlated.ed({ cluster: job.cluster, mu: job.mu, alpha: job.alpha, delta: job.delta }), signal).then((r) => ({ kind: 'ed' as const, r }))
       : this.runVmc(job, signal).then((r) => ({ kind: 'vmc' as const, r }))));
     const p = this.model.params!;
-    const mf = { params: { ...p, T: 0 } };
+    const mf = { params: { ...p, T: job.qmc?.temperature ?? 0 } };
     this.meanField.run(JSON.stringify(mf), (signal) => this.engine.call((r) => r.meanfield.solve(mf), signal));
   }
 
   override updated() {
-    this.dataset.status = this.task.status;
-    this.dataset.method = this.task.value?.kind ?? '';
+    const qmc = this.job?.method === 'qmc';
+    this.dataset.status = qmc ? this.qmc.status : this.task.status;
+    this.dataset.method = qmc ? (this.qmc.value ? 'qmc' : '') : this.task.value?.kind ?? '';
     const v = this.task.value;
     if (v?.kind === 'ed' && this.job?.method === 'ed' && this.task.status === 'complete') this.lastEd = { key: physicsKey(this.job), r: v.r };
+    const q = this.qmc.value;
+    if (qmc && q && this.qmc.status === 'complete' && q.temperature === null) this.lastQmc = { key: physicsKey(this.job!), e: q.energyPerSite };
   }
 
   private runVmc(job: Job, signal: AbortSignal): Promise<VmcResult> {
@@ -177,8 +223,11 @@ export class CorrelatedView extends LitElement {
     const flags = modelFlags(this.inputs).filter((_, i, a) => !['--detuning', '--mu', '--temperature', '--max-cell', '--density'].includes(a[i - (i % 2)]));
     const cluster = job.cluster.kind === 'array' ? ['--sites', 'sites.csv'] : ['--size', this.section.size.trim()];
     const photon = job.alpha !== undefined ? ['--alpha', String(job.alpha)] : ['--detuning', String(job.delta)];
-    const vmc = job.method === 'vmc' ? ['--seed', String(job.seed), '--workers', String(job.chains), '--steps', String(job.steps), '--sweeps', String(job.sweeps), '--one-body', 'site'] : [];
-    return cliLine(job.method, [...flags, ...cluster, '--mu', String(job.mu), ...photon, ...vmc, '--json']);
+    const q = job.qmc;
+    const run = job.method === 'vmc' ? ['--seed', String(job.seed), '--workers', String(job.chains), '--steps', String(job.steps), '--sweeps', String(job.sweeps), '--one-body', 'site']
+      : q ? [...(q.temperature === null ? ['--ground'] : ['--temperature', String(q.temperature)]), '--sweeps', String(q.sweeps), '--chains', String(q.chains),
+        '--alpha-points', String(q.alphaPoints), '--seed', String(job.seed), '--workers', String(this.engine?.workers ?? 1)] : [];
+    return cliLine(job.method, [...flags, ...cluster, '--mu', String(job.mu), ...photon, ...run, '--json']);
   }
 
   private field(key: keyof Section, label: string, width = 90) {
@@ -187,22 +236,35 @@ export class CorrelatedView extends LitElement {
         @input=${(e: Event) => this.patch({ [key]: (e.target as HTMLInputElement).value })}></div>`;
   }
 
+  /** The result to show: the active method's (QMC has its own controller). */
+  private shown(): Shown | undefined {
+    if (this.section.method !== 'qmc') return this.task.value;
+    const r = this.qmc.value;
+    return r ? { kind: 'qmc', r } : undefined;
+  }
+
   override render() {
     const s = this.section;
     const { error } = this.described;
-    const v = this.task.value;
+    const v = this.shown();
+    const isQmc = s.method === 'qmc';
+    const status = isQmc ? this.qmc.status : this.task.status;
+    const runError = isQmc ? this.qmc.error : this.task.error;
     const mf = this.meanField.value;
     const w = Math.max(340, Math.min(560, (this.size.width - 10) / (this.size.width > 900 ? 2 : 1)));
     const job = this.job;
     const positions = job && this.sites.valueKey === JSON.stringify(job.cluster) && this.sites.value ? Float64Array.from(this.sites.value.positions) : null;
-    const dens = v ? (v.kind === 'ed' ? v.r.siteDensities : v.r.siteDensities.map((e) => e.value)) : null;
+    // QMC on a torus averages over translations: every site has <n> = the density
+    const dens = v ? (v.kind === 'ed' ? v.r.siteDensities : v.kind === 'vmc' ? v.r.siteDensities.map((e) => e.value)
+      : v.r.siteDensities?.map((e) => e.value) ?? new Array<number>(v.r.sites).fill(v.r.density.value)) : null;
     const trace = v?.kind === 'vmc' && this.task.status !== 'pending' ? v.r.trace : this.trace;
     return html`
       <div class="controls">
         <div><label for="cr-method">Method</label>
           <select id="cr-method" name="correlated-method" @change=${(e: Event) => this.patch({ method: (e.target as HTMLSelectElement).value })}>
             <option value="ed" ?selected=${s.method !== 'vmc'}>exact diagonalisation (Lanczos)</option>
-            <option value="vmc" ?selected=${s.method === 'vmc'}>variational Monte Carlo (Jastrow)</option></select></div>
+            <option value="vmc" ?selected=${s.method === 'vmc'}>variational Monte Carlo (Jastrow)</option>
+            <option value="qmc" ?selected=${isQmc}>quantum Monte Carlo (SSE): unbiased reference, any T</option></select></div>
         <div><label for="cr-cluster">Sites</label>
           <select id="cr-cluster" name="correlated-cluster" @change=${(e: Event) => this.patch({ cluster: (e.target as HTMLSelectElement).value })}>
             <option value="periodic" ?selected=${s.cluster !== 'array'}>periodic cluster of the lattice</option>
@@ -213,19 +275,27 @@ export class CorrelatedView extends LitElement {
           : this.field('size', 'Cluster size L (ring) or Lx x Ly (e.g. 4x4)')}
         ${this.field('alpha', '\u03b1 fixed (empty: self-consistent)', 150)}
         ${s.method === 'vmc' ? html`${this.field('seed', 'Seed')} ${this.field('steps', 'SR steps')} ${this.field('samples', 'Samples (sweeps)')}` : nothing}
-        <div aria-live="polite">${this.task.status === 'pending' ? html`<span class="running">running\u2026</span> <button @click=${() => this.task.abort()}>Cancel</button>` : nothing}</div>
+        ${isQmc ? this.qmcFields() : nothing}
+        <div aria-live="polite" class="run-status">${status === 'pending' ? html`<span class="running">running\u2026${isQmc ? ' ' + qmcProgressText(this.qmc.progress) : ''}</span>
+          <button class="cancel" @click=${() => (isQmc ? this.qmc.cancel() : this.task.abort())}>Cancel</button>` : nothing}</div>
       </div>
+      <p class="muted trust">Which to trust: quantum Monte Carlo (stochastic series expansion) samples the cluster without bias at any T;
+        its error bars are statistical only, so it is the reference. ED is exact but limited to 20 sites at T = 0; VMC is a variational
+        bound, as good as its ansatz and its optimisation, and is checked against the others below.</p>
       ${error ? html`<p class="err" role="alert">${error}</p>` : nothing}
       ${this.uploadError ? html`<p class="err" role="alert">${this.uploadError}</p>` : nothing}
-      ${this.task.error ? html`<p class="err" role="alert">${this.task.error}</p>` : nothing}
+      ${runError ? html`<p class="err" role="alert">${runError}</p>` : nothing}
+      ${v?.kind === 'vmc' && this.task.status === 'complete' ? this.vmcVerdict(v.r, mf) : nothing}
+      ${v?.kind === 'qmc' && v.r.notes.length ? html`<ul class="caution qmc-notes" aria-label="QMC notes">${v.r.notes.map((n) => html`<li>${n}</li>`)}</ul>` : nothing}
       <div class="grid">
         ${positions ? html`<figure-panel class="cluster" .figure=${clusterFigure(positions, dens, job!.cluster.kind === 'periodic', w, this.model.params?.lattice === 'chain' && job!.cluster.kind === 'periodic' ? 170 : 300)}></figure-panel>` : nothing}
         <div>${this.comparison(v, mf)}</div>
         ${trace.length ? this.traceFigure(trace, mf, w) : nothing}
         ${v ? this.correlationFigures(v, w) : nothing}
+        ${v?.kind === 'qmc' ? this.freeEnergy(v.r, w) : nothing}
       </div>
-      <limits-note lattice=${this.model.params?.lattice ?? this.inputs.lattice} temperature=${0}></limits-note>
-      ${v && job ? html`<data-export class="correlated-export" .table=${correlatedTable(v)} .json=${v.r} name=${v.kind} .command=${this.command(job)}></data-export>
+      <limits-note lattice=${this.model.params?.lattice ?? this.inputs.lattice} temperature=${isQmc ? job?.qmc?.temperature ?? 0 : 0}></limits-note>
+      ${v && job ? html`<data-export class="correlated-export" .table=${v.kind === 'qmc' ? qmcTable(v.r) : correlatedTable(v)} .json=${v.r} name=${v.kind} .command=${this.command(job)}></data-export>
         ${job.cluster.kind === 'array' ? html`<button @click=${() => downloadText('x,y\n' + s.sites.split(';').join('\n') + '\n', 'sites.csv', 'text/csv')}>Save sites.csv for the command</button>` : nothing}` : nothing}`;
   }
 
@@ -245,17 +315,46 @@ export class CorrelatedView extends LitElement {
     })}></figure-panel>`;
   }
 
-  private comparison(v: Correlated | undefined, mf: SolveResult | undefined) {
-    const rows = comparisonRows(v, mf, this.job?.alpha !== undefined);
-    const method = v?.kind === 'vmc' ? 'VMC' : 'ED';
+  /** QMC entries: temperature or the ground state, sweeps, chains, alpha grid, seed. */
+  private qmcFields() {
+    const ground = this.section.ground === '1';
+    return html`${ground ? nothing : this.field('temperature', 'Temperature T (g)')}
+      <div><label><input type="checkbox" name="correlated-ground" .checked=${ground}
+        @change=${(e: Event) => this.patch({ ground: (e.target as HTMLInputElement).checked ? '1' : '' })}> ground state (\u03b2 doubled to convergence)</label></div>
+      ${this.field('sweeps', 'Sweeps per chain')} ${this.field('chains', 'Chains')} ${this.field('apoints', '\u03b1 grid points')} ${this.field('seed', 'Seed')}`;
+  }
+
+  /** Issue 11 item 7: VMC held against ED, ground-state QMC and mean field of the same inputs. */
+  private vmcVerdict(r: VmcResult, mf: SolveResult | undefined) {
+    const key = this.job ? physicsKey(this.job) : '';
+    const comparable = this.job?.alpha === undefined;
+    const warnings = vmcWarnings(r, {
+      ed: this.lastEd?.key === key ? this.lastEd.r.energyPerSite : undefined,
+      qmc: this.lastQmc?.key === key ? this.lastQmc.e : undefined,
+      meanField: comparable && mf ? mf.grandPotential : undefined,
+    });
+    return warnings.length ? html`<div class="caution vmc-warnings" role="alert">${warnings.map((t) => html`<p>\u26a0 ${t}</p>`)}</div>` : nothing;
+  }
+
+  private freeEnergy(r: QmcResult, w: number) {
+    const fig = freeEnergyFigure(r, w);
+    return fig ? html`<figure-panel class="qmc-f" .figure=${fig}></figure-panel>` : nothing;
+  }
+
+  private comparison(v: Shown | undefined, mf: SolveResult | undefined) {
+    if (v?.kind === 'qmc') return this.table('QMC (cluster, unbiased)', qmcRows(v.r, mf), mf, v.r.temperature ?? 0);
+    return this.table(v?.kind === 'vmc' ? 'VMC (cluster)' : 'ED (cluster)', comparisonRows(v, mf, this.job?.alpha !== undefined), mf, 0);
+  }
+
+  private table(method: string, rows: [string, string, string][], mf: SolveResult | undefined, T: number) {
     return html`<table class="comparison" aria-label="Correlated result beside mean field">
-      <thead><tr><th class="l">quantity</th><th>${method} (cluster)</th><th>mean field (infinite lattice)</th></tr></thead>
+      <thead><tr><th class="l">quantity</th><th>${method}</th><th>mean field (infinite lattice)</th></tr></thead>
       <tbody>${rows.map(([k, a, b]) => html`<tr><th class="l" scope="row">${k}</th><td>${a}</td><td>${b}</td></tr>`)}</tbody>
-      <caption class="muted" style="caption-side: bottom; text-align: left">${mf ? `mean field: ${PHASE_NAMES[mf.phase]}${mf.fraction ? ' ' + mf.fraction : ''}, M = ${mf.cellSize}, at T = 0` : ''}</caption>
+      <caption class="muted" style="caption-side: bottom; text-align: left">${mf ? `mean field: ${PHASE_NAMES[mf.phase]}${mf.fraction ? ' ' + mf.fraction : ''}, M = ${mf.cellSize}, at T = ${T}` : ''}</caption>
     </table>`;
   }
 
-  private correlationFigures(v: Correlated, w: number) {
+  private correlationFigures(v: Shown, w: number) {
     const sk = v.kind === 'ed' ? v.r.structureFactor.map((p) => ({ ...p, error: 0 })) : v.r.structureFactor;
     const oneD = sk.every((p) => p.k[1] === 0);
     const kx = sk.map((p) => (oneD ? p.k[0] : Math.hypot(p.k[0], p.k[1])));
@@ -263,8 +362,8 @@ export class CorrelatedView extends LitElement {
     const cr = v.kind === 'ed' ? v.r.correlation.map((p) => ({ ...p, error: 0 })) : v.r.correlation;
     return html`
       <figure-panel class="sk" .figure=${seriesFigure({
-        id: 'sk', name: 'structure-factor', title: 'Structure factor S(k) on the cluster momenta', width: w, height: 280,
-        series: [{ label: `S(k), ${v.kind.toUpperCase()}`, x: order.map((i) => kx[i]), y: order.map((i) => sk[i].value), err: order.map((i) => sk[i].error), stroke: '#5a2ca0', points: true, noLine: !oneD }],
+        id: 'sk', name: 'structure-factor', title: 'Connected structure factor S(k) = (\u27e8|n_k|\u00b2\u27e9 \u2212 |\u27e8n_k\u27e9|\u00b2)/N on the cluster momenta', width: w, height: 280,
+        series: [{ label: `S(k) connected, ${v.kind.toUpperCase()}`, x: order.map((i) => kx[i]), y: order.map((i) => sk[i].value), err: order.map((i) => sk[i].error), stroke: '#5a2ca0', points: true, noLine: !oneD }],
         x: { label: oneD ? 'k (1/a)' : '|k| (1/a)' }, y: { label: 'S(k) (per site)' },
       })}></figure-panel>
       <figure-panel class="cr" .figure=${seriesFigure({
