@@ -1,0 +1,213 @@
+// Streaming output and --resume, through the built CLI as a user runs it (dist/cli/atlas.mjs,
+// built first by scripts/build-cli.mjs): a map stopped by SIGKILL, SIGTERM or Ctrl-C midway
+// and continued with --resume is byte for byte the uninterrupted run, for a whole map and
+// for one shard, in CSV and JSON; a torn last line is dropped; a part of another scan is
+// refused; merge refuses a NaN, a non-numeric field and a row cut short, naming the line.
+// Check values: the uninterrupted run of the same command (common practice, no source:
+// resuming must not change a byte), and the refusals' wording.
+import { execFileSync, spawn } from 'node:child_process';
+import { appendFileSync, existsSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { cli } from './test-io.ts';
+
+const root = fileURLToPath(new URL('../..', import.meta.url));
+/** 1800 points at --max-cell 4: a few seconds on two workers, long enough to stop midway. */
+const MAP = ['map', '--x', 'mu=-1:2:60', '--y', 'rb=1:1.5:30', '--detuning', '3', '--max-cell', '4', '--workers', '2'];
+const POINTS = 60 * 30;
+let tmp = '';
+
+interface Run { code: number | null; err: string }
+
+/**
+ * Run the built CLI; with `stop`, send that signal once the file `watch` holds more than
+ * `bytes` bytes (rows are being written), polling every 50 ms. Never left running: a
+ * guard kills it after 90 s.
+ */
+function atlas(argv: string[], stop?: { signal: NodeJS.Signals; watch: string; bytes: number }): Promise<Run> {
+  return new Promise((resolve) => {
+    const child = spawn(process.execPath, [join(root, 'dist', 'cli', 'atlas.mjs'), ...argv], { cwd: tmp, env: { ...process.env, ATLAS_PROGRESS: '0' } });
+    let err = '';
+    child.stderr.on('data', (d: Buffer) => void (err += d.toString()));
+    child.stdout.resume();
+    const poll = stop && setInterval(() => {
+      const size = existsSync(stop.watch) ? statSync(stop.watch).size : 0;
+      if (size > stop.bytes) {
+        clearInterval(poll);
+        child.kill(stop.signal);
+      }
+    }, 50);
+    const guard = setTimeout(() => child.kill('SIGKILL'), 90_000);
+    child.on('close', (code) => {
+      clearTimeout(guard);
+      if (poll) clearInterval(poll);
+      resolve({ code, err });
+    });
+  });
+}
+
+const file = (name: string) => join(tmp, name);
+const lines = (name: string) => readFileSync(file(name), 'utf8').split('\n').length - 1;
+
+beforeAll(() => {
+  execFileSync(process.execPath, ['scripts/build-cli.mjs', '--quiet'], { cwd: root });
+  tmp = mkdtempSync(join(tmpdir(), 'atlas-resume-'));
+});
+afterAll(() => rmSync(tmp, { recursive: true, force: true }));
+
+describe('a map stopped midway and resumed is the uninterrupted run, byte for byte', () => {
+  let whole = '';
+  beforeAll(async () => {
+    const r = await atlas([...MAP, '--out', 'whole.csv']);
+    expect(r.code).toBe(0);
+    whole = readFileSync(file('whole.csv'), 'utf8');
+    expect(whole.split('\n').length - 2).toBe(POINTS); // header + rows + final line end
+  }, 120_000);
+
+  it('SIGKILL: the .partial file holds whole rows and a possibly torn one; --resume completes it', async () => {
+    const r = await atlas([...MAP, '--out', 'kill.csv'], { signal: 'SIGKILL', watch: file('kill.csv.partial'), bytes: 20_000 });
+    expect(r.code).toBe(null); // killed: no exit code
+    expect(existsSync(file('kill.csv'))).toBe(false);
+    const part = readFileSync(file('kill.csv.partial'), 'utf8');
+    expect(whole.startsWith(part)).toBe(true); // a byte prefix of the finished file
+    const rows = part.split('\n').length - 2;
+    expect(rows).toBeGreaterThan(100);
+    expect(rows).toBeLessThan(POINTS);
+    const again = await atlas([...MAP, '--out', 'kill.csv', '--resume']);
+    expect(again.code).toBe(0);
+    expect(again.err).toMatch(/read back/);
+    expect(existsSync(file('kill.csv.partial'))).toBe(false);
+    expect(readFileSync(file('kill.csv'), 'utf8') === whole).toBe(true);
+  }, 120_000);
+
+  it.each([['SIGTERM', 143], ['SIGINT', 130]] as const)('%s: the finished part goes to --out (exit %i); --resume completes it', async (signal, code) => {
+    const out = `${signal}.csv`;
+    const r = await atlas([...MAP, '--out', out], { signal, watch: file(`${out}.partial`), bytes: 20_000 });
+    expect(r.code).toBe(code);
+    expect(r.err).toMatch(/continue it with --resume/);
+    const part = readFileSync(file(out), 'utf8');
+    expect(whole.startsWith(part)).toBe(true);
+    expect(lines(out) - 1).toBeLessThan(POINTS);
+    const again = await atlas([...MAP, '--out', out, '--resume']);
+    expect(again.code).toBe(0);
+    expect(readFileSync(file(out), 'utf8') === whole).toBe(true);
+  }, 120_000);
+
+  it('a torn last line is dropped and computed again; a finished file resumes to itself', async () => {
+    const rows = whole.split('\n');
+    // 250 whole rows and half of the next one, as a process killed mid-write leaves them
+    writeFileSync(file('torn.csv.partial'), rows.slice(0, 251).join('\n') + '\n' + rows[251].slice(0, 30));
+    const r = await atlas([...MAP, '--out', 'torn.csv', '--resume']);
+    expect(r.code).toBe(0);
+    expect(r.err).toMatch(/250 read back/);
+    expect(readFileSync(file('torn.csv'), 'utf8') === whole).toBe(true);
+    const done = await atlas([...MAP, '--out', 'torn.csv', '--resume']);
+    expect(done.code).toBe(0);
+    expect(done.err).toMatch(/nothing left to compute/);
+    expect(readFileSync(file('torn.csv'), 'utf8') === whole).toBe(true);
+  }, 120_000);
+
+  it('a part of another scan is refused, naming the line, and left as it was', async () => {
+    writeFileSync(file('other.csv'), whole.split('\n').slice(0, 40).join('\n') + '\n');
+    const r = await atlas([...MAP.map((a) => (a === 'mu=-1:2:60' ? 'mu=-1:2.5:60' : a)), '--out', 'other.csv', '--resume']);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/other\.csv line 3 does not continue this scan \(axis values/);
+    expect(lines('other.csv')).toBe(40);
+  }, 60_000);
+});
+
+describe('a shard stopped by SIGKILL and resumed, in CSV and JSON', () => {
+  it.each(['csv', 'json'])('%s: byte for byte the uninterrupted shard, and the parts merge', async (format) => {
+    const json = format === 'json' ? ['--json'] : [];
+    const shard = (k: number) => [...MAP, '--shard', `${k}/2`, ...json];
+    const [a, b] = [`s1.${format}`, `s2.${format}`];
+    expect((await atlas([...shard(1), '--out', `ref-${a}`])).code).toBe(0);
+    const killed = await atlas([...shard(1), '--out', a], { signal: 'SIGKILL', watch: file(`${a}.partial`), bytes: 20_000 });
+    expect(killed.code).toBe(null);
+    expect((await atlas([...shard(1), '--out', a, '--resume'])).code).toBe(0);
+    expect(readFileSync(file(a), 'utf8') === readFileSync(file(`ref-${a}`), 'utf8')).toBe(true);
+    expect((await atlas([...shard(2), '--out', b])).code).toBe(0);
+    expect((await atlas(['merge', a, b, '--out', `merged.${format}`])).code).toBe(0);
+    const merged = readFileSync(file(`merged.${format}`), 'utf8');
+    if (format === 'csv') expect(merged === readFileSync(file('whole.csv'), 'utf8')).toBe(true);
+    else {
+      const doc = JSON.parse(merged) as { shard: null; complete: boolean; points: { ix: number; iy: number }[] };
+      expect(doc.shard).toBe(null);
+      expect(doc.complete).toBe(true);
+      expect(doc.points.map((p) => p.iy * 60 + p.ix)).toEqual(Array.from({ length: POINTS }, (_, i) => i));
+    }
+  }, 180_000);
+});
+
+describe('merge checks every value of every part', () => {
+  const small = ['map', '--x', 'mu=-1:2:20', '--y', 'rb=1:1.5:3', '--detuning', '3', '--max-cell', '3', '--workers', '2'];
+  let parts = new Map<string, string>();
+  beforeAll(async () => {
+    for (const k of [1, 2]) {
+      const r = await cli([...small, '--shard', `${k}/2`, '--out', `p${k}`], parts);
+      expect(r.code).toBe(0);
+      parts = r.files;
+    }
+  }, 60_000);
+  const damaged = (edit: (rows: string[]) => void) => {
+    const rows = (parts.get('p2') as string).split('\n');
+    edit(rows);
+    return new Map([['p1', parts.get('p1') as string], ['p2', rows.join('\n')]]);
+  };
+  const column = (name: string) => (parts.get('p2') as string).split('\n')[1].split(',').indexOf(name);
+
+  it('a NaN in a number column', async () => {
+    const files = damaged((rows) => {
+      const f = rows[4].split(',');
+      f[column('grandPotential')] = 'NaN';
+      rows[4] = f.join(',');
+    });
+    const r = await cli(['merge', 'p1', 'p2'], files);
+    expect(r.code).toBe(2);
+    expect(r.err).toBe("atlas: p2 line 5: grandPotential is 'NaN', not a number\n");
+  });
+
+  it('text where a number belongs, in a list column', async () => {
+    const files = damaged((rows) => {
+      const f = rows[6].split(',');
+      f[column('sublatticeDensities')] = '1 x';
+      rows[6] = f.join(',');
+    });
+    const r = await cli(['merge', 'p1', 'p2'], files);
+    expect(r.err).toBe("atlas: p2 line 7: sublatticeDensities holds 'x', not a number\n");
+  });
+
+  it('a truncated row (cut short, no line end) and a row missing its last fields', async () => {
+    const cut = damaged((rows) => {
+      rows.length = rows.length - 1; // the final line end goes
+      rows[rows.length - 1] = rows[rows.length - 1].slice(0, 25);
+    });
+    const n = (parts.get('p2') as string).split('\n').length - 1;
+    const r = await cli(['merge', 'p1', 'p2'], cut);
+    expect(r.code).toBe(2);
+    expect(r.err).toBe(`atlas: p2 line ${n} is cut short (no line end): the part is truncated\n`);
+    const short = damaged((rows) => {
+      rows[3] = rows[3].split(',').slice(0, 6).join(',');
+    });
+    const s = await cli(['merge', 'p1', 'p2'], short);
+    expect(s.err).toMatch(/^atlas: p2 line 4: 6 fields, the header has \d+ \(the row is cut short or damaged\)\n$/);
+  });
+
+  it('JSON parts: a string where a number belongs, and a line that is not whole JSON', async () => {
+    let js = new Map<string, string>();
+    for (const k of [1, 2]) js = (await cli([...small, '--json', '--shard', `${k}/2`, '--out', `j${k}`], js)).files;
+    const rows = (js.get('j1') as string).split('\n');
+    rows[3] = rows[3].replace(/"alpha":[^,]+/, '"alpha":"0.1"');
+    const bad = await cli(['merge', 'j1', 'j2'], new Map([['j1', rows.join('\n')], ['j2', js.get('j2') as string]]));
+    expect(bad.err).toBe('atlas: j1 line 4: alpha is "0.1", not a number\n');
+    const torn = (js.get('j2') as string).split('\n');
+    torn[2] = torn[2].slice(0, 40);
+    const t = await cli(['merge', 'j1', 'j2'], new Map([['j1', js.get('j1') as string], ['j2', torn.join('\n')]]));
+    expect(t.err).toBe('atlas: j2 line 3 is not valid JSON (cut short?)\n');
+    const good = await cli(['merge', 'j2', 'j1'], js);
+    expect(good.code).toBe(0);
+    expect((JSON.parse(good.out) as { points: unknown[] }).points.length).toBe(60);
+  }, 60_000);
+});
