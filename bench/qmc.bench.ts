@@ -15,8 +15,8 @@
  *     1 / (error^2 x CPU seconds), the usual Monte Carlo efficiency.
  *  5. Two workers over one: the same self-consistent run (two chains) on pools of 1 and 2.
  *  6. Wall time on two workers to locate the T = 0 crystal-to-condensate transition of the
- *     nearest-neighbour chain at mu = V1 with the cavity to +-0.01 in delta - mu (bisection on
- *     which minimum of f(alpha) is global).
+ *     nearest-neighbour chain at mu = V1 with the cavity to +-0.01 in delta - mu (one
+ *     self-consistent run: the threshold max I(alpha)/alpha^2 of its f(alpha) curve).
  *  --quick shortens every run.
  */
 import { execFileSync } from 'node:child_process';

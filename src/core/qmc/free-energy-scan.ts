@@ -134,3 +134,23 @@ export function unresolvedRange(curve: AlphaScanPoint[], z = 2): number {
   }
   return a;
 }
+
+/**
+ * The detuning below which the condensate wins, from the same curve (valid at this mu and T):
+ * with I(alpha) = int_0^alpha <sigma^x>, f(alpha) - f(0) = (delta - mu) alpha^2 - I(alpha) does
+ * not depend on delta through I, so alpha = 0 is the global minimum exactly when
+ *   delta - mu >= x_c = max_{alpha > 0} I(alpha) / alpha^2,
+ * and at x_c alpha jumps to the maximiser (a first-order jump when it is away from 0). The
+ * grid point chosen is the one whose lower bound I/alpha^2 - error is highest (near
+ * alpha = 0 the ratio's error grows like 1/alpha^2); its value and error are reported.
+ */
+export function condensateThreshold(delta: number, mu: number, curve: AlphaScanPoint[]): { deltaMinusMu: Estimate; alpha: number } | null {
+  let best: { deltaMinusMu: Estimate; alpha: number } | null = null, bound = -Infinity;
+  for (const p of curve) {
+    if (p.alpha <= 0) continue;
+    const a2 = p.alpha * p.alpha;
+    const r = ((delta - mu) * a2 - p.f.value) / a2, e = p.f.error / a2;
+    if (r - e > bound) { bound = r - e; best = { deltaMinusMu: { value: r, error: e }, alpha: p.alpha }; }
+  }
+  return best;
+}

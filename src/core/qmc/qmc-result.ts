@@ -29,6 +29,11 @@ export interface QmcResult extends Omit<ChainEstimates, 'energyPerSite'> {
   /** f(alpha) - f(0) on the alpha grid (self-consistent runs), and its local minima. */
   alphaScan: AlphaScanPoint[] | null;
   minima: AlphaMinimum[] | null;
+  /**
+   * Self-consistent runs: the detuning delta - mu below which the condensate is the global
+   * minimum at this mu and T, and the alpha it jumps to there (free-energy-scan.ts).
+   */
+  condensateThreshold?: { deltaMinusMu: Estimate; alpha: number } | null;
   phase: 'empty' | 'filled' | 'normal' | 'density-wave' | 'superradiant' | 'supersolid';
   chains: number;
   sweeps: number;

@@ -21,7 +21,7 @@ import { sseTerms } from './sse-terms.ts';
 import { type ChainEstimates, chainEstimates } from './qmc-estimates.ts';
 import {
   type AlphaScanPoint, alphaGrid, freeEnergyCurve, globalMinimum, localMinima, refinementGrid, resolvedMinimum,
-  stationaryAlpha, unresolvedRange,
+  stationaryAlpha, unresolvedRange, condensateThreshold,
 } from './free-energy-scan.ts';
 import { type QmcResult, qmcPhase } from './qmc-result.ts';
 
@@ -100,7 +100,8 @@ export function* qmcBatches(req: QmcRequest, geometry?: QmcGeometry): Generator<
     }
     final = split([alpha], beta, yield batch('measure', beta, [alpha]))[0];
   }
-  return assemble(r, g, beta, alpha, alphaError, final, ground, alphaScan, notes);
+  const threshold = alphaScan && delta !== null ? condensateThreshold(delta, r.mu, alphaScan) : null;
+  return { ...assemble(r, g, beta, alpha, alphaError, final, ground, alphaScan, notes), condensateThreshold: threshold };
 }
 
 /** Run every chain in this thread (tests, the CLI's single-thread mode). */
