@@ -124,6 +124,8 @@ export interface MapScanResult {
   points: ScanPoint[];
   /** Points really solved in full (the adaptive map; a dense map solves every pixel). */
   solves?: number;
+  /** Of those, the solves that located boundaries (confirming crystal crossings). */
+  boundarySolves?: number;
   /** Phase boundaries as polylines (src/core/scan/boundaries.ts). */
   boundaries?: Boundary[];
   /** What the adaptive map could not do here (no certification, a shard solved densely). */

@@ -81,7 +81,7 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
   const points: ScanPoint[] = [];
   const crossings: Crossing[] = [];
   const edgeRows = new Map<number, Array<SolveResult | undefined>>();
-  let solves = 0, remaining = bands.reduce((a, b) => a + b.rows.length * nx, 0);
+  let solves = 0, boundarySolves = 0, remaining = bands.reduce((a, b) => a + b.rows.length * nx, 0);
   const progress = () => o.onProgress?.(solves, solves + remaining);
 
   const solveCold = async (pts: Array<{ p: ModelParams; seed: number; what: string }>): Promise<ColdOutcome[]> => {
@@ -182,7 +182,9 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
     }
     edgeRows.set(first, rowStates.get(first) as Array<SolveResult | undefined>);
     edgeRows.set(last, rowStates.get(last) as Array<SolveResult | undefined>);
+    const before = solves;
     crossings.push(...await locate(edges, plan, solveCold));
+    boundarySolves += solves - before;
     for (const [index] of known) {
       const iy = Math.floor(index / nx);
       if (iy > band.y0 && iy < band.y1) known.delete(index);
@@ -193,7 +195,7 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
   ];
   const boundaries = chainBoundaries(crossings, nx, ny, centre);
   o.onProgress?.(solves, solves);
-  return { points, solves, boundaries };
+  return { points, solves, boundarySolves, boundaries };
 }
 
 /** An edge between neighbouring pixels, along one axis. */
@@ -210,13 +212,21 @@ interface EdgeJob {
 }
 
 /** Seed of an edge's confirming solve: fixed by the edge alone (any band order). */
-function edgeSeed(seed: number, edge: string): number {
-  return pointSeed(seed ^ 0x5bd1e995, 2 * Number(edge.slice(1)) + (edge[0] === 'v' ? 1 : 0));
+function edgeSeed(seed: number, edge: string, round: number): number {
+  return pointSeed(seed ^ (0x5bd1e995 + round), 2 * Number(edge.slice(1)) + (edge[0] === 'v' ? 1 : 0));
 }
 
 const identity = (s: SolveResult | undefined) => crystalOf(s)?.key ?? phaseName(s);
 
-/** The crossings of the edges whose pixels differ (boundaries.ts): crystals exactly, with one confirming solve each. */
+/** Rounds of splitting an edge at a third crystal found at a crossing (the staircase's next fractions). */
+const MAX_ROUNDS = 8;
+
+/**
+ * The crossings of the edges whose pixels differ (boundaries.ts). Between two crystals the
+ * affine crossing is confirmed by one solve; when that solve finds a third crystal R (a
+ * fraction of the staircase between the two), the edge is split at the crossing into A|R
+ * and R|B, each located the same way, for up to MAX_ROUNDS rounds.
+ */
 async function locate(
   edges: EdgeJob[], plan: ScanPlan,
   solveCold: (pts: Array<{ p: ModelParams; seed: number; what: string }>) => Promise<ColdOutcome[]>,
@@ -226,33 +236,41 @@ async function locate(
     const point = e.along === 0 ? [v, ...e.fixed] : [...e.fixed, v];
     out.push(crossing(e.edge, a, b, point, exact, ra, rb));
   };
-  const checks: Array<{ e: EdgeJob; v: number; p: ModelParams; omega: number }> = [];
-  for (const e of edges) {
-    if (!e.a || !e.b || identity(e.a) === identity(e.b)) continue;
-    const A = crystalOf(e.a), B = crystalOf(e.b);
-    const ua = affineCoordinate(e.axis.name, e.va, plan.base), ub = affineCoordinate(e.axis.name, e.vb, plan.base);
-    if (A && B && ua !== null && ub !== null) {
-      const t = affineCrossing(crystalOmega(e.pa, A) - crystalOmega(e.pa, B), crystalOmega(e.pb, A) - crystalOmega(e.pb, B));
-      if (t !== null) {
-        const v = t === 0 ? e.va : t === 1 ? e.vb : axisValue(e.axis.name, ua + t * (ub - ua), plan.base);
-        const p = applyAxis(e.pa, e.axis.name, v);
-        checks.push({ e, v, p, omega: Math.min(crystalOmega(p, A), crystalOmega(p, B)) });
-        continue;
+  interface Job { e: EdgeJob; a: SolveResult; b: SolveResult; va: number; vb: number }
+  let jobs: Job[] = [];
+  for (const e of edges) if (e.a && e.b && identity(e.a) !== identity(e.b)) jobs.push({ e, a: e.a, b: e.b, va: e.va, vb: e.vb });
+  for (let round = 0; jobs.length; round++) {
+    const checks: Array<{ j: Job; v: number; p: ModelParams; omega: number }> = [];
+    for (const j of jobs) {
+      const { e } = j;
+      const A = crystalOf(j.a), B = crystalOf(j.b);
+      const ua = affineCoordinate(e.axis.name, j.va, plan.base), ub = affineCoordinate(e.axis.name, j.vb, plan.base);
+      if (A && B && ua !== null && ub !== null && round < MAX_ROUNDS) {
+        const pa = applyAxis(e.pa, e.axis.name, j.va), pb = applyAxis(e.pa, e.axis.name, j.vb);
+        const t = affineCrossing(crystalOmega(pa, A) - crystalOmega(pa, B), crystalOmega(pb, A) - crystalOmega(pb, B));
+        if (t !== null) {
+          const v = t === 0 ? j.va : t === 1 ? j.vb : axisValue(e.axis.name, ua + t * (ub - ua), plan.base);
+          const p = applyAxis(e.pa, e.axis.name, v);
+          checks.push({ j, v, p, omega: Math.min(crystalOmega(p, A), crystalOmega(p, B)) });
+          continue;
+        }
       }
+      put(e, (j.va + j.vb) / 2, phaseName(j.a), phaseName(j.b), false);
     }
-    put(e, (e.va + e.vb) / 2, phaseName(e.a), phaseName(e.b), false);
+    const got = await solveCold(checks.map((c) => ({ p: c.p, seed: edgeSeed(plan.seed, c.j.e.edge, round), what: `boundary ${c.j.e.axis.name} = ${c.v}` })));
+    jobs = [];
+    checks.forEach((c, i) => {
+      const { j, v } = c;
+      const s = got[i].cold?.state;
+      if (s && s.grandPotential >= c.omega - 1e-9 * Math.max(1, Math.abs(c.omega))) {
+        put(j.e, v, phaseName(j.a), phaseName(j.b), true, j.a.excitationDensity, j.b.excitationDensity);
+      } else if (s && crystalOf(s) && v !== j.va && v !== j.vb) {
+        jobs.push({ e: j.e, a: j.a, b: s, va: j.va, vb: v }, { e: j.e, a: s, b: j.b, va: v, vb: j.vb });
+      } else {
+        put(j.e, (j.va + v) / 2, phaseName(j.a), phaseName(s), false);
+        put(j.e, (v + j.vb) / 2, phaseName(s), phaseName(j.b), false);
+      }
+    });
   }
-  const got = await solveCold(checks.map((c) => ({ p: c.p, seed: edgeSeed(plan.seed, c.e.edge), what: `boundary ${c.e.axis.name} = ${c.v}` })));
-  checks.forEach((c, i) => {
-    const { e, v } = c;
-    const s = got[i].cold?.state;
-    const a = e.a as SolveResult, b = e.b as SolveResult;
-    if (s && s.grandPotential >= c.omega - 1e-9 * Math.max(1, Math.abs(c.omega))) {
-      put(e, v, phaseName(a), phaseName(b), true, a.excitationDensity, b.excitationDensity);
-    } else {
-      put(e, (e.va + v) / 2, phaseName(a), phaseName(s), false);
-      put(e, (v + e.vb) / 2, phaseName(s), phaseName(b), false);
-    }
-  });
   return out;
 }

@@ -19,8 +19,6 @@ import type { SolveResult } from '../meanfield/ground-state.ts';
 import type { ModelParams } from '../model.ts';
 import { cellJ, context } from '../meanfield/cell-search.ts';
 import { supercell } from '../lattice/supercells.ts';
-import { grandPotential } from '../meanfield/sublattice.ts';
-import { hartreeShifts } from '../meanfield/hartree-shift.ts';
 import type { Crystal } from './crystal.ts';
 
 /** The name a boundary gives a phase: the label, with the fraction of a modulated phase. */
@@ -29,13 +27,24 @@ export function phaseName(s: SolveResult | undefined): string {
   return s.fraction ? `${s.phase} ${s.fraction}` : s.phase;
 }
 
-/** Omega per site of the fixed crystal (cell, n) at parameters p (alpha = 0, T = 0). */
+/**
+ * Omega per site of the fixed crystal (cell, n) at parameters p, as a trial state
+ * (alpha = 0, T = 0): Omega_n = (1/M) [-mu sum_s n_s + (1/2) sum_st n_s J_st(0) n_t], affine
+ * in mu and in the strength. (It equals the solver's Omega where n is self-consistent;
+ * beyond, it is the energy of the fixed state, which is what the crossing needs.)
+ */
 export function crystalOmega(p: ModelParams, c: Crystal): number {
-  const ctx = context(p);
   const cell = supercell(c.cell.a, c.cell.b, c.cell.c);
-  const J = cellJ(ctx, cell);
-  const xi = hartreeShifts(J, cell.M, p.mu as number, c.n, new Float64Array(cell.M));
-  return grandPotential({ M: cell.M, J, mu: p.mu as number, delta: p.delta, T: 0 }, c.n, xi, 0);
+  const J = cellJ(context(p), cell);
+  const M = cell.M, mu = p.mu as number;
+  let e = 0;
+  for (let s = 0; s < M; s++) {
+    if (!c.n[s]) continue;
+    let h = 0;
+    for (let t = 0; t < M; t++) h += J[s * M + t] * c.n[t];
+    e += -mu + h / 2;
+  }
+  return e / M;
 }
 
 /** Where Omega_A = Omega_B on the edge, as the fraction t in [0, 1] of the affine coordinate from u1 to u2 (null: no sign change). */

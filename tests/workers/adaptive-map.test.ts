@@ -1,0 +1,90 @@
+// The adaptive map on real worker threads against the dense scan of the same plan (the
+// reference: docs/certified-maps.md promises the same pixels). Exact equality of every
+// printed field is the check (common practice, no source): a pixel differing in any digit
+// is a failure.
+import { afterAll, describe, expect, it } from 'vitest';
+import { nodeEnginePool } from '../../workers/node-spawn.ts';
+import { runScan } from '../../workers/scan-driver.ts';
+import { parseAxis } from '../../src/core/scan/axes.ts';
+import { mapCsv, mapHeader } from '../../src/core/scan/map-columns.ts';
+import { crystalOf } from '../../src/core/scan/crystal.ts';
+import { solveGroundState } from '../../src/core/meanfield/ground-state.ts';
+import { applyAxis } from '../../src/core/scan/axes.ts';
+import type { ScanPlan } from '../../src/core/scan/grid.ts';
+
+const pool = nodeEnginePool(2);
+afterAll(() => pool.close());
+
+const vdw: ScanPlan = {
+  base: { lattice: 'chain', interaction: { shape: 'vdw', Rb: 1.3 }, delta: 4, T: 0, maxCell: 6 },
+  x: parseAxis('mu=-1:3.9:40', 'x'), y: parseAxis('rb=1:2:20', 'y'), seed: 3,
+};
+
+async function both(plan: ScanPlan) {
+  const dense = await runScan(pool, { kind: 'map', plan, dense: true });
+  const adaptive = await runScan(pool, { kind: 'map', plan });
+  const h = mapHeader(plan);
+  const rows = (pts: typeof dense.points) => mapCsv(h, pts).split('\n');
+  const d = rows(dense.points), a = rows(adaptive.points);
+  const differing = d.filter((line, i) => line !== a[i]).length + Math.abs(d.length - a.length);
+  return { dense, adaptive, differing };
+}
+
+describe('adaptive map = dense map, pixel for pixel', () => {
+  it('1D vdw chain over mu x Rb: zero differing pixels, fewer solves, exact crystal boundaries', async () => {
+    const { adaptive, differing } = await both(vdw);
+    expect(differing).toBe(0);
+    expect(adaptive.points).toHaveLength(800);
+    expect(adaptive.solves).toBeLessThan(800);
+    const exact = (adaptive.boundaries ?? []).filter((b) => b.firstOrder);
+    expect(exact.length).toBeGreaterThan(0);
+    for (const b of exact) {
+      // a jump between crystals: rho changes by a difference of fractions with q <= Mmax (6)
+      expect(Math.abs(b.densityJump as number)).toBeGreaterThanOrEqual(1 / 30 - 1e-12);
+    }
+  }, 300_000);
+
+  it('nn chain over mu x V1 with Mmax 4, and a line: zero differing pixels', async () => {
+    const nn: ScanPlan = {
+      base: { lattice: 'chain', interaction: { shape: 'nn', V1: 2 }, delta: 3, T: 0, maxCell: 4 },
+      x: parseAxis('mu=-1:2.9:34', 'x'), y: parseAxis('v1=0.5:4:18', 'y'), seed: 5,
+    };
+    expect((await both(nn)).differing).toBe(0);
+    expect((await both({ ...vdw, y: undefined, x: parseAxis('mu=-1:3.9:61', 'x') })).differing).toBe(0);
+  }, 300_000);
+
+  it('square lattice vdw over mu x Rb (Mmax 4): zero differing pixels', async () => {
+    const sq: ScanPlan = {
+      base: { lattice: 'square', interaction: { shape: 'vdw', Rb: 1.2 }, delta: 4, T: 0, maxCell: 4 },
+      x: parseAxis('mu=-0.5:3.5:20', 'x'), y: parseAxis('rb=1:1.6:10', 'y'), seed: 2,
+    };
+    expect((await both(sq)).differing).toBe(0);
+  }, 300_000);
+
+  it('a T > 0 map is not certified: a note says so, every pixel is solved, pixels equal', async () => {
+    const warm: ScanPlan = { ...vdw, base: { ...vdw.base, T: 0.05 }, x: parseAxis('mu=0:2:17', 'x'), y: parseAxis('rb=1:2:3', 'y') };
+    const { adaptive, differing } = await both(warm);
+    expect(differing).toBe(0);
+    expect(adaptive.solves).toBe(51);
+    expect(adaptive.notes?.[0]).toMatch(/T > 0/);
+  }, 300_000);
+
+  it('random off-grid points inside certified regions carry the certified crystal', async () => {
+    const { adaptive } = await both({ ...vdw, x: parseAxis('mu=-1:3.9:24', 'x'), y: parseAxis('rb=1:2:12', 'y') });
+    // neighbouring pixels with one crystal: the cell between them is certified by the argument
+    let checked = 0, seed = 11;
+    const pts = adaptive.points;
+    for (let k = 0; k < pts.length && checked < 10; k += 7) {
+      const p = pts[k];
+      if (p.ix + 1 >= 24 || p.iy + 1 >= 12) continue;
+      const quad = [k, k + 1, k + 24, k + 25].map((i) => crystalOf(pts[i].state)?.key);
+      if (!quad[0] || quad.some((q) => q !== quad[0])) continue;
+      const t = ((seed = (seed * 48271) % 2147483647) % 1000) / 1000, u = ((seed = (seed * 48271) % 2147483647) % 1000) / 1000;
+      const mu = vdw.x.start + (p.ix + t) * 4.9 / 23, rb = 1 + (p.iy + u) / 11;
+      const s = solveGroundState(applyAxis(applyAxis(vdw.base, 'mu', mu), 'rb', rb), { seed: k });
+      expect(crystalOf(s)?.key).toBe(quad[0]);
+      checked++;
+    }
+    expect(checked).toBeGreaterThan(3);
+  }, 300_000);
+});
