@@ -47,6 +47,7 @@ function alphaTable(r: QmcResult): string[] {
     `    ${'alpha'.padEnd(10)} ${'<sigma^x>'.padEnd(20)} f(alpha) - f(0)`,
     ...r.alphaScan.map((p, i) => `    ${f(p.alpha, 5).padEnd(10)} ${pm(p.sigmaX, 5).padEnd(20)} ${pm(p.f, 6)}${i === best ? '   <- global minimum' : ''}`),
     r.minima && r.minima.length > 1 ? `  local minima of f at alpha = ${r.minima.map((m) => f(m.alpha, 4)).join(', ')}` : '',
+    r.condensateThreshold ? `  the condensate wins for delta - mu < ${pm(r.condensateThreshold.deltaMinusMu, 4)} at this mu and T (alpha jumps to ${f(r.condensateThreshold.alpha, 3)} there)` : '',
   ];
 }
 
