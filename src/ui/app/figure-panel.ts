@@ -5,6 +5,8 @@
  *   plot-hover {x, y} while the pointer (or the keyboard cursor) is over the plot area,
  *   plot-leave when it leaves, plot-select {x, y} on click or Enter.
  * Arrow keys move the keyboard cursor by `keyStep` data units (Shift: five steps).
+ * `stale` (a short text, e.g. "out of date, recomputing") marks a figure whose inputs have
+ * changed and whose new result has not arrived: a visible band over the figure, dimmed.
  */
 import { LitElement, html, css } from 'lit';
 import { unsafeHTML } from 'lit/directives/unsafe-html.js';
@@ -22,6 +24,7 @@ export class FigurePanel extends LitElement {
     keyStep: { attribute: false },
     busy: { type: Boolean },
     cursor: { attribute: false },
+    stale: { type: String },
   };
   declare figure: RenderedFigure | null;
   declare interactive: boolean;
@@ -29,6 +32,8 @@ export class FigurePanel extends LitElement {
   declare busy: boolean;
   /** A cursor mark at data (x, y), drawn over the figure (not part of it, so never exported). */
   declare cursor: [number, number] | null;
+  /** Empty while the figure is current; else the words of the out-of-date mark. */
+  declare stale: string;
   private keyCursor: [number, number] | null = null;
 
   constructor() {
@@ -38,6 +43,7 @@ export class FigurePanel extends LitElement {
     this.keyStep = null;
     this.busy = false;
     this.cursor = null;
+    this.stale = '';
   }
 
   static override styles = [sharedStyles, css`
@@ -50,6 +56,9 @@ export class FigurePanel extends LitElement {
     .host:focus-visible { outline: 3px solid #d9a21b; }
     .cursor { position: absolute; width: 9px; height: 9px; margin: -5px 0 0 -5px; border: 1.5px solid #000;
       background: #fff; border-radius: 50%; pointer-events: none; }
+    .host.stale svg { opacity: 0.55; }
+    .stale-mark { position: absolute; left: 50%; top: 8px; transform: translateX(-50%); pointer-events: none;
+      background: #7a1f1f; color: #fff; font-size: 13px; font-weight: 600; padding: 3px 10px; border-radius: 4px; white-space: nowrap; }
   `];
 
   /** Data coordinates of a client position, or null outside the plot area. */
@@ -128,11 +137,12 @@ export class FigurePanel extends LitElement {
     const fig = this.figure;
     if (!fig) return html`<div class="host muted" aria-busy=${this.busy ? 'true' : 'false'}>No figure yet.</div>`;
     return html`
-      <div class="host ${this.interactive ? 'interactive' : ''}" role=${this.interactive ? 'application' : 'figure'}
+      <div class="host ${this.interactive ? 'interactive' : ''} ${this.stale ? 'stale' : ''}" role=${this.interactive ? 'application' : 'figure'}
         aria-label=${fig.title + (this.interactive ? ' (arrow keys move the cursor, Enter opens the point)' : '')}
         tabindex=${this.interactive ? '0' : '-1'} aria-busy=${this.busy ? 'true' : 'false'}
         @pointermove=${this.interactive ? this.onMove : null} @pointerleave=${() => this.emit('plot-leave')}
-        @click=${this.interactive ? this.onClick : null} @keydown=${this.onKey}>${unsafeHTML(fig.svg)}${this.cursorMark(fig)}</div>
+        @click=${this.interactive ? this.onClick : null} @keydown=${this.onKey}>${unsafeHTML(fig.svg)}${this.cursorMark(fig)}${this.stale
+          ? html`<div class="stale-mark" role="status">${this.stale}</div>` : null}</div>
       <div class="tools">
         <button @click=${() => this.save('svg')} aria-label="Save ${fig.title} as SVG">SVG</button>
         <button @click=${() => this.save('png')} aria-label="Save ${fig.title} as PNG">PNG</button>

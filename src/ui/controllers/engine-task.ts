@@ -18,6 +18,9 @@ export class EngineTask<T> implements ReactiveController {
   error: string | null = null;
   /** Key of the inputs the current value belongs to (to skip re-running on equal inputs). */
   valueKey: string | null = null;
+  /** Key of the latest inputs asked for (whether their run finished, failed or was cancelled). */
+  latestKey: string | null = null;
+  private lastFn: ((signal: AbortSignal) => Promise<T>) | null = null;
   private controller: AbortController | null = null;
   private pendingKey: string | null = null;
   private generation = 0;
@@ -26,11 +29,17 @@ export class EngineTask<T> implements ReactiveController {
     host.addController(this);
   }
 
-  /** Start `fn` for inputs identified by `key`; a run for the same key as the current one is skipped. */
-  run(key: string, fn: (signal: AbortSignal) => Promise<T>): Promise<void> {
-    if (key === this.pendingKey && this.status === 'pending') return Promise.resolve();
-    if (key === this.valueKey && this.status === 'complete') return Promise.resolve();
+  /**
+   * Start `fn` for inputs identified by `key`. A run for the latest key is skipped whatever
+   * became of it (pending, complete, failed or cancelled), so a redraw never restarts a
+   * cancelled or failing call; `force` runs it again (a "run again" button).
+   */
+  run(key: string, fn: (signal: AbortSignal) => Promise<T>, force = false): Promise<void> {
+    if (!force && key === this.latestKey) return Promise.resolve();
+    this.latestKey = key;
+    this.lastFn = fn;
     this.abort();
+    if (key === this.valueKey) { this.status = 'complete'; this.error = null; this.host.requestUpdate(); return Promise.resolve(); }
     const ctrl = new AbortController();
     const gen = ++this.generation;
     this.controller = ctrl;
@@ -59,6 +68,16 @@ export class EngineTask<T> implements ReactiveController {
     );
   }
 
+  /** Run the latest inputs again (after a cancel or a failure). */
+  retry(): void {
+    if (this.latestKey !== null && this.lastFn && this.status !== 'pending') void this.run(this.latestKey, this.lastFn, true);
+  }
+
+  /** True when the value shown belongs to other inputs than the latest asked for. */
+  get stale(): boolean {
+    return this.value !== undefined && this.latestKey !== null && this.valueKey !== this.latestKey;
+  }
+
   /** Cancel the pending call, if any (the value stays). */
   abort(): void {
     if (this.controller) {
@@ -73,5 +92,10 @@ export class EngineTask<T> implements ReactiveController {
 
   hostDisconnected(): void {
     this.abort();
+  }
+
+  /** Back on the page (an element moved, not rebuilt): finish what its leaving stopped. */
+  hostConnected(): void {
+    if (this.latestKey !== null && this.valueKey !== this.latestKey && this.status !== 'pending' && this.status !== 'error') this.retry();
   }
 }

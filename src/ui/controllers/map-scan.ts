@@ -4,6 +4,9 @@
  * with progress, timing and cancellation. A new run aborts the old one at once; the old
  * map stays on screen until the new run delivers its first points. Host updates are
  * throttled so rendering never floods the main thread while results stream in.
+ * Grids are kept in the page's map cache (map-cache.ts) by request: a finished one comes
+ * back without a scan, a part-done one (its view left the page) is completed by a new run
+ * that keeps the points it has. Cancel stops; only resume() or new inputs start again.
  */
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
 import type { ModelParams } from '../../core/model.ts';
@@ -11,6 +14,7 @@ import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import type { Axis } from '../../core/scan/axes.ts';
 import { gridPoint, pointSeed, spreadRows, type ScanPlan, type ScanPoint } from '../../core/scan/grid.ts';
 import { type EngineClient, isAbort } from '../engine/engine-client.ts';
+import { mapCache, type MapCache } from './map-cache.ts';
 
 /** Seed of the page's scans (the CLI's default, so both give the same answers). */
 export const SCAN_SEED = 1;
@@ -30,6 +34,8 @@ export class MapGrid {
   /** The plan as the driver runs it (with the page's seed). */
   readonly scanPlan: ScanPlan;
   count = 0;
+  /** ms the scan that finished this grid took (null while unfinished). */
+  totalMs: number | null = null;
   constructor(readonly plan: MapPlan, readonly key: string) {
     this.nx = plan.x.count;
     this.ny = plan.y.count;
@@ -82,11 +88,16 @@ export class MapScanController implements ReactiveController {
   /** Runs started, and runs stopped before they finished (superseded or cancelled). */
   started = 0;
   cancelled = 0;
+  /** True when the current grid came finished from the map cache (no scan was run). */
+  fromCache = false;
   private ctrl: AbortController | null = null;
   private timer: ReturnType<typeof setTimeout> | null = null;
   private t0 = 0;
 
-  constructor(private readonly host: ReactiveControllerHost, private readonly engine: () => EngineClient, private readonly throttleMs = 150) {
+  constructor(
+    private readonly host: ReactiveControllerHost, private readonly engine: () => EngineClient,
+    private readonly throttleMs = 150, private readonly cache: MapCache = mapCache,
+  ) {
     host.addController(this);
   }
 
@@ -94,13 +105,25 @@ export class MapScanController implements ReactiveController {
   run(plan: MapPlan, key: string): void {
     if (this.current?.key === key && (this.status === 'running' || this.status === 'done')) return;
     this.cancel();
+    const kept = this.cache.get(key);
+    this.error = null;
+    this.firstPictureMs = null;
+    if (kept?.complete) {
+      this.current = this.shown = kept;
+      this.fromCache = true;
+      this.status = 'done';
+      this.failed = kept.done().filter((p) => p.error !== undefined).length;
+      this.totalMs = kept.totalMs;
+      this.host.requestUpdate();
+      return;
+    }
     this.started++;
-    const grid = new MapGrid(plan, key);
+    this.fromCache = false;
+    const grid = kept ?? new MapGrid(plan, key);
+    if (kept) this.shown = kept;
     this.current = grid;
     this.status = 'running';
-    this.error = null;
-    this.failed = 0;
-    this.firstPictureMs = null;
+    this.failed = grid.done().filter((p) => p.error !== undefined).length;
     this.totalMs = null;
     this.t0 = performance.now();
     this.startedAt = this.t0;
@@ -121,6 +144,8 @@ export class MapScanController implements ReactiveController {
       () => {
         if (this.ctrl !== ctrl) return;
         this.totalMs = performance.now() - this.t0;
+        grid.totalMs = this.totalMs;
+        this.cache.put(grid);
         this.status = 'done';
         this.ctrl = null;
         this.flush();
@@ -139,12 +164,19 @@ export class MapScanController implements ReactiveController {
   /** Settles (never rejects) when the latest run ends, its state recorded (for scripts and tests). */
   finished: Promise<void> = Promise.resolve();
 
-  /** Stop the running scan; what has been computed stays. */
+  /** Start the current plan again after a cancel, keeping the points it has. */
+  resume(): void {
+    const g = this.current;
+    if (g && this.status !== 'running' && !g.complete) this.run(g.plan, g.key);
+  }
+
+  /** Stop the running scan; what has been computed stays (and is kept for a later run of the same request). */
   cancel(): void {
     if (this.ctrl) {
       const c = this.ctrl;
       this.ctrl = null;
       this.cancelled++;
+      if (this.current) this.cache.put(this.current);
       c.abort();
       this.status = 'cancelled';
       this.flush();

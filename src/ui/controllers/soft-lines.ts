@@ -25,6 +25,26 @@ export const SOFT_RANGES: { key: string; label: string; stroke: string; dash?: s
   { key: 'dipolar', label: 'dipolar', stroke: '#8a4b00', dash: '1 2' },
 ];
 
+/**
+ * The range token traced for a ticked box, in the model's own shape: a soft-core model
+ * compares soft-core ranges (the vdw boxes stand for the same cuts of V0 / (1 + (r/Rc)^6));
+ * nn and dipolar take a power-law strength a soft-core model does not have (null).
+ */
+export function rangeToken(key: string, shape: string): string | null {
+  if (shape !== 'softcore') return key;
+  return key.startsWith('vdw') ? key.replace('vdw', 'softcore') : null;
+}
+
+/** The box label of a range for the model's shape. */
+export function rangeLabel(key: string, shape: string): string {
+  const label = SOFT_RANGES.find((r) => r.key === key)?.label ?? key;
+  return shape === 'softcore' ? label.replace('vdw', 'soft-core') : label;
+}
+
+/** Finished traces of the page by task key, the oldest dropped past SOFT_KEEP. */
+const SOFT_RESULTS = new Map<string, SoftLineResult>();
+const SOFT_KEEP = 96;
+
 /** Phases whose own solutions are followed. */
 export const FOLLOWED = ['condensate', 'normal'] as const;
 
@@ -33,8 +53,8 @@ export const SOFT_SEED = 10;
 
 export class SoftLinesController implements ReactiveController {
   status = '';
-  /** Finished traces by task key. */
-  private results = new Map<string, SoftLineResult>();
+  /** Finished traces by task key (the page's, so they survive a tab switch). */
+  private results = SOFT_RESULTS;
   private wanted: { key: string; range: string }[] = [];
   private ctrl: AbortController | null = null;
   private runningKey = '';
@@ -56,7 +76,7 @@ export class SoftLinesController implements ReactiveController {
     const plane = SoftLinesController.plane(x, y);
     if (!plane || p.mu === undefined && x.name !== 'mu' && y.name !== 'mu') return null;
     const base = { lattice: p.lattice, interaction: p.interaction, mu: p.mu ?? 0, delta: p.delta, T: p.T };
-    const ranges = ticked.split(',').filter(Boolean);
+    const ranges = ticked.split(',').filter(Boolean).map((k) => rangeToken(k, p.interaction.shape)).filter((t): t is string => t !== null);
     return ranges.flatMap((range) => FOLLOWED.map((phase) => ({ base, x: plane[0], y: plane[1], range, phase, tol: 1e-3 })));
   }
 
@@ -64,6 +84,12 @@ export class SoftLinesController implements ReactiveController {
   update(p: ModelParams, x: Axis, y: Axis, ticked: string): void {
     const tasks = SoftLinesController.tasks(p, x, y, ticked);
     if (!ticked) { this.cancel(); this.wanted = []; this.status = ''; return; }
+    if (tasks && tasks.length === 0) {
+      this.cancel();
+      this.wanted = [];
+      this.status = 'the nn and dipolar lines need a power-law interaction; tick a range cut for the soft-core lines';
+      return;
+    }
     if (!tasks) {
       this.cancel();
       this.wanted = [];
@@ -83,7 +109,11 @@ export class SoftLinesController implements ReactiveController {
     this.status = `tracing ${todo.length} soft-mode line sets\u2026`;
     this.engine().scan({ kind: 'soft-lines', lines: todo.map((k) => k.t) }, {
       signal: ctrl.signal,
-      onItem: ({ index, result }) => { this.results.set(todo[index].key, result); this.host.requestUpdate(); },
+      onItem: ({ index, result }) => {
+        this.results.set(todo[index].key, result);
+        if (this.results.size > SOFT_KEEP) this.results.delete(this.results.keys().next().value as string);
+        this.host.requestUpdate();
+      },
     }).then(() => {
       if (this.ctrl !== ctrl) return;
       this.ctrl = null;
@@ -122,7 +152,9 @@ export class SoftLinesController implements ReactiveController {
   overlays(): SoftLineOverlay[] {
     const out: SoftLineOverlay[] = [];
     for (const r of this.current()) {
-      const style = SOFT_RANGES.find((s) => s.key === r.range) ?? { label: r.range, stroke: '#000000' };
+      const key = r.range.replace('softcore', 'vdw');
+      const found = SOFT_RANGES.find((s) => s.key === key);
+      const style = found ? { ...found, label: rangeLabel(key, r.range.startsWith('softcore') ? 'softcore' : '') } : { label: r.range, stroke: '#000000' };
       for (const L of r.lines) {
         const x: number[] = [], y: number[] = [];
         for (const p of L.points) {

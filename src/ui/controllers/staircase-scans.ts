@@ -24,14 +24,19 @@ export class StaircaseScansController implements ReactiveController {
   total = 0;
   private key: string | null = null;
   private ctrl: AbortController | null = null;
+  private last: StaircaseSeries[] = [];
 
   constructor(private readonly host: ReactiveControllerHost, private readonly engine: () => EngineClient) {
     host.addController(this);
   }
 
-  /** Run every series (skipped when `key` equals the running or finished run's). */
+  /**
+   * Run every series; skipped when `key` equals the latest run's, whatever its end (a
+   * cancelled or failed run is not restarted by an unrelated redraw: resume() does that).
+   */
   run(key: string, series: StaircaseSeries[]): void {
-    if (key === this.key && this.status !== 'cancelled' && this.status !== 'error') return;
+    if (key === this.key) return;
+    this.last = series;
     this.cancel();
     this.key = key;
     const ctrl = new AbortController();
@@ -63,6 +68,19 @@ export class StaircaseScansController implements ReactiveController {
       this.host.requestUpdate();
     });
     this.host.requestUpdate();
+  }
+
+  /** True when the result on screen is not that of the latest inputs. */
+  get stale(): boolean {
+    return this.value !== null && this.value.key !== this.key;
+  }
+
+  /** Run the latest inputs again after a cancel or a failure. */
+  resume(): void {
+    if (this.status === 'running' || this.key === null) return;
+    const key = this.key;
+    this.key = null;
+    this.run(key, this.last);
   }
 
   /** Stop the running scans. */

@@ -38,9 +38,14 @@ export class EngineClient {
     return Promise.all([this.scanPool.warm(probe), this.interactivePool.warm(probe)]).then(() => undefined);
   }
 
-  /** One call on the interactive worker. */
-  async call<R>(fn: (remote: EngineRemote) => Promise<R>, signal?: AbortSignal): Promise<R> {
-    const [r] = await this.interactivePool.run([0], (remote) => fn(remote), { signal });
+  /**
+   * One call on the interactive worker. `o.budgetMs` bounds its wall time (the pool's
+   * watchdog stops it and the call fails with a message naming `o.describe`).
+   */
+  async call<R>(fn: (remote: EngineRemote) => Promise<R>, signal?: AbortSignal, o: { budgetMs?: number; describe?: string } = {}): Promise<R> {
+    const [r] = await this.interactivePool.run([0], (remote) => fn(remote), {
+      signal, budgetMs: o.budgetMs, ...(o.describe ? { describe: () => o.describe as string } : {}),
+    });
     return r;
   }
 

@@ -22,6 +22,9 @@ import '../app/data-export.ts';
 import '../app/limits-note.ts';
 
 type Section = AppState['modes'];
+
+/** Wall time a spectrum may take before it is stopped and the view says so (2D cells of up to 12 sites take ~20 s). */
+const MODES_BUDGET_MS = 180_000;
 const f = (x: number) => (Math.abs(x) < 1e-12 ? '0' : Number(x.toPrecision(6)).toString());
 const kText = (k: number | [number, number]) => (typeof k === 'number' ? f(k) : `(${f(k[0])}, ${f(k[1])})`);
 
@@ -68,11 +71,13 @@ export class ModesView extends LitElement {
     if (cell !== undefined && !(Number.isInteger(cell) && cell >= 1)) { this.inputError = 'cell must be empty (ground state) or a whole number M >= 1'; return; }
     if (!p || !this.engine) return;
     const req = { params: { ...p, ...(cell !== undefined ? { cell } : {}) }, seed: 1, points };
-    this.task.run(JSON.stringify(req), (signal) => this.engine.call((r) => r.spectrum.spectrum(req), signal));
+    this.task.run(JSON.stringify(req), (signal) => this.engine.call((r) => r.spectrum.spectrum(req), signal,
+      { budgetMs: MODES_BUDGET_MS, describe: `the spectrum of ${p.lattice} at ${points} path points (fewer points, or a smaller Mmax, finish sooner)` }));
   }
 
   override updated() {
     this.dataset.status = this.task.status;
+    this.dataset.stale = this.task.stale ? 'yes' : 'no';
   }
 
   override render() {
@@ -80,6 +85,8 @@ export class ModesView extends LitElement {
     const w = Math.max(340, Math.min(this.size.width, 1000));
     const h = Math.round(Math.min(420, Math.max(260, w * 0.42)));
     const st = sp?.state;
+    const stale = !sp ? '' : !this.model.params || this.inputError ? 'out of date: an entry is invalid'
+      : !this.task.stale ? '' : this.task.status === 'pending' ? 'out of date, recomputing\u2026' : 'out of date (not recomputed)';
     const cmd = cliLine('spectrum', [...modelFlags(this.inputs), ...(this.section.cell.trim() ? ['--cell', this.section.cell.trim()] : []), '--points', this.section.points.trim(), '--json']);
     return html`
       <div class="controls">
@@ -87,18 +94,19 @@ export class ModesView extends LitElement {
           @input=${(e: Event) => this.patch({ points: (e.target as HTMLInputElement).value })}></div>
         <div><label for="md-cell">Only supercells of M sites (empty: ground state)</label><input id="md-cell" name="modes-cell" .value=${this.section.cell}
           @input=${(e: Event) => this.patch({ cell: (e.target as HTMLInputElement).value })}></div>
-        <div aria-live="polite">${this.task.status === 'pending' ? html`computing\u2026 <button @click=${() => this.task.abort()}>Cancel</button>` : nothing}</div>
+        <div aria-live="polite">${this.task.status === 'pending' ? html`computing\u2026 <button @click=${() => this.task.abort()}>Cancel</button>` : nothing}
+          ${this.task.status !== 'pending' && (this.task.stale || this.task.error) ? html`<button class="retry" @click=${() => this.task.retry()}>Run again</button>` : nothing}</div>
       </div>
       ${this.inputError ? html`<p class="err" role="alert">${this.inputError}</p>` : nothing}
       ${this.task.error ? html`<p class="err" role="alert">${this.task.error}</p>` : nothing}
       ${!this.model.params ? html`<p class="err">The model has an invalid entry: showing the last good spectrum.</p>` : nothing}
       ${sp && st ? html`
-        <p class="summary" role="status">State: <strong>${PHASE_NAMES[st.phase]}${st.fraction ? ' ' + st.fraction : ''}</strong> (M = ${st.cellSize}).
+        <p class="summary ${stale ? 'stale-text' : ''}" role="status">${stale ? html`<strong class="err">${stale}:</strong> ` : nothing}State: <strong>${PHASE_NAMES[st.phase]}${st.fraction ? ' ' + st.fraction : ''}</strong> (M = ${st.cellSize}).
           Softest mode at <strong class="kstar">k* = ${kText(sp.softMode.k)}</strong> (${sp.softMode.kind}), margin
           <strong class="margin">${f(sp.softMode.margin)}</strong>: ${sp.softMode.stable ? 'thermodynamically stable' : 'UNSTABLE (a lower state exists in the cell of k*)'};
           ${sp.dynamicallyStable ? 'dynamically stable (real frequencies).' : html`<span class="err">dynamically unstable, growth rate ${f(sp.growth)} g.</span>`}</p>
-        <figure-panel class="branches" .figure=${branchesFigure(sp, w, h, `Fluctuation branches of the ${PHASE_NAMES[st.phase]} state`)}></figure-panel>
-        <figure-panel class="margin" .figure=${marginFigure(sp, w, Math.round(h * 0.8))}></figure-panel>
+        <figure-panel class="branches" stale=${stale} .figure=${branchesFigure(sp, w, h, `Fluctuation branches of the ${PHASE_NAMES[st.phase]} state`)}></figure-panel>
+        <figure-panel class="margin" stale=${stale} .figure=${marginFigure(sp, w, Math.round(h * 0.8))}></figure-panel>
         <p class="muted">At k = 0: ${sp.zoneCentre.omega.map((o, i) => `${f(o)} g (photon weight ${f(sp.zoneCentre.photonWeight[i])})`).join(', ')}.
           Margin: lowest eigenvalue of the static stability matrix, 1 for free emitters, 0 on a soft-mode line.</p>
         <data-export class="modes-export" .table=${spectrumTable(sp)} .json=${sp} name="spectrum" .command=${cmd}></data-export>` : nothing}

@@ -10,6 +10,7 @@ import { scanBase, type ParsedModel } from '../model/model-inputs.ts';
 import type { AppState, ModelInputs } from '../state/app-state.ts';
 import { AXIS_NAMES, type AxisName, parseAxis, type Axis } from '../../core/scan/axes.ts';
 import { checkAxes } from '../../core/scan/grid.ts';
+import { defaultRange, planProblem, type AxisProblem } from '../model/axis-ranges.ts';
 import { InputError } from '../../core/input-error.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
 import { MapScanController, type MapGrid } from '../controllers/map-scan.ts';
@@ -19,7 +20,7 @@ import { AXIS_LABELS, AXIS_SYMBOLS } from '../model/axis-labels.ts';
 import { PHASE_NAMES } from '../plot/phase-palette.ts';
 import { sharedStyles } from '../app/shared-styles.ts';
 import { cliLine, modelFlags } from '../export/cli-command.ts';
-import { SoftLinesController, SOFT_RANGES } from '../controllers/soft-lines.ts';
+import { SoftLinesController, SOFT_RANGES, rangeLabel } from '../controllers/soft-lines.ts';
 import '../app/figure-panel.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
 import '../app/data-export.ts';
@@ -98,19 +99,38 @@ export class PhaseAtlasView extends LitElement {
   private updateStart = 0;
   private lastInputs: readonly unknown[] | null = null;
 
+  /** The plan's first refused point (as the CLI refuses it), shown beside its axis; null while the plan is good. */
+  private planError: AxisProblem | null = null;
+  /** Key of the latest valid inputs (the map on screen is out of date when it belongs to others). */
+  private wantedKey = '';
+
   override willUpdate() {
     this.updateStart = performance.now();
     const axes = this.axes();
-    if (!axes || !this.model.params || !this.engine) return; // invalid: the last map stays
-    // a pointer move re-renders with the same inputs: nothing to restart or re-key
-    const inputs = [this.model.params, axes, this.section.lines] as const;
-    if (this.lastInputs && inputs.every((v, i) => v === this.lastInputs![i]) && this.scan.status !== 'cancelled') return;
+    // a pointer move re-renders with the same inputs: nothing to check, restart or re-key
+    // (and a cancelled scan stays cancelled until the inputs change or Resume is pressed)
+    const inputs = [JSON.stringify([this.model.params, this.section.x, this.section.y, this.section.lines, this.inputs]), this.engine] as const;
+    if (this.lastInputs && inputs.every((v, i) => v === this.lastInputs![i])) return;
     this.lastInputs = inputs;
+    this.planError = null;
+    if (!axes || !this.model.params || !this.engine) { this.wantedKey = ''; return; } // invalid: the last map stays, marked
     const base = scanBase(this.inputs, [axes.x.name, axes.y.name]);
-    if (!base) return;
+    if (!base) { this.wantedKey = ''; return; }
+    this.planError = planProblem(base, axes.x, axes.y);
+    if (this.planError) { this.wantedKey = ''; this.scan.cancel(); this.soft.cancel(); return; }
     const plan = { base, x: axes.x, y: axes.y };
-    this.scan.run(plan, JSON.stringify(plan));
+    this.wantedKey = JSON.stringify(plan);
+    this.scan.run(plan, this.wantedKey);
     this.soft.update(this.model.params, axes.x, axes.y, this.section.lines);
+  }
+
+  /** The out-of-date mark of the map: empty while it shows the latest valid inputs. */
+  private staleText(): string {
+    const g = this.scan.shown;
+    if (!g) return '';
+    if (!this.wantedKey) return 'out of date: an entry is invalid';
+    if (g.key === this.wantedKey) return '';
+    return this.scan.status === 'running' ? 'out of date, recomputing\u2026' : 'out of date (not recomputed)';
   }
 
   override updated() {
@@ -118,6 +138,8 @@ export class PhaseAtlasView extends LitElement {
     this.scan.reportRender(performance.now() - this.updateStart);
     // the scan's state on the element, for scripts and tests driving the page
     this.dataset.scan = this.scan.status;
+    this.dataset.stale = this.staleText() ? 'yes' : 'no';
+    this.dataset.cached = String(this.scan.fromCache);
     this.dataset.points = String(this.scan.current?.count ?? 0);
     this.dataset.started = String(this.scan.started);
     this.dataset.cancelled = String(this.scan.cancelled);
@@ -150,11 +172,11 @@ export class PhaseAtlasView extends LitElement {
     const text = this.section[which];
     const eq = text.indexOf('=');
     const name = eq >= 0 ? text.slice(0, eq) : 'mu', range = eq >= 0 ? text.slice(eq + 1) : text;
-    const err = this.axisErrors[which];
+    const err = this.axisErrors[which] ?? (this.planError?.axis === which ? this.planError.message : undefined);
     return html`<div class="axis">
       <label for="ax-${which}-name">${which === 'x' ? 'Horizontal' : 'Vertical'} axis</label>
       <div class="pair">
-        <select id="ax-${which}-name" name="axis-${which}" @change=${(e: Event) => this.patch({ [which]: `${(e.target as HTMLSelectElement).value}=${range}` })}>
+        <select id="ax-${which}-name" name="axis-${which}" @change=${(e: Event) => this.chooseAxis(which, (e.target as HTMLSelectElement).value as AxisName, range)}>
           ${AXIS_NAMES.map((n) => html`<option value=${n} ?selected=${n === name}>${AXIS_LABELS[n]}</option>`)}
         </select>
         <input id="ax-${which}-range" name="range-${which}" aria-label="${which} range start:stop:count" .value=${range}
@@ -163,6 +185,15 @@ export class PhaseAtlasView extends LitElement {
       </div>
       <div class="err" id="ax-${which}-msg" role=${err ? 'alert' : nothing}>${err ?? ''}</div>
     </div>`;
+  }
+
+  /** A new parameter on an axis gets a range of its own, inside the model's domain. */
+  private chooseAxis(which: 'x' | 'y', name: AxisName, range: string) {
+    const count = Number(range.split(':')[2]) || (which === 'x' ? 64 : 40);
+    const otherText = this.section[which === 'x' ? 'y' : 'x'];
+    let other: Axis | null = null;
+    try { other = parseAxis(otherText, which === 'x' ? 'y' : 'x'); } catch { /* its own error shows */ }
+    this.patch({ [which]: `${name}=${defaultRange(name, this.inputs, count, other)}` });
   }
 
   private toggleLine(r: string, on: boolean) {
@@ -205,7 +236,7 @@ export class PhaseAtlasView extends LitElement {
           </select></div>
         <fieldset class="lines"><legend>Soft-mode lines for interaction range</legend>
           ${SOFT_RANGES.map((r) => html`<label><input type="checkbox" name="line-${r.key}" .checked=${ticked.has(r.key)}
-            @change=${(e: Event) => this.toggleLine(r.key, (e.target as HTMLInputElement).checked)}> ${r.label}</label>`)}
+            @change=${(e: Event) => this.toggleLine(r.key, (e.target as HTMLInputElement).checked)}> ${rangeLabel(r.key, this.inputs.interaction)}</label>`)}
           <span class="muted soft-status">${this.soft.status}</span>
         </fieldset>
       </div>
@@ -215,12 +246,12 @@ export class PhaseAtlasView extends LitElement {
           on ${this.engine?.workers ?? 0} workers${this.scan.status === 'done' && this.scan.totalMs ? ` in ${(this.scan.totalMs / 1000).toFixed(1)} s` : ''}
           ${this.scan.status === 'cancelled' ? ' (cancelled)' : ''}</span>
         ${running ? html`<button class="cancel" @click=${() => this.scan.cancel()}>Cancel</button>` : nothing}
-        ${!running && this.scan.status === 'cancelled' ? html`<button @click=${() => { if (this.scan.current) this.scan.run(this.scan.current.plan, this.scan.current.key + ' again'); }}>Resume (recompute)</button>` : nothing}
+        ${!running && this.scan.status === 'cancelled' && this.scan.current?.key === this.wantedKey ? html`<button class="resume" @click=${() => this.scan.resume()}>Resume</button>` : nothing}
         ${this.scan.error ? html`<span class="err" role="alert">${this.scan.error}</span>` : nothing}
         ${this.scan.failed ? html`<span class="err failed">${this.scan.failed} point${this.scan.failed === 1 ? '' : 's'} could not be solved (blank; the reason is in the export's error column)</span>` : nothing}
         ${!this.model.params ? html`<span class="err stale">The model has an invalid entry: showing the last good map.</span>` : nothing}
       </div>
-      <figure-panel class="map" interactive .figure=${fig} .cursor=${this.hover} ?busy=${running}
+      <figure-panel class="map" interactive .figure=${fig} .cursor=${this.hover} ?busy=${running} stale=${this.staleText()}
         .keyStep=${g ? [(g.plan.x.stop - g.plan.x.start) / Math.max(1, g.nx - 1), (g.plan.y.stop - g.plan.y.start) / Math.max(1, g.ny - 1)] : null}
         @plot-hover=${(e: CustomEvent) => { this.hover = [e.detail.x, e.detail.y]; }}
         @plot-leave=${() => { this.hover = null; }}

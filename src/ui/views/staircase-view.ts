@@ -94,6 +94,14 @@ export class StaircaseView extends LitElement {
     return { columns: ['range', 'fraction', 'muLow', 'muHigh', 'width', 'points', 'edge'], rows };
   }
 
+  /** The out-of-date mark of the figure: empty while it shows the latest inputs. */
+  private staleText(): string {
+    if (!this.scans.value) return '';
+    if (!this.model.params || this.rangeError) return 'out of date: an entry is invalid';
+    if (!this.scans.stale) return '';
+    return this.scans.status === 'running' ? 'out of date, recomputing…' : 'out of date (stopped)';
+  }
+
   override render() {
     const v = this.scans.value;
     const refined = v?.series.every((s) => s.result.refined) ?? false;
@@ -127,10 +135,11 @@ export class StaircaseView extends LitElement {
             ${COMPARE.map(([k, t]) => html`<option value=${k} ?selected=${k === this.section.compare}>${t}</option>`)}</select></div>
         <div aria-live="polite"><progress max=${this.scans.total || 1} .value=${this.scans.done} aria-label="Staircase progress"></progress>
           ${this.scans.status === 'running' ? html`${this.scans.done} / ${this.scans.total} <button @click=${() => this.scans.cancel()}>Cancel</button>` : nothing}
+          ${this.scans.status === 'cancelled' || this.scans.status === 'error' ? html`<button class="resume" @click=${() => this.scans.resume()}>Run again</button>` : nothing}
           ${this.scans.error ? html`<span class="err" role="alert">${this.scans.error}</span>` : nothing}
           ${!p ? html`<span class="err">The model has an invalid entry: showing the last good staircase.</span>` : nothing}</div>
       </div>
-      <figure-panel class="staircase" .figure=${fig}></figure-panel>
+      <figure-panel class="staircase" .figure=${fig} stale=${this.staleText()}></figure-panel>
       <p class="muted">Plateaus are read from the solutions: no condensate and every sublattice empty or full, the fraction from the
         cell's integer occupation confirmed by continued fractions with denominators \u2264 Mmax.
         ${refined ? html`Edges bisected to ${EDGE_TOL} g.` : html`Edges at the grid (within one step ${series.length ? `= ${fmt((series[0].mu.at(-1)! - series[0].mu[0]) / Math.max(1, series[0].mu.length - 1))} g` : ''});
