@@ -74,7 +74,7 @@ export async function streamMap(io: CliIo, a: ParsedArgs, job: MapJob, target: O
   const workers = workerCount(a, io, left);
   const window = Math.max(MIN_WINDOW, WINDOW_PER_WORKER * workers);
   const budget = pointBudgetMs(a);
-  progress.update(rows);
+  if (rows > 0) progress.update(rows);
   const waiting = new Map<number, string>();
   const accept = (pt: ScanPoint) => {
     const at = cursor.point;
@@ -89,7 +89,8 @@ export async function streamMap(io: CliIo, a: ParsedArgs, job: MapJob, target: O
       if (bad) failed++;
       cursor.advance();
     }
-    progress.update(rows + waiting.size);
+    // progress counts the rows written (what an interruption keeps), not those waiting
+    if (rows > 0) progress.update(rows);
   };
   const run = await interruptible(io, workers, async (pool, signal) => {
     const stop = new AbortController();
