@@ -2,11 +2,16 @@
  * The one table of a map's output columns, serving the CLI's CSV and JSON and the page's
  * export alike (so the two files of one map are byte for byte the same):
  *
- *   ix, iy, <x axis>, [<y axis>], phase, fraction, cellSize, cell, alpha, photonDensity,
+ *   ix, iy, <x axis>, [<y axis>], phase, fraction, cellSize, lockedFilling, cell, alpha, photonDensity,
  *   emitterDensity, excitationDensity, grandPotential, [mu], sublatticeDensities,
  *   sublatticeCoherences, [coexistLowFraction, coexistLowDensity, coexistHighDensity], error
  *
  * mu appears only when no axis holds it; the coexistence columns only for fixed density.
+ * `fraction` is the pattern's (occupied sublattices over M, DESIGN.md "Phase labels"): a
+ * period, not a filling, wherever the density is not locked (a supersolid, a density wave
+ * at T > 0). `lockedFilling` is the filling p/q only where the density is locked to it
+ * (plateauFraction: no condensate, every sublattice empty or full, the density equal to p/q
+ * within the saturation tolerance); empty elsewhere. JSON points carry it too.
  * Lists (sublattice densities, coherences, the cell's Hermite normal form a b c) are
  * space-separated inside one field. A point that could not be solved has empty state
  * fields and its reason in `error`; a solved point has an empty `error`.
@@ -17,6 +22,7 @@ import type { Axis } from './axes.ts';
 import type { ScanPlan, ScanPoint } from './grid.ts';
 import type { ShardMeta } from './merge.ts';
 import { toCSV, type Cell, type Table } from './csv.ts';
+import { plateauFraction } from '../meanfield/plateaus.ts';
 
 /** What fixes a map's columns and its file header. */
 export interface MapHeader {
@@ -46,6 +52,7 @@ const list = (xs: number[]) => xs.map(String).join(' ');
 function stateColumns(h: MapHeader): Column[] {
   const cols: Column[] = [
     ['phase', (s) => s.phase], ['fraction', (s) => s.fraction ?? ''], ['cellSize', (s) => s.cellSize],
+    ['lockedFilling', (s) => plateauFraction(s, h.params.maxCell) ?? ''],
     ['cell', (s) => `${s.cell.a} ${s.cell.b} ${s.cell.c}`], ['alpha', (s) => s.alpha],
     ['photonDensity', (s) => s.photonDensity], ['emitterDensity', (s) => s.emitterDensity],
     ['excitationDensity', (s) => s.excitationDensity], ['grandPotential', (s) => s.grandPotential],
@@ -99,7 +106,8 @@ export function paramsJson(p: ModelParams): ModelParams {
 export function mapJsonPoint(h: MapHeader, pt: ScanPoint): Record<string, unknown> {
   return {
     ix: pt.ix, iy: pt.iy, [h.x.name]: h.x.values[pt.ix], ...(h.y ? { [h.y.name]: h.y.values[pt.iy] } : {}),
-    ...(pt.state ?? {}), ...(pt.error !== undefined ? { error: pt.error } : {}),
+    ...(pt.state ?? {}), ...(pt.state ? { lockedFilling: plateauFraction(pt.state, h.params.maxCell) } : {}),
+    ...(pt.error !== undefined ? { error: pt.error } : {}),
   };
 }
 

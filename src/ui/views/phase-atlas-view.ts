@@ -11,6 +11,7 @@ import type { AppState, ModelInputs } from '../state/app-state.ts';
 import { AXIS_NAMES, type AxisName, parseAxis, type Axis } from '../../core/scan/axes.ts';
 import { checkAxes } from '../../core/scan/grid.ts';
 import { defaultRange, planProblem, type AxisProblem } from '../model/axis-ranges.ts';
+import { phaseWords } from '../model/phase-words.ts';
 import { InputError } from '../../core/input-error.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
 import { MapScanController, type MapGrid } from '../controllers/map-scan.ts';
@@ -26,6 +27,9 @@ import type { RenderedFigure } from '../app/figure-panel.ts';
 import '../app/data-export.ts';
 import '../app/limits-note.ts';
 import './point-detail.ts';
+import './boundary-check-panel.ts';
+import { withBoundaryCheck, type CheckOverlay } from '../figures/boundary-check-overlay.ts';
+import { addPick } from '../model/boundary-check-line.ts';
 
 type AtlasSection = AppState['atlas'];
 
@@ -41,6 +45,9 @@ export class PhaseAtlasView extends LitElement {
   declare inputs: ModelInputs;
   declare engine: EngineClient;
   declare hover: [number, number] | null;
+  /** "Check this boundary": which end the map's next select picks (0: none), and its overlay on the map. */
+  private checkPick = 0;
+  private checkOverlay: CheckOverlay | null = null;
   private scan = new MapScanController(this, () => this.engine);
   private soft = new SoftLinesController(this, () => this.engine);
   private axisErrors: { x?: string; y?: string } = {};
@@ -164,8 +171,19 @@ export class PhaseAtlasView extends LitElement {
     const xv = g.plan.x.values[ix], yv = g.plan.y.values[iy];
     const where = `${AXIS_SYMBOLS[g.plan.x.name]} = ${fmt(xv)}, ${AXIS_SYMBOLS[g.plan.y.name]} = ${fmt(yv)}`;
     if (!s) return html`${where}: not computed yet`;
-    return html`${where}: <strong class="readout-phase">${PHASE_NAMES[s.phase]}${s.fraction ? ' ' + s.fraction : ''}</strong>,
-      \u03c1 = ${fmt(s.excitationDensity)}, \u03b1\u00b2 = ${fmt(s.photonDensity)}, M = ${s.cellSize}${own ? '' : ' (coarse preview)'}`;
+    const maxCell = g.plan.base.maxCell;
+    const limit = s.cellSize === maxCell ? html` <span class="at-limit">(the largest cell searched: may be an artefact of Mmax)</span>` : nothing;
+    const c = s.coexistence;
+    if (c) {
+      // inside a first-order jump at fixed density: two phases in the lever rule's proportions
+      const [a, b] = c.phases, [xa, xb] = c.fractions;
+      return html`${where}: <strong class="readout-phase coexistence">coexistence</strong> (lever rule) of
+        ${phaseWords(a, maxCell)} (\u03c1 = ${fmt(a.excitationDensity)}, share ${fmt(xa)}) and
+        ${phaseWords(b, maxCell)} (\u03c1 = ${fmt(b.excitationDensity)}, share ${fmt(xb)}):
+        \u03c1 = ${fmt(xa * a.excitationDensity + xb * b.excitationDensity)}${own ? '' : ' (coarse preview)'}`;
+    }
+    return html`${where}: <strong class="readout-phase">${phaseWords(s, maxCell)}</strong>,
+      \u03c1 = ${fmt(s.excitationDensity)}, \u03b1\u00b2 = ${fmt(s.photonDensity)}, M = ${s.cellSize}${limit}${own ? '' : ' (coarse preview)'}`;
   }
 
   private axisControl(which: 'x' | 'y') {
@@ -222,7 +240,7 @@ export class PhaseAtlasView extends LitElement {
         title: `Phase map over ${AXIS_SYMBOLS[g.plan.x.name]} and ${AXIS_SYMBOLS[g.plan.y.name]}`,
       });
     }
-    const fig = g ? this.fig : null;
+    const fig = g && this.fig && this.checkOverlay ? withBoundaryCheck(this.fig, this.checkOverlay) : g ? this.fig : null;
     const cmdAxes = g ? [g.plan.x.name, g.plan.y.name] : [];
     const command = cliLine('map', [...modelFlags(this.inputs, cmdAxes), '--x', this.section.x, '--y', this.section.y]);
     const selParams = g && sel ? (() => { const [ix, iy] = this.cellAt(g, sel[0], sel[1]); return { p: g.point(ix, iy), seed: g.seed(ix, iy), state: g.own(ix, iy) }; })() : null;
@@ -255,9 +273,12 @@ export class PhaseAtlasView extends LitElement {
         .keyStep=${g ? [(g.plan.x.stop - g.plan.x.start) / Math.max(1, g.nx - 1), (g.plan.y.stop - g.plan.y.start) / Math.max(1, g.ny - 1)] : null}
         @plot-hover=${(e: CustomEvent) => { this.hover = [e.detail.x, e.detail.y]; }}
         @plot-leave=${() => { this.hover = null; }}
-        @plot-select=${(e: CustomEvent) => { if (g) { const [ix, iy] = this.cellAt(g, e.detail.x, e.detail.y); this.patch({ point: `${g.plan.x.values[ix]},${g.plan.y.values[iy]}` }); } }}>
+        @plot-select=${(e: CustomEvent) => { if (this.checkPick) { this.patch({ check: addPick(this.section.check, e.detail.x, e.detail.y, this.checkPick === 1) }); this.checkPick = this.checkPick === 1 ? 2 : 0; this.requestUpdate(); return; } if (g) { const [ix, iy] = this.cellAt(g, e.detail.x, e.detail.y); this.patch({ point: `${g.plan.x.values[ix]},${g.plan.y.values[iy]}` }); } }}>
       </figure-panel>
       <div class="readout" aria-live="polite" aria-label="Readout under the cursor">${g ? this.readout(g) : 'Waiting for the first points\u2026'}</div>
+      ${g ? html`<boundary-check-panel .section=${this.section} .inputs=${this.inputs} .engine=${this.engine} .grid=${g} .gridCount=${g.count} .picking=${this.checkPick} .width=${w}
+        @check-pick=${(e: CustomEvent) => { this.checkPick = e.detail.step; this.requestUpdate(); }}
+        @check-overlay=${(e: CustomEvent) => { this.checkOverlay = e.detail.overlay; this.requestUpdate(); }}></boundary-check-panel>` : nothing}
       <limits-note lattice=${this.model.params?.lattice ?? this.inputs.lattice} temperature=${this.model.params?.T ?? 0}></limits-note>
       ${g ? html`<data-export class="map-export" .table=${() => mapExportTable(g)} .json=${() => mapExportJson(g)} .rows=${g.count}
         name="phase-map" .command=${command}></data-export>` : nothing}

@@ -10,6 +10,7 @@ import type { ModelParams } from '../../core/model.ts';
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
 import { EngineTask } from '../controllers/engine-task.ts';
+import { phaseWords } from '../model/phase-words.ts';
 import { sharedStyles } from '../app/shared-styles.ts';
 import { patternFigure } from '../figures/pattern-figure.ts';
 import { stateRows, sublatticeTable } from './state-numbers.ts';
@@ -77,7 +78,8 @@ export class PointDetail extends LitElement {
     const s = this.task.value;
     const lat = this.params?.lattice ?? 'chain';
     return html`<section aria-label="Opened point" aria-busy=${this.task.status === 'pending' ? 'true' : 'false'}>
-      <header><h3>Point ${this.label}${s ? html`: <span class="phase-name">${PHASE_NAMES[s.phase]}${s.fraction ? ' ' + s.fraction : ''}</span>` : nothing}</h3>
+      <header><h3>Point ${this.label}${s ? html`: <span class="phase-name">${phaseWords(s, this.params?.maxCell ?? s.cellSize)}</span>${this.params && s.cellSize === this.params.maxCell
+          ? html` <span class="err at-limit">(M = Mmax = ${s.cellSize}, the largest cell searched: may be an artefact of that limit)</span>` : nothing}` : nothing}</h3>
         <button @click=${this.close} aria-label="Close the opened point">Close</button></header>
       ${this.task.error ? html`<p class="err" role="alert">${this.task.error}</p>` : nothing}
       ${s ? html`<div class="cols">
