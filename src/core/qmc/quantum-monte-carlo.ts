@@ -44,6 +44,10 @@ export function* qmcBatches(req: QmcRequest, geometry?: QmcGeometry): Generator<
   const r = resolveQmcRequest(req);
   const g = geometry ?? qmcGeometry(r.cluster);
   const notes: string[] = [];
+  const om = r.orderMomentum;
+  if (om && !Array.from({ length: g.momenta.length / 2 }, (_, q) => q).some((q) => g.momentumLabels[2 * q] === om[0] && g.momentumLabels[2 * q + 1] === om[1])) {
+    throw new InputError(`order momentum (${om.join(', ')}) is not a momentum of this cluster (labels m run over (-L/2, L/2] along each axis)`, 'order');
+  }
   const alphas = r.alpha !== null ? [r.alpha] : alphaGrid(r.delta!, r.mu, r.alphaPoints);
   checkMemory(r, g, Math.max(...alphas), r.ground ? QMC_LIMITS.groundBeta : 1 / r.temperature!);
   let tag = 0;
