@@ -63,6 +63,11 @@ export async function runCli(argv: readonly string[], io: CliIo, commands: reado
       io.stderr(`atlas: ${oneLine(e.message)}\n`);
       return 2;
     }
+    if (e instanceof Error && e.name === 'ConvergenceError') {
+      // A valid input at which the numerics reached their iteration cap: say so in one line.
+      io.stderr(`atlas: no converged answer at this input: ${oneLine(e.message)}\n`);
+      return 3;
+    }
     const err = e instanceof Error ? e : new Error(String(e));
     io.stderr(`atlas: internal error: ${oneLine(err.message)}${process.env.ATLAS_DEBUG ? '\n' + err.stack : ' (ATLAS_DEBUG=1 shows the stack)'}\n`);
     return 1;
