@@ -34,7 +34,7 @@ describe('the page map equals the CLI map', () => {
   const inputs = { ...demoState().model, 'max-cell': '6' };
   const xText = 'mu=-1:2.9:12', yText = 'rb=0.9:2.1:5';
 
-  it('byte for byte, CSV and JSON', async () => {
+  it('CSV byte for byte, JSON as the same document', async () => {
     const model = parseModel(inputs);
     expect(model.params).not.toBeNull();
     const host = new Host();
@@ -56,7 +56,9 @@ describe('the page map equals the CLI map', () => {
     expect(run.code).toBe(0);
     expect(page).toBe(run.out);
 
+    // JSON: the same document (the CLI streams it one point a line, the page exports it whole,
+    // so the values and keys are compared, not the line breaks).
     const json = await cli([...line, '--json']);
-    expect(JSON.stringify(mapExportJson(grid)) + '\n').toBe(json.out);
+    expect(mapExportJson(grid)).toEqual(JSON.parse(json.out));
   });
 });
