@@ -56,7 +56,7 @@ export class FigurePanel extends LitElement {
     .host:focus-visible { outline: 3px solid #d9a21b; }
     .cursor { position: absolute; width: 9px; height: 9px; margin: -5px 0 0 -5px; border: 1.5px solid #000;
       background: #fff; border-radius: 50%; pointer-events: none; }
-    .host.stale svg { opacity: 0.55; }
+    .host.is-stale svg { opacity: 0.55; }
     .stale-mark { position: absolute; left: 50%; top: 8px; transform: translateX(-50%); pointer-events: none;
       background: #7a1f1f; color: #fff; font-size: 13px; font-weight: 600; padding: 3px 10px; border-radius: 4px; white-space: nowrap; }
   `];
@@ -137,7 +137,7 @@ export class FigurePanel extends LitElement {
     const fig = this.figure;
     if (!fig) return html`<div class="host muted" aria-busy=${this.busy ? 'true' : 'false'}>No figure yet.</div>`;
     return html`
-      <div class="host ${this.interactive ? 'interactive' : ''} ${this.stale ? 'stale' : ''}" role=${this.interactive ? 'application' : 'figure'}
+      <div class="host ${this.interactive ? 'interactive' : ''} ${this.stale ? 'is-stale' : ''}" role=${this.interactive ? 'application' : 'figure'}
         aria-label=${fig.title + (this.interactive ? ' (arrow keys move the cursor, Enter opens the point)' : '')}
         tabindex=${this.interactive ? '0' : '-1'} aria-busy=${this.busy ? 'true' : 'false'}
         @pointermove=${this.interactive ? this.onMove : null} @pointerleave=${() => this.emit('plot-leave')}

@@ -15,7 +15,9 @@ import { dots } from '../plot/dot.ts';
 import { textLabels } from '../plot/text-label.ts';
 import type { Mark } from '../plot/frame.ts';
 import { phaseFill, phaseLegend, phaseTexture, textureDefs } from '../plot/phase-palette.ts';
-import { rampColour, rampLevel } from './sequential-ramp.ts';
+import { rampColour } from './sequential-ramp.ts';
+import { colourScale } from './colour-scale.ts';
+import { colourBar, colourBarHeight } from '../plot/colour-bar.ts';
 import { regionLabels } from './region-labels.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
 
@@ -32,6 +34,9 @@ export interface PhaseMapInput {
   shade: MapShade;
   lines: SoftLineOverlay[];
   selected?: [number, number] | null;
+  /** Continuous colourings: the range asked for (ends left out: automatic, see colour-scale.ts) and a log scale. */
+  colourRange?: { lo?: number; hi?: number };
+  log?: boolean;
   width: number;
   height: number;
   title: string;
@@ -67,14 +72,16 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
   const key = (i: number, j: number) => keys[j * g.nx + i];
   const present = new Set<PhaseLabel>();
   let coexistence = false;
-  let lo = Infinity, hi = -Infinity;
   const value = (s: SolveResult) => (o.shade === 'photon' ? s.photonDensity : s.excitationDensity);
+  const values: number[] = [];
   for (const s of cells) {
     if (!s) continue;
     present.add(s.phase);
     if (s.coexistence) coexistence = true;
-    lo = Math.min(lo, value(s)); hi = Math.max(hi, value(s));
+    if (o.shade !== 'phase') values.push(value(s));
   }
+  const scale = colourScale(values, o.colourRange ?? {}, !!o.log);
+  const LEVELS = 24;
   const marks: Mark[] = [];
   if (o.shade === 'phase') {
     const paints = new Map<string, CellPaint>();
@@ -90,8 +97,8 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
     marks.push(heatmap(g, (i, j) => {
       const s = at(i, j);
       if (!s) return null;
-      const lev = rampLevel(value(s), lo, hi);
-      return { key: String(lev), fill: rampColour((lev + 0.5) / 24) };
+      const lev = Math.min(LEVELS - 1, Math.floor(scale.t(value(s)) * LEVELS));
+      return { key: String(lev), fill: rampColour((lev + 0.5) / LEVELS) };
     }));
   }
   marks.push(categoryContour(g, key, { stroke: '#1d2430', width: 1 }));
@@ -105,11 +112,21 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
   for (const l of o.lines) marks.push(line(l.x, l.y, { stroke: l.stroke, width: 2.2, dash: l.dash, halo: '#ffffff' }));
   if (o.selected) marks.push(dots([{ x: o.selected[0], y: o.selected[1], r: 6, fill: 'none', stroke: '#000000', strokeWidth: 2.5 }]));
   marks.push(axisX({ label: o.xLabel }), axisY({ label: o.yLabel }));
-  const entries: LegendEntry[] = o.shade === 'phase'
-    ? phaseLegend(id, present, coexistence)
-    : [0, 0.25, 0.5, 0.75, 1].map((t) => ({
-      label: Number.isFinite(lo) ? (lo + t * (hi - lo)).toPrecision(3) : '', swatch: { kind: 'fill' as const, fill: rampColour(t) },
+  const entries: LegendEntry[] = o.shade === 'phase' ? phaseLegend(id, present, coexistence) : [];
+  const barTitle = o.shade === 'photon' ? 'Photon density \u03b1\u00b2' : 'Excitation density \u03c1';
+  const bar = o.shade !== 'phase' && values.length > 0 && o.width >= 640;
+  if (bar) {
+    marks.push(colourBar({
+      title: `${barTitle}${scale.log ? ' (log)' : ''}`, colour: rampColour, levels: LEVELS,
+      label: (t) => Number(scale.at(t).toPrecision(3)).toString(), clippedLow: scale.clippedLow, clippedHigh: scale.clippedHigh,
     }));
+  } else if (o.shade !== 'phase') {
+    // narrow figures: the scale as five swatches below the axis
+    for (const t of [0, 0.25, 0.5, 0.75, 1]) {
+      const end = (t === 1 && scale.clippedHigh) ? '\u2265 ' : (t === 0 && scale.clippedLow) ? '\u2264 ' : '';
+      entries.push({ label: values.length ? end + Number(scale.at(t).toPrecision(3)) : '', swatch: { kind: 'fill', fill: rampColour((Math.min(LEVELS - 1, Math.floor(t * LEVELS)) + 0.5) / LEVELS) } });
+    }
+  }
   const seen = new Set<string>();
   for (const l of o.lines) {
     if (seen.has(l.label)) continue;
@@ -117,7 +134,7 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
     entries.push({ label: `soft: ${l.label}`, swatch: { kind: 'line', stroke: l.stroke, dash: l.dash, width: 2.2 } });
   }
   const narrow = o.width < 640;
-  marks.push(legend(entries, { below: narrow, title: o.shade === 'phase' ? 'Phase' : o.shade === 'photon' ? 'Photon density \u03b1\u00b2' : 'Excitation density \u03c1' }));
+  marks.push(legend(entries, bar ? { top: colourBarHeight({}) } : { below: narrow, title: o.shade === 'phase' ? 'Phase' : barTitle }));
   const extra = narrow ? legendBelowHeight(entries.length, o.width) : 0;
   const { svg, frame } = renderFigure({
     id, width: o.width, height: o.height + extra, margin: narrow ? { right: 12, bottom: 46 + extra } : { right: 190 },

@@ -18,6 +18,8 @@ export interface LegendOptions {
   gap?: number;
   /** Rows under the x axis instead of a column at the right (narrow figures); reserve legendBelowHeight(). */
   below?: boolean;
+  /** Px below the plot area's top where the column starts (room for a colour bar above it). */
+  top?: number;
 }
 
 const ENTRY_W = 150, ROW_H = 18;
@@ -34,7 +36,7 @@ export function legend(entries: LegendEntry[], o: LegendOptions = {}): Mark {
     clip: false,
     render(f: Frame) {
       let x = f.inner.x1 + (o.gap ?? 14);
-      let y = f.inner.y0 + 4, out = '';
+      let y = f.inner.y0 + 4 + (o.top ?? 0), out = '';
       const perRow = Math.max(1, Math.floor((f.width - 16) / ENTRY_W));
       if (o.below) y = f.inner.y1 + 48;
       else if (o.title) { out += el('text', { x, y: y + 10, 'font-weight': 'bold', fill: '#1d2430' }, esc(o.title)); y += 20; }

@@ -21,6 +21,8 @@ export interface AppState {
   model: ModelInputs;
   atlas: {
     x: string; y: string; lines: string; shade: string; point: string;
+    /** Colour range "lo:hi" of a continuous colouring (empty: automatic), and '1' for a log scale. */
+    crange: string; clog: string;
     /** "Check this boundary" (QMC line scan): the line "x0,y0;x1,y1" in map units, sizes, points, sweeps, T, ground ('1' or ''). */
     check: string; sizes: string; cpoints: string; csweeps: string; ctemp: string; cground: string;
   };
@@ -48,7 +50,7 @@ export function demoState(): AppState {
       range: '', detuning: '3', pump: 'mu', mu: '1', density: '0.3', temperature: '0', 'max-cell': '12',
     },
     atlas: {
-      x: 'mu=-1:2.9:64', y: 'rb=0.8:2.4:40', lines: 'vdw:inf', shade: 'phase', point: '',
+      x: 'mu=-1:2.9:64', y: 'rb=0.8:2.4:40', lines: 'vdw:inf', shade: 'phase', point: '', crange: '', clog: '',
       check: '', sizes: '8,12,16', cpoints: '9', csweeps: '200', ctemp: '0.05', cground: '',
     },
     staircase: { mu: '-1:2.9:400', compare: '1' },

@@ -12,6 +12,7 @@ import { AXIS_NAMES, type AxisName, parseAxis, type Axis } from '../../core/scan
 import { checkAxes } from '../../core/scan/grid.ts';
 import { defaultRange, planProblem, type AxisProblem } from '../model/axis-ranges.ts';
 import { phaseWords } from '../model/phase-words.ts';
+import { parseColourRange } from '../figures/colour-scale.ts';
 import { InputError } from '../../core/input-error.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
 import { MapScanController, type MapGrid } from '../controllers/map-scan.ts';
@@ -229,13 +230,14 @@ export class PhaseAtlasView extends LitElement {
     const lines = this.soft.overlays();
     // the figure is rebuilt only when what it shows changes (not when the cursor moves:
     // the cursor is drawn over it by <figure-panel>)
-    const figKey = g ? [g.key, g.count, this.section.shade, lines.length, lines.map((l) => l.x.length).join(','), this.section.point, w].join('|') : '';
+    const crange = parseColourRange(this.section.crange ?? '');
+    const figKey = g ? [g.key, g.count, this.section.shade, this.section.crange, this.section.clog, lines.length, lines.map((l) => l.x.length).join(','), this.section.point, w].join('|') : '';
     if (g && figKey !== this.figKey) {
       this.figKey = figKey;
       this.fig = phaseMapFigure({
         grid: { nx: g.nx, ny: g.ny, x: [g.plan.x.start, g.plan.x.stop], y: [g.plan.y.start, g.plan.y.stop] },
         stateAt: (i, j) => g.paint(i, j), xLabel: AXIS_LABELS[g.plan.x.name], yLabel: AXIS_LABELS[g.plan.y.name],
-        shade: this.section.shade as MapShade, lines, selected: sel,
+        shade: this.section.shade as MapShade, lines, selected: sel, colourRange: crange ?? {}, log: this.section.clog === '1',
         width: w, height: Math.round(Math.min(540, Math.max(300, w * 0.5))),
         title: `Phase map over ${AXIS_SYMBOLS[g.plan.x.name]} and ${AXIS_SYMBOLS[g.plan.y.name]}`,
       });
@@ -252,6 +254,12 @@ export class PhaseAtlasView extends LitElement {
             ${[['phase', 'phase'], ['rho', 'excitation density \u03c1'], ['photon', 'photon density \u03b1\u00b2']].map(([v, t]) =>
               html`<option value=${v} ?selected=${v === this.section.shade}>${t}</option>`)}
           </select></div>
+        ${this.section.shade !== 'phase' ? html`<div class="axis"><label for="crange">Colour range lo:hi (empty: automatic)</label>
+          <div class="pair"><input id="crange" name="crange" .value=${this.section.crange ?? ''} aria-invalid=${crange ? 'false' : 'true'}
+            aria-describedby="crange-msg" @input=${(e: Event) => this.patch({ crange: (e.target as HTMLInputElement).value })}>
+          <label><input type="checkbox" name="clog" .checked=${this.section.clog === '1'}
+            @change=${(e: Event) => this.patch({ clog: (e.target as HTMLInputElement).checked ? '1' : '' })}> log</label></div>
+          <div class="err" id="crange-msg">${crange ? '' : 'write lo:hi with lo < hi (either may be empty)'}</div></div>` : nothing}
         <fieldset class="lines"><legend>Soft-mode lines for interaction range</legend>
           ${SOFT_RANGES.map((r) => html`<label><input type="checkbox" name="line-${r.key}" .checked=${ticked.has(r.key)}
             @change=${(e: Event) => this.toggleLine(r.key, (e.target as HTMLInputElement).checked)}> ${rangeLabel(r.key, this.inputs.interaction)}</label>`)}
