@@ -36,11 +36,26 @@ describe('adaptive map = dense map, pixel for pixel', () => {
     expect(differing).toBe(0);
     expect(adaptive.points).toHaveLength(800);
     expect(adaptive.solves).toBeLessThan(800);
+    // confirming boundaries costs far less than the pixels (one solve per line side, not per crossing)
+    const boundarySolves = adaptive.boundarySolves as number;
+    expect(boundarySolves).toBeGreaterThan(0);
+    expect(boundarySolves).toBeLessThan(((adaptive.solves as number) - boundarySolves) / 3);
     const exact = (adaptive.boundaries ?? []).filter((b) => b.firstOrder);
     expect(exact.length).toBeGreaterThan(0);
     for (const b of exact) {
       // a jump between crystals: rho changes by a difference of fractions with q <= Mmax (6)
       expect(Math.abs(b.densityJump as number)).toBeGreaterThanOrEqual(1 / 30 - 1e-12);
+    }
+    // a point of an exact line confirmed without its own solve is still a tie of its two
+    // crystals: a full solve there finds one of them (no third state below)
+    // (crossings sit on a grid line; a block centre joining a lone crossing does not)
+    const onGrid = (pt: number[]) => vdw.x.values.includes(pt[0]) || (vdw.y as NonNullable<typeof vdw.y>).values.includes(pt[1]);
+    const pts = exact.flatMap((b) => b.points.filter(onGrid).map((pt) => ({ b, pt }))).filter((_, i) => i % 7 === 3).slice(0, 12);
+    expect(pts.length).toBeGreaterThan(3);
+    for (const { b, pt } of pts) {
+      const p = applyAxis(applyAxis(vdw.base, 'mu', pt[0]), 'rb', pt[1]);
+      const s = solveGroundState(p, { seed: 1 });
+      expect(b.phases).toContain(s.fraction ? `${s.phase} ${s.fraction}` : s.phase);
     }
   }, 300_000);
 

@@ -23,6 +23,9 @@ import {
   affineCrossing, chainBoundaries, crossing, crystalOmega, phaseName, type Crossing,
 } from '../../src/core/scan/boundaries.ts';
 import type { AdaptivePixel, ColdPoint } from '../../src/core/scan/certified-fill.ts';
+import {
+  AffineFrame, BoundaryLines, CrystalModels, MAX_KNOWN_CRYSTALS, confirmFloor, lineKey, lowerCrystal, probes,
+} from '../../src/core/scan/boundary-lines.ts';
 import type { SolveResult } from '../../src/core/meanfield/ground-state.ts';
 import type { ModelParams } from '../../src/core/model.ts';
 import type { Engine } from '../engine.ts';
@@ -81,6 +84,7 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
   const points: ScanPoint[] = [];
   const crossings: Crossing[] = [];
   const edgeRows = new Map<number, Array<SolveResult | undefined>>();
+  const located = locateState(plan);
   let solves = 0, boundarySolves = 0, remaining = bands.reduce((a, b) => a + b.rows.length * nx, 0);
   const progress = () => o.onProgress?.(solves, solves + remaining);
 
@@ -182,8 +186,10 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
     }
     edgeRows.set(first, rowStates.get(first) as Array<SolveResult | undefined>);
     edgeRows.set(last, rowStates.get(last) as Array<SolveResult | undefined>);
+    // in row order only the band's last row meets a later band (memory: one row, not the map's edges)
+    if (req.order !== 'spread') for (const k of [...edgeRows.keys()]) if (k !== last) edgeRows.delete(k);
     const before = solves;
-    crossings.push(...await locate(edges, plan, solveCold));
+    crossings.push(...await locate(edges, plan, located, solveCold));
     boundarySolves += solves - before;
     for (const [index] of known) {
       const iy = Math.floor(index / nx);
@@ -221,14 +227,38 @@ const identity = (s: SolveResult | undefined) => crystalOf(s)?.key ?? phaseName(
 /** Rounds of splitting an edge at a third crystal found at a crossing (the staircase's next fractions). */
 const MAX_ROUNDS = 8;
 
+/** What boundary location keeps across the bands of one map (boundary-lines.ts). */
+export interface LocateState {
+  lines: BoundaryLines;
+  models: CrystalModels;
+  /** Crystals met so far (pixels beside a boundary, confirming solves), one state each. */
+  known: Map<string, { c: Crystal; s: SolveResult }>;
+}
+
+/** The locate state of a plan (null: an axis is not affine, every crossing solved on its own). */
+export function locateState(plan: ScanPlan): LocateState | null {
+  const frame = AffineFrame.of(plan);
+  if (!frame) return null;
+  const models = new CrystalModels(frame);
+  return { lines: new BoundaryLines(models), models, known: new Map() };
+}
+
+function remember(st: LocateState | null, s: SolveResult): void {
+  const c = crystalOf(s);
+  if (st && c && !st.known.has(c.key) && st.known.size < MAX_KNOWN_CRYSTALS) st.known.set(c.key, { c, s });
+}
+
 /**
- * The crossings of the edges whose pixels differ (boundaries.ts). Between two crystals the
- * affine crossing is confirmed by one solve; when that solve finds a third crystal R (a
- * fraction of the staircase between the two), the edge is split at the crossing into A|R
- * and R|B, each located the same way, for up to MAX_ROUNDS rounds.
+ * The crossings of the edges whose pixels differ (boundaries.ts). Between two crystals A, B
+ * the crossing is computed in closed form and confirmed (no state below there), which costs
+ * a solve only when neither shortcut of boundary-lines.ts settles it: a crossing inside the
+ * confirmed interval of the A|B line is confirmed; one where a crystal R already met lies
+ * below is refuted by R. The rest are solved a few at a time (the probes of each line).
+ * A refuted crossing splits its edge at the crossing into A|R and R|B, each located the same
+ * way, for up to MAX_ROUNDS rounds.
  */
 async function locate(
-  edges: EdgeJob[], plan: ScanPlan,
+  edges: EdgeJob[], plan: ScanPlan, st: LocateState | null,
   solveCold: (pts: Array<{ p: ModelParams; seed: number; what: string }>) => Promise<ColdOutcome[]>,
 ): Promise<Crossing[]> {
   const out: Crossing[] = [];
@@ -237,10 +267,17 @@ async function locate(
     out.push(crossing(e.edge, a, b, point, exact, ra, rb));
   };
   interface Job { e: EdgeJob; a: SolveResult; b: SolveResult; va: number; vb: number }
+  interface Check { j: Job; v: number; p: ModelParams; omega: number; A: Crystal; B: Crystal; line: string; t: number; s: number[] }
   let jobs: Job[] = [];
-  for (const e of edges) if (e.a && e.b && identity(e.a) !== identity(e.b)) jobs.push({ e, a: e.a, b: e.b, va: e.va, vb: e.vb });
-  for (let round = 0; jobs.length; round++) {
-    const checks: Array<{ j: Job; v: number; p: ModelParams; omega: number }> = [];
+  for (const e of edges) {
+    if (e.a && e.b && identity(e.a) !== identity(e.b)) {
+      jobs.push({ e, a: e.a, b: e.b, va: e.va, vb: e.vb });
+      remember(st, e.a);
+      remember(st, e.b);
+    }
+  }
+  for (let round = 0; jobs.length && round <= MAX_ROUNDS; round++) {
+    const checks: Check[] = [];
     for (const j of jobs) {
       const { e } = j;
       const A = crystalOf(j.a), B = crystalOf(j.b);
@@ -251,26 +288,61 @@ async function locate(
         if (t !== null) {
           const v = t === 0 ? j.va : t === 1 ? j.vb : axisValue(e.axis.name, ua + t * (ub - ua), plan.base);
           const p = applyAxis(e.pa, e.axis.name, v);
-          checks.push({ j, v, p, omega: Math.min(crystalOmega(p, A), crystalOmega(p, B)) });
+          const s = st ? st.models.frame.coords(e.along === 0 ? [v, ...e.fixed] : [...e.fixed, v]) : [];
+          const line = lineKey(A, B);
+          checks.push({ j, v, p, omega: Math.min(crystalOmega(p, A), crystalOmega(p, B)), A, B, line, s, t: st ? st.lines.param(A, B, s) : 0 });
           continue;
         }
       }
       put(e, (j.va + j.vb) / 2, phaseName(j.a), phaseName(j.b), false);
     }
-    const got = await solveCold(checks.map((c) => ({ p: c.p, seed: edgeSeed(plan.seed, c.j.e.edge, round), what: `boundary ${c.j.e.axis.name} = ${c.v}` })));
-    jobs = [];
-    checks.forEach((c, i) => {
+    const next: Job[] = [];
+    const confirmed = (c: Check) => put(c.j.e, c.v, phaseName(c.j.a), phaseName(c.j.b), true, c.j.a.excitationDensity, c.j.b.excitationDensity);
+    const refuted = (c: Check, s: SolveResult | undefined) => {
       const { j, v } = c;
-      const s = got[i].cold?.state;
-      if (s && s.grandPotential >= c.omega - 1e-9 * Math.max(1, Math.abs(c.omega))) {
-        put(j.e, v, phaseName(j.a), phaseName(j.b), true, j.a.excitationDensity, j.b.excitationDensity);
-      } else if (s && crystalOf(s) && v !== j.va && v !== j.vb) {
-        jobs.push({ e: j.e, a: j.a, b: s, va: j.va, vb: v }, { e: j.e, a: s, b: j.b, va: v, vb: j.vb });
+      if (s && crystalOf(s) && v !== j.va && v !== j.vb) {
+        next.push({ e: j.e, a: j.a, b: s, va: j.va, vb: v }, { e: j.e, a: s, b: j.b, va: v, vb: j.vb });
       } else {
         put(j.e, (j.va + v) / 2, phaseName(j.a), phaseName(s), false);
         put(j.e, (v + j.vb) / 2, phaseName(s), phaseName(j.b), false);
       }
-    });
+    };
+    // each pass settles every check it can without a solve, then solves the probes; a
+    // pass removes at least one check (its probes), so checks.length + 1 passes suffice
+    let pending = checks;
+    for (let pass = 0; pending.length && pass <= checks.length; pass++) {
+      const open: Check[] = [];
+      for (const c of pending) {
+        if (st && st.lines.covers(c.line, c.t)) { confirmed(c); continue; }
+        const r = st ? lowerCrystal(st.models, [...st.known.values()].map((k) => k.c), c.s, c.omega, [c.A.key, c.B.key]) : null;
+        if (r && st) { refuted(c, st.known.get(r.key)?.s); continue; }
+        open.push(c);
+      }
+      let chosen: Check[];
+      if (st) {
+        const byLine = new Map<string, Check[]>();
+        for (const c of open) byLine.set(c.line, [...(byLine.get(c.line) ?? []), c]);
+        chosen = [];
+        for (const [key, cs] of byLine) for (const i of probes(cs.map((c) => c.t), st.lines.interval(key))) chosen.push(cs[i]);
+      } else {
+        chosen = open;
+      }
+      const got = await solveCold(chosen.map((c) => ({ p: c.p, seed: edgeSeed(plan.seed, c.j.e.edge, round), what: `boundary ${c.j.e.axis.name} = ${c.v}` })));
+      chosen.forEach((c, i) => {
+        const s = got[i].cold?.state;
+        if (s && s.grandPotential >= confirmFloor(c.omega)) {
+          st?.lines.confirm(c.line, c.t);
+          confirmed(c);
+        } else {
+          if (s) remember(st, s);
+          refuted(c, s);
+        }
+      });
+      const done = new Set(chosen);
+      pending = open.filter((c) => !done.has(c));
+    }
+    jobs = next;
   }
+  for (const j of jobs) put(j.e, (j.va + j.vb) / 2, phaseName(j.a), phaseName(j.b), false);
   return out;
 }
