@@ -15,12 +15,13 @@ export const fmt = (x: number | null | undefined, d = 6): string =>
   (x === null || x === undefined || !Number.isFinite(x) ? '\u2014' : Number(x.toPrecision(d)).toString());
 
 /**
- * "value \u00b1 error", the value to the error's second significant digit (at least 4
- * digits when the error is zero, as for a frozen chain).
+ * "value \u00b1 error", the value to the error's second significant digit (6 digits when
+ * the error is zero or at rounding level, as for a chain frozen in one configuration).
  */
 export function plusMinus(value: number, error: number): string {
   if (!Number.isFinite(value)) return '\u2014';
-  if (!(error > 0)) return `${fmt(value)} \u00b1 0`;
+  // an error at rounding level (a chain frozen in one configuration) is shown as none
+  if (!(error > 1e-12 * Math.max(1, Math.abs(value)))) return `${fmt(value)} \u00b1 0`;
   const digits = Math.max(1, Math.min(12, Math.floor(Math.log10(Math.abs(value) || error)) - Math.floor(Math.log10(error)) + 2));
   return `${fmt(value, digits)} \u00b1 ${fmt(error, 2)}`;
 }

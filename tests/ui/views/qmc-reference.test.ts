@@ -63,5 +63,6 @@ describe('plusMinus', () => {
     expect(plusMinus(0.398437, 0.005612)).toBe('0.3984 \u00b1 0.0056');
     expect(plusMinus(-12.34567, 0.21)).toBe('-12.35 \u00b1 0.21');
     expect(plusMinus(0.5, 0)).toBe('0.5 \u00b1 0');
+    expect(plusMinus(-0.297762064572, 6.3e-17)).toBe('-0.297762 \u00b1 0'); // rounding-level error of a frozen chain
   });
 });
