@@ -19,6 +19,7 @@ import { rampColour } from './sequential-ramp.ts';
 import { colourScale } from './colour-scale.ts';
 import { colourBar, colourBarHeight } from '../plot/colour-bar.ts';
 import { regionLabels } from './region-labels.ts';
+import { regionWord } from '../model/phase-words.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
 
 export type MapShade = 'phase' | 'rho' | 'photon';
@@ -36,6 +37,8 @@ export interface PhaseMapInput {
   selected?: [number, number] | null;
   /** Continuous colourings: the range asked for (ends left out: automatic, see colour-scale.ts) and a log scale. */
   colourRange?: { lo?: number; hi?: number };
+  /** Largest cell searched: region labels tell a locked filling from a pattern, and points whose best cell has this size are marked. */
+  maxCell?: number;
   log?: boolean;
   width: number;
   height: number;
@@ -108,7 +111,19 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
   const labels = regionLabels(g.nx, g.ny, key, (k) => k.startsWith('density-wave') || k.startsWith('supersolid'), minDepth);
   const cx = (i: number) => (g.nx > 1 ? g.x[0] + (i * (g.x[1] - g.x[0])) / (g.nx - 1) : g.x[0]);
   const cy = (j: number) => (g.ny > 1 ? g.y[0] + (j * (g.y[1] - g.y[0])) / (g.ny - 1) : g.y[0]);
-  marks.push(textLabels(labels.map((r) => ({ x: cx(r.ix), y: cy(r.iy), text: r.key.split(' ')[1] ?? '', size: 12 })), 'fraction-labels'));
+  const word = (r: { ix: number; iy: number; key: string }) => {
+    const s = at(r.ix, r.iy);
+    return o.maxCell !== undefined && s ? regionWord(s, o.maxCell) : r.key.split(' ')[1] ?? '';
+  };
+  marks.push(textLabels(labels.map((r) => ({ x: cx(r.ix), y: cy(r.iy), text: word(r), size: 12 })), 'fraction-labels'));
+  // points whose best pattern used the largest cell searched: may be artefacts of that limit
+  const atLimit: { x: number; y: number; r: number; fill: string; stroke: string; strokeWidth: number }[] = [];
+  if (o.maxCell !== undefined) {
+    for (let j = 0; j < g.ny; j++) for (let i = 0; i < g.nx; i++) {
+      if (at(i, j)?.cellSize === o.maxCell) atLimit.push({ x: cx(i), y: cy(j), r: 1.6, fill: '#000000', stroke: '#ffffff', strokeWidth: 0.6 });
+    }
+    if (atLimit.length) marks.push({ ...dots(atLimit), render: (f) => dots(atLimit).render(f).replace('class="dots"', 'class="dots at-limit"') });
+  }
   for (const l of o.lines) marks.push(line(l.x, l.y, { stroke: l.stroke, width: 2.2, dash: l.dash, halo: '#ffffff' }));
   if (o.selected) marks.push(dots([{ x: o.selected[0], y: o.selected[1], r: 6, fill: 'none', stroke: '#000000', strokeWidth: 2.5 }]));
   marks.push(axisX({ label: o.xLabel }), axisY({ label: o.yLabel }));
@@ -127,6 +142,7 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
       entries.push({ label: values.length ? end + Number(scale.at(t).toPrecision(3)) : '', swatch: { kind: 'fill', fill: rampColour((Math.min(LEVELS - 1, Math.floor(t * LEVELS)) + 0.5) / LEVELS) } });
     }
   }
+  if (atLimit.length) entries.push({ label: `M = Mmax = ${o.maxCell} (search limit)`, swatch: { kind: 'dot', fill: '#000000', stroke: '#ffffff' } });
   const seen = new Set<string>();
   for (const l of o.lines) {
     if (seen.has(l.label)) continue;

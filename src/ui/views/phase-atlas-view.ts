@@ -237,7 +237,7 @@ export class PhaseAtlasView extends LitElement {
       this.fig = phaseMapFigure({
         grid: { nx: g.nx, ny: g.ny, x: [g.plan.x.start, g.plan.x.stop], y: [g.plan.y.start, g.plan.y.stop] },
         stateAt: (i, j) => g.paint(i, j), xLabel: AXIS_LABELS[g.plan.x.name], yLabel: AXIS_LABELS[g.plan.y.name],
-        shade: this.section.shade as MapShade, lines, selected: sel, colourRange: crange ?? {}, log: this.section.clog === '1',
+        shade: this.section.shade as MapShade, lines, selected: sel, colourRange: crange ?? {}, log: this.section.clog === '1', maxCell: g.plan.base.maxCell,
         width: w, height: Math.round(Math.min(540, Math.max(300, w * 0.5))),
         title: `Phase map over ${AXIS_SYMBOLS[g.plan.x.name]} and ${AXIS_SYMBOLS[g.plan.y.name]}`,
       });
