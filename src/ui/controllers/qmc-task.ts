@@ -51,6 +51,17 @@ export class QmcTask implements ReactiveController {
     this.task.abort();
   }
 
+  /** True when the latest request was cancelled (its result is not the one shown). */
+  get cancelled(): boolean {
+    const t = this.task;
+    return t.status !== 'pending' && t.status !== 'error' && t.latestKey !== null && t.latestKey !== t.valueKey;
+  }
+
+  /** Run the latest request again (after a cancel). */
+  rerun(): void {
+    this.task.retry();
+  }
+
   get status() { return this.task.status; }
   get value() { return this.task.value; }
   get error() { return this.task.error; }

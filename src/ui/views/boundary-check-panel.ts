@@ -114,14 +114,19 @@ export class BoundaryCheckPanel extends LitElement {
     return v && this.req && this.check.task.valueKey === JSON.stringify(this.req) ? v : undefined;
   }
 
-  /** Mean-field phase changes along the line, from the map's computed points. */
+  /** True when the mean-field boundary was read from the map's coarse preview (the line's row not computed yet). */
+  private mfPreview = false;
+
+  /** Mean-field phase changes along the line, from the map's grid. */
   private meanFieldBoundaries(l: CheckLine): { at: number; halfWidth: number; from: string; to: string }[] {
     const g = this.grid;
     if (!g) return [];
     const along = l.along === 'x' ? g.plan.x : g.plan.y, other = l.along === 'x' ? g.plan.y : g.plan.x;
     const j = other.values.reduce((b, v, i) => (Math.abs(v - l.fixed) < Math.abs(other.values[b] - l.fixed) ? i : b), 0);
     const idx = along.values.map((v, i) => [v, i] as const).filter(([v]) => v >= l.start - 1e-12 && v <= l.stop + 1e-12);
-    const labels = idx.map(([, i]) => phaseKey(l.along === 'x' ? g.own(i, j) : g.own(j, i)) ?? undefined);
+    // what the map shows: a point's own state, or the nearest finished row's while the map fills
+    const labels = idx.map(([, i]) => phaseKey(l.along === 'x' ? g.paint(i, j) : g.paint(j, i)) ?? undefined);
+    this.mfPreview = idx.some(([, i]) => !(l.along === 'x' ? g.own(i, j) : g.own(j, i)));
     return labelChanges(idx.map(([v]) => v), labels);
   }
 
@@ -182,6 +187,7 @@ export class BoundaryCheckPanel extends LitElement {
         ${running || this.check.total ? html`<progress max="1" .value=${this.check.total ? this.check.done / this.check.total : 0} aria-label="QMC check progress"></progress>
           <span class="check-progress">${this.check.done} / ${this.check.total} runs</span>` : nothing}
         ${running ? html`<button class="cancel-check" @click=${() => this.check.cancel()}>Cancel</button>` : nothing}
+        ${!running && this.check.cancelled && this.req ? html`<span class="muted">cancelled</span> <button class="rerun-check" @click=${() => this.check.rerun()}>Run the check again</button>` : nothing}
       </div>
       ${r && l ? this.verdict(r, l, sym, mf) : nothing}
       ${l && (r || this.check.points.length) ? html`<figure-panel class="binder" .figure=${binderFigure({
@@ -195,8 +201,9 @@ export class BoundaryCheckPanel extends LitElement {
 
   private verdict(r: BoundaryCheckResult, l: CheckLine, sym: string, mf: { at: number; halfWidth: number; from: string; to: string }[]) {
     const failed = r.points.filter((p) => p.error !== undefined).length;
-    const mfText = mf.length ? `mean field: ${mf.map((b) => `${sym} = ${fmt(b.at)} \u00b1 ${fmt(b.halfWidth, 2)} (${b.from} \u2192 ${b.to}, map grid)`).join('; ')}`
-      : 'mean field: no boundary on this line in the map';
+    const grid = this.mfPreview ? 'the map\u2019s coarse preview: the map is still running' : 'map grid';
+    const mfText = mf.length ? `mean field: ${mf.map((b) => `${sym} = ${fmt(b.at)} \u00b1 ${fmt(b.halfWidth, 2)} (${b.from} \u2192 ${b.to}, ${grid})`).join('; ')}`
+      : `mean field: no boundary on this line (${grid})`;
     if (!r.crossings.length) {
       return html`<p class="verdict no-crossing" role="status"><strong>No Binder crossing on this line:</strong> QMC finds no transition between
         ${sym} = ${fmt(l.start)} and ${fmt(l.stop)} for these sizes (the curves do not cross; ${mfText}). Widen the line, or add sweeps if the curves are noisy.

@@ -171,6 +171,9 @@ export class CorrelatedView extends LitElement {
       this.problem = key;
       this.trace = [];
     }
+    // the other methods' runs stop when the method changes (they share the scan workers)
+    if (job.method !== 'qmc' && this.qmc.status === 'pending') this.qmc.cancel();
+    if (job.method === 'qmc' && this.task.status === 'pending') this.task.abort();
     if (job.method === 'qmc') this.qmc.run(qmcRequest(job));
     else this.task.run(key, (signal) => (job.method === 'ed'
       ? this.engine.call((r) => r.correlated.ed({ cluster: job.cluster, mu: job.mu, alpha: job.alpha, delta: job.delta }), signal).then((r) => ({ kind: 'ed' as const, r }))
@@ -277,7 +280,8 @@ export class CorrelatedView extends LitElement {
         ${s.method === 'vmc' ? html`${this.field('seed', 'Seed')} ${this.field('steps', 'SR steps')} ${this.field('samples', 'Samples (sweeps)')}` : nothing}
         ${isQmc ? this.qmcFields() : nothing}
         <div aria-live="polite" class="run-status">${status === 'pending' ? html`<span class="running">running\u2026${isQmc ? ' ' + qmcProgressText(this.qmc.progress) : ''}</span>
-          <button class="cancel" @click=${() => (isQmc ? this.qmc.cancel() : this.task.abort())}>Cancel</button>` : nothing}</div>
+          <button class="cancel" @click=${() => (isQmc ? this.qmc.cancel() : this.task.abort())}>Cancel</button>`
+          : isQmc && this.qmc.cancelled ? html`<span class="muted">QMC run cancelled</span> <button class="rerun" @click=${() => this.qmc.rerun()}>Run QMC</button>` : nothing}</div>
       </div>
       <p class="muted trust">Which to trust: quantum Monte Carlo (stochastic series expansion) samples the cluster without bias at any T;
         its error bars are statistical only, so it is the reference. ED is exact but limited to 20 sites at T = 0; VMC is a variational
