@@ -73,7 +73,9 @@ describe('mean-field scan in the worker pool', () => {
     const ac = new AbortController();
     const done: number[] = [];
     const big: ScanPlan = { ...plan, x: parseAxis('mu=-1:2.5:200', 'x') };
-    const run = runScan(pools[1], { kind: 'map', plan: big }, {
+    // The dense path delivers points segment by segment (the adaptive map hands out a band of
+    // rows at once, so its points arrive together: its cancellation is checked below).
+    const run = runScan(pools[1], { kind: 'map', plan: big, dense: true }, {
       signal: ac.signal,
       onItem: (p) => {
         done.push(p.index);
@@ -88,11 +90,25 @@ describe('mean-field scan in the worker pool', () => {
     expect(again.points.length).toBe(3);
   });
 
+  it('cancels an adaptive map between its solves with an AbortError', async () => {
+    const ac = new AbortController();
+    let reports = 0;
+    const big: ScanPlan = { ...plan, x: parseAxis('mu=-1:2.5:200', 'x') };
+    const run = runScan(pools[1], { kind: 'map', plan: big }, {
+      signal: ac.signal,
+      onProgress: () => { if (++reports === 3) ac.abort(); },
+    });
+    await expect(run).rejects.toMatchObject({ name: 'AbortError' });
+    const again = await runScan(pools[1], { kind: 'map', plan: { ...plan, y: undefined, x: parseAxis('mu=0:1:3', 'x') } });
+    expect(again.points.length).toBe(3);
+  });
+
   it('the spread order hands out rows coarse to fine and changes no answer', async () => {
     const tall: ScanPlan = { ...plan, x: parseAxis('mu=-1:2.5:6', 'x'), y: parseAxis('rb=1:1.4:9', 'y') };
     const order: number[] = [];
-    const spread = await runScan(pools[0], { kind: 'map', plan: tall, order: 'spread' }, { onItem: (p) => order.push(p.iy) });
-    const rows = await runScan(pools[0], { kind: 'map', plan: tall });
+    // (the dense path: the adaptive map spreads bands of 16 rows, and this map is one band)
+    const spread = await runScan(pools[0], { kind: 'map', plan: tall, order: 'spread', dense: true }, { onItem: (p) => order.push(p.iy) });
+    const rows = await runScan(pools[0], { kind: 'map', plan: tall, dense: true });
     expect(spread.points).toEqual(rows.points);
     // one worker takes the segments in order: first and last row, then stride 8, 4, 2, 1
     expect([...new Set(order)]).toEqual([0, 8, 4, 2, 6, 1, 3, 5, 7]);
