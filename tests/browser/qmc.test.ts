@@ -9,6 +9,8 @@
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import type { Page } from 'playwright-core';
 import { join } from 'node:path';
+import { mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
 import { buildApp, OUTPUT } from './harness/build-app.ts';
 import { serveStatic, type StaticServer } from './harness/static-server.ts';
 import { launchChromium, type Browser } from './harness/launch-chromium.ts';
@@ -83,6 +85,34 @@ describe('QMC in the correlated check', () => {
     expectRel(mine.density.value, cli.density.value, 1e-12);
     expectRel(mine.alpha.value + 1, cli.alpha.value + 1, 1e-12);
     await screenshot(page, 'correlated-qmc');
+  });
+});
+
+describe('QMC on an uploaded array', () => {
+  it('runs on a CSV array and shades each site by its own <n_i> with an error', async () => {
+    // an invented 5-site open chain with one site pushed close to its neighbour (units of a)
+    const dir = await mkdtemp(join(tmpdir(), 'atlas-qmc-sites-'));
+    const csv = join(dir, 'five.csv');
+    await writeFile(csv, 'x,y\n0,0\n1,0\n2,0\n2.8,0\n4,0\n');
+    await open('?view=correlated&lattice=chain&interaction=nn&strength=v1&v1=1&mu=0.5&detuning=2'
+      + '&correlated.method=qmc&correlated.cluster=array&correlated.alpha=0.2&correlated.temperature=0.5&correlated.sweeps=256&correlated.chains=2');
+    await page.locator('correlated-view input[type="file"]').setInputFiles(csv);
+    await page.locator('correlated-view[data-status="complete"][data-method="qmc"]').waitFor({ state: 'attached', timeout: 60_000 });
+    const { text } = await download(page, () => page.locator('correlated-view data-export button', { hasText: 'JSON' }).click());
+    const r = JSON.parse(text);
+    expect(r.sites).toBe(5);
+    expect(r.clusterKind).toBe('array');
+    expect(r.siteDensities.length).toBe(5);
+    for (const d of r.siteDensities) { expect(d.value).toBeGreaterThan(0); expect(d.value).toBeLessThan(1); expect(d.error).toBeGreaterThan(0); }
+    // the site densities average to the density within its error (3 sigma: Monte Carlo; the two
+    // are different estimators of the same samples, so they need not agree to rounding)
+    const mean = r.siteDensities.reduce((a: number, d: { value: number }) => a + d.value, 0) / 5;
+    expect(Math.abs(mean - r.density.value)).toBeLessThan(3 * r.density.error);
+    // each site drawn with its own density in its tooltip
+    const titles = await page.locator('correlated-view figure-panel.cluster svg circle title').allTextContents();
+    expect(titles.length).toBe(5);
+    titles.forEach((t, i) => expect(t).toContain(`<n> = ${r.siteDensities[i].value.toFixed(4)}`));
+    await rm(dir, { recursive: true, force: true });
   });
 });
 
