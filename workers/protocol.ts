@@ -117,6 +117,11 @@ export interface MapScanRequest {
    * streams a big map a window of segments at a time and resumes a part where it stopped.
    */
   segments?: Segment[];
+  /**
+   * Only the rows from this one on (a resumed CLI map; segments then unused). The adaptive
+   * map takes whole rows, so a resumed map stays adaptive.
+   */
+  fromRow?: number;
 }
 
 /** The points of a map scan, ordered by index (failed points carry their error). */

@@ -8,6 +8,9 @@
  * computes only the missing points: a segment cut in the middle is computed again from its
  * start (continuation makes a point depend on the points before it in its segment) and its
  * points already written are dropped, so the file is byte for byte the uninterrupted one.
+ * The adaptive map (map-adaptive.ts; not a shard, not --dense) is one scan over whole rows
+ * instead of windows: it hands back a band of 16 rows at a time in point order, and its
+ * figures and boundary lines close the JSON (map-summary.ts) and go to --boundaries.
  */
 import type { ScanPlan, ScanPoint } from '../core/scan/grid.ts';
 import type { Shard } from '../core/scan/shards.ts';
@@ -18,6 +21,9 @@ import { interruptible, type CliIo } from './io.ts';
 import { mapLayout, type MapFormat } from './map-layout.ts';
 import { Progress } from './progress.ts';
 import { readBack } from './resume.ts';
+import { mapSummary, runAdaptiveRows, type MapMode } from './map-adaptive.ts';
+import { boundariesCsv, solvesText, summaryJson } from './map-summary.ts';
+import type { MapScanResult } from '../../workers/protocol.ts';
 import { pointBudgetMs, workerCount } from './scan-run.ts';
 import { PointCursor, ShardSegments } from './shard-cursor.ts';
 import type { OutputTarget } from './stream-writer.ts';
@@ -45,6 +51,10 @@ export interface MapJob {
   format: MapFormat;
   continuation: boolean;
   label: string;
+  /** Adaptive or dense, and why (map-adaptive.ts); its notes go to stderr and the JSON summary. */
+  mode: MapMode;
+  /** --boundaries: the file the boundary lines are written to (CSV) when the map completes. */
+  boundaries?: string;
 }
 
 /** Run the map (or its shard) into `target`, continuing what is there when it holds a part. */
@@ -65,12 +75,26 @@ export async function streamMap(io: CliIo, a: ParsedArgs, job: MapJob, target: O
   const resumed = rows;
   const total = segs.points;
   const progress = new Progress(io, job.label, total);
-  if (cursor.done) {
+  for (const n of job.mode.notes) io.stderr(`${job.label}: note: ${n}\n`);
+  // the JSON summary of an unsharded map (a shard's part keeps the bare closing line merge reads)
+  const summarise = (result: MapScanResult | null, computed: number, fromRow: number) => {
+    const sum = mapSummary(job.mode, result, computed, fromRow);
+    if (layout.format === 'json' && !job.shard) target.write(summaryJson(sum));
+    if (job.boundaries) io.writeText(job.boundaries, boundariesCsv(job.plan, sum.boundaries ?? []));
+    return sum;
+  };
+  // an adaptive map whose summary is written (JSON, --boundaries) is computed again from its
+  // first row when resumed, rows already on disk dropped, so its lines and figures are the
+  // uninterrupted run's (and the file its bytes); a CSV alone continues from its row
+  const whole = job.mode.adaptive && (layout.format === 'json' || job.boundaries !== undefined);
+  if (whole && resumed > 0) io.stderr(`${job.label}: note: resuming an adaptive map with its boundary lines: the ${resumed} points on disk are computed again (not written again) so that the lines and solves cover the whole map\n`);
+  if (cursor.done && !whole) {
+    summarise(null, total, 0);
     target.write(layout.tail(true));
     progress.finish(rows, resumed ? ', all read back from the part (nothing left to compute)' : '');
     return { written: rows, resumed, total, complete: true };
   }
-  const left = segs.count - cursor.j;
+  const left = whole ? segs.count : segs.count - cursor.j;
   const workers = workerCount(a, io, left);
   const window = Math.max(MIN_WINDOW, WINDOW_PER_WORKER * workers);
   const budget = pointBudgetMs(a);
@@ -92,7 +116,14 @@ export async function streamMap(io: CliIo, a: ParsedArgs, job: MapJob, target: O
     // progress counts the rows written (what an interruption keeps), not those waiting
     if (rows > 0) progress.update(rows);
   };
+  const fromRow = whole ? 0 : cursor.point?.iy ?? 0;
+  let adaptive: MapScanResult | null = null;
   const run = await interruptible(io, workers, async (pool, signal) => {
+    if (job.mode.adaptive) {
+      // one scan over whole rows: it hands back a band of rows at a time in point order
+      adaptive = await runAdaptiveRows(pool, job.plan, fromRow, job.continuation, { signal, pointBudgetMs: budget, onItem: accept });
+      return;
+    }
     const stop = new AbortController();
     const onAbort = () => stop.abort(signal.reason);
     if (signal.aborted) onAbort();
@@ -117,8 +148,9 @@ export async function streamMap(io: CliIo, a: ParsedArgs, job: MapJob, target: O
       signal.removeEventListener('abort', onAbort);
     }
   });
+  const sum = run.complete ? summarise(adaptive, total, fromRow) : null;
   target.write(layout.tail(run.complete));
-  const w = ` on ${workers} worker${workers === 1 ? '' : 's'}`;
+  const w = ` on ${workers} worker${workers === 1 ? '' : 's'}${sum ? `; ${solvesText(sum, total)}` : ''}`;
   progress.finish(rows, `${w}${resumed ? ` (${resumed} read back)` : ''}${failed ? `, ${failed} point${failed === 1 ? '' : 's'} failed (see the error column)` : ''}${run.complete ? '' : ', interrupted'}`);
   return { written: rows, resumed, total, complete: run.complete };
 }

@@ -66,7 +66,7 @@ describe('map', () => {
     expect(lines.length).toBe(1 + 9 * 2);
     for (const l of lines.slice(1)) expect(l.split(',').length).toBe(head.length);
     expect(lines[1].split(',').slice(0, 4).map(Number)).toEqual([0, 0, -1, 1]);
-    expect(r.err).toMatch(/^map: 18 of 18 points in .* on 2 workers\n$/);
+    expect(r.err).toMatch(/^map: 18 of 18 points in .* on 2 workers; \d+ points solved for 18 pixels \(\d+ for the pixels, \d+ confirming boundaries\)\n$/);
   });
 
   it('writes JSON with the axes and one object a point', async () => {

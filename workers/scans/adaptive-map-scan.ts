@@ -32,6 +32,7 @@ import type { Engine } from '../engine.ts';
 import type { WorkerPool } from '../pool.ts';
 import type { ColdOutcome, MapScanRequest, MapScanResult, ScanOptions } from '../protocol.ts';
 import { DEFAULT_POINT_BUDGET_MS, runMapScan } from './map-scan.ts';
+import { shardSegments } from '../../src/core/scan/shards.ts';
 
 /** Cold points per worker task (small: the refinement levels are short). */
 const COLD_TASK = 4;
@@ -40,8 +41,10 @@ const COLD_TASK = 4;
 export async function runMap(pool: WorkerPool<Engine>, req: MapScanRequest, o: ScanOptions<ScanPoint> = {}): Promise<MapScanResult> {
   const { nx, ny } = gridShape(req.plan);
   const dense = async (note?: string): Promise<MapScanResult> => {
-    const r = await runMapScan(pool, req, o);
-    const solved = req.segments ? req.segments.reduce((a, s) => a + s.length, 0) : req.shard ? r.points.length : nx * ny;
+    const from = req.fromRow;
+    const q = from !== undefined && !req.segments ? { ...req, segments: shardSegments(nx, ny, req.shard).filter((s) => s.iy >= from) } : req;
+    const r = await runMapScan(pool, q, o);
+    const solved = q.segments ? q.segments.reduce((a, s) => a + s.length, 0) : req.shard ? r.points.length : nx * ny;
     return { ...r, solves: solved, ...(note ? { notes: [note] } : {}) };
   };
   if (req.dense) return dense();
@@ -52,6 +55,9 @@ export async function runMap(pool: WorkerPool<Engine>, req: MapScanRequest, o: S
     for (const s of req.segments) count.set(s.iy, (count.get(s.iy) ?? 0) + s.length);
     if ([...count.values()].some((c) => c !== nx)) return dense('the segments asked for are not whole rows: solved densely (same pixels)');
     rows = [...count.keys()].sort((a, b) => a - b);
+  } else if (req.fromRow !== undefined) {
+    const from = Math.max(0, Math.min(ny, req.fromRow));
+    rows = Array.from({ length: ny - from }, (_, i) => from + i);
   }
   const blocker = certificationBlocker(req.plan);
   if (blocker) return dense(blocker);

@@ -16,13 +16,16 @@ import { streamMap } from '../map-stream.ts';
 import { SCAN_FLAGS, validatePlan } from '../scan-run.ts';
 import { OUTPUT_FLAGS } from './solve.ts';
 import { OUT_FLAG, RESUME_FLAG, streamOutput } from './output.ts';
+import { mapMode } from '../map-adaptive.ts';
 
 const AXIS_HELP = 'rb, v1, mu, density, detuning or temperature';
 
 const MAP_FLAGS: readonly FlagSpec[] = [
   { name: 'x', kind: 'string', value: 'name=start:stop:count', help: `first axis (${AXIS_HELP}); continuation runs along it` },
   { name: 'y', kind: 'string', value: 'name=start:stop:count', help: 'second axis (optional: one row)' },
-  { name: 'shard', kind: 'string', value: 'k/n', help: 'compute only the k-th of n interleaved parts (join them with merge)' },
+  { name: 'shard', kind: 'string', value: 'k/n', help: 'compute only the k-th of n interleaved parts (join them with merge); a shard is solved densely' },
+  { name: 'dense', kind: 'bool', help: 'solve every pixel (the check of the adaptive map: same pixels, more solves, no boundary lines)' },
+  { name: 'boundaries', kind: 'string', value: 'file', help: 'write the boundary lines as CSV (one row a vertex: line, vertex, phase_a, phase_b, firstOrder, densityJump, axis values)', writes: true },
   OUT_FLAG,
   RESUME_FLAG,
 ];
@@ -37,7 +40,9 @@ export const mapCommand: Command = {
   description:
     'Solves the mean-field ground state at every point of a grid over one or two parameters\n' +
     `(${AXIS_HELP}; evenly spaced, start and stop included)\n` +
-    'in a pool of worker threads. Prints CSV with a header naming every column, one row a point\n' +
+    'in a pool of worker threads: the adaptive map by default (regions whose corners are one crystal\n' +
+    'are certified and filled exactly as a dense solve prints them, boundaries between crystals\n' +
+    'located in closed form; docs/certified-maps.md), every pixel with --dense. Prints CSV with a header naming every column, one row a point\n' +
     '(ix, iy, the axis values, then the state), or JSON with --json. The model flags fix\n' +
     'everything the axes do not.\n' +
     'For a cluster: run each of n parts with --shard k/n (k = 1..n) as one job of a job array,\n' +
@@ -45,10 +50,14 @@ export const mapCommand: Command = {
     'point order. Ctrl-C or SIGTERM writes the finished points; --resume continues such a part (or\n' +
     'one killed outright) and computes only what is missing.\n' +
     'A point that cannot be solved (or runs past --point-budget) is written with its reason in the\n' +
-    'error column (empty for solved points) and the other points are still computed.',
+    'error column (empty for solved points) and the other points are still computed.\n' +
+    'JSON ends with solves (points really solved: total, pixels, boundaries), notes (why a map\n' +
+    'is not adaptive: --dense, a shard, T > 0, a temperature or density axis) and the boundary\n' +
+    'lines {phases, points, firstOrder, densityJump}; --boundaries file writes the lines as CSV.',
   flags: [...MAP_FLAGS, ...MODEL_FLAGS, ...SCAN_FLAGS, ...OUTPUT_FLAGS, HELP_FLAG],
   examples: [
     'map --x mu=-1:2.5:200 --y rb=1:2:100 --detuning 3 --out map.csv',
+    'map --x mu=-1:3.9:200 --y rb=1:2.5:200 --detuning 4 --json --boundaries lines.csv --out map.json',
     'map --x mu=-1:2.5:200 --y temperature=0:0.5:50 --interaction nn --v1 2 --detuning 3 --json',
     'map --x mu=-1:2.5:400 --y rb=1:2:400 --detuning 3 --shard 3/16 --out part-3.csv',
     'map --x mu=-1:2.5:400 --y rb=1:2:400 --detuning 3 --shard 3/16 --out part-3.csv --resume',
@@ -70,7 +79,13 @@ export const mapCommand: Command = {
     validatePlan(plan);
     const header = mapHeader(plan, shard ? { ...shard, scan: scanFingerprint(plan), nx, ny } : null);
     // rows are written as they finish, in point order; --resume continues a part (map-stream.ts)
-    const job = { plan, shard, header, format: bool(args, 'json') ? 'json' as const : 'csv' as const, continuation: !bool(args, 'cold'), label: shard ? `map ${shard.k}/${shard.n}` : 'map' };
+    const mode = mapMode(plan, shard, bool(args, 'dense'));
+    const boundaries = str(args, 'boundaries');
+    if (boundaries && !mode.adaptive) throw new InputError(`--boundaries: this map locates no boundary lines (${mode.notes[0]})`, 'boundaries');
+    const job = {
+      plan, shard, header, format: bool(args, 'json') ? 'json' as const : 'csv' as const, continuation: !bool(args, 'cold'),
+      label: shard ? `map ${shard.k}/${shard.n}` : 'map', mode, ...(boundaries ? { boundaries } : {}),
+    };
     return streamOutput(io, args, (target) => streamMap(io, args, job, target));
   },
 };

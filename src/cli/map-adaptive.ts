@@ -1,0 +1,61 @@
+/**
+ * How the CLI's `map` is computed: the adaptive map (workers/scans/adaptive-map-scan.ts,
+ * docs/certified-maps.md) as one scan over whole rows from the first row not yet written
+ * (it delivers a band of rows at a time in point order, so the writer streams it), or the
+ * dense scan in windows of segments (map-stream.ts) when asked (--dense), for a shard
+ * (shards interleave segments, not bands: a shard is solved densely, same pixels), or for a
+ * plan the argument does not cover (T > 0, a temperature or density axis). The reason is a
+ * note for stderr and the JSON summary (map-summary.ts).
+ */
+import { certificationBlocker } from '../core/scan/affine-axes.ts';
+import type { ScanPlan, ScanPoint } from '../core/scan/grid.ts';
+import type { Shard } from '../core/scan/shards.ts';
+import type { Engine } from '../../workers/engine.ts';
+import type { WorkerPool } from '../../workers/pool.ts';
+import type { MapScanResult } from '../../workers/protocol.ts';
+import { runScan } from '../../workers/scan-driver.ts';
+import type { MapSummary } from './map-summary.ts';
+
+/** The note of a sharded map. */
+export const SHARD_NOTE = 'a shard is solved densely (shards interleave row segments, the adaptive map works in bands of 16 rows): same pixels, every pixel solved, no boundary lines; run the map unsharded for those';
+
+/** The note of --dense. */
+export const DENSE_NOTE = 'solved densely on request (--dense): every pixel solved, no boundary lines';
+
+/** How a map run goes: adaptive or dense, and why not adaptive. */
+export interface MapMode {
+  adaptive: boolean;
+  /** Why the map is dense (empty when adaptive). */
+  notes: string[];
+}
+
+/** The mode of a map: adaptive unless --dense, a shard or a plan that cannot be certified. */
+export function mapMode(plan: ScanPlan, shard: Shard | undefined, dense: boolean): MapMode {
+  if (dense) return { adaptive: false, notes: [DENSE_NOTE] };
+  if (shard) return { adaptive: false, notes: [SHARD_NOTE] };
+  const blocker = certificationBlocker(plan);
+  return blocker ? { adaptive: false, notes: [blocker] } : { adaptive: true, notes: [] };
+}
+
+/** Run the adaptive map from row fromRow on, points to onItem in point order (keepPoints false). */
+export function runAdaptiveRows(
+  pool: WorkerPool<Engine>, plan: ScanPlan, fromRow: number, continuation: boolean,
+  o: { signal: AbortSignal; pointBudgetMs?: number; onItem: (pt: ScanPoint) => void },
+): Promise<MapScanResult> {
+  return runScan(pool, { kind: 'map', plan, fromRow, continuation }, { ...o, keepPoints: false });
+}
+
+/**
+ * The summary of a run: the adaptive scan's figures and lines, or (dense) every computed
+ * point solved and no lines. `fromRow` > 0: a resumed map, whose figures and lines cover
+ * only the rows computed after resuming (a note says so).
+ */
+export function mapSummary(mode: MapMode, result: MapScanResult | null, computed: number, fromRow: number): MapSummary {
+  const notes = [...mode.notes, ...(result?.notes ?? [])];
+  if (fromRow > 0) notes.push(`resumed at row ${fromRow}: solves and boundary lines count only the rows computed after resuming`);
+  if (!mode.adaptive || !result) {
+    return { solves: { total: computed, pixels: computed, boundaries: 0 }, notes, boundaries: null };
+  }
+  const total = result.solves ?? computed, b = result.boundarySolves ?? 0;
+  return { solves: { total, pixels: total - b, boundaries: b }, notes, boundaries: result.boundaries ?? [] };
+}
