@@ -117,32 +117,38 @@ describe('QMC on an uploaded array', () => {
 });
 
 describe('check this boundary', () => {
-  it('picks a line on the map with two clicks, runs the QMC line scan and draws the Binder crossing on the map', async () => {
+  it('picks a line on the map (arrow keys and Enter, then a click), runs the QMC line scan and draws the Binder crossing on the map', async () => {
     // square lattice, nearest neighbours V1 = 1, half filling mu = 2 V1, cavity far detuned (alpha = 0):
     // the classical Ising point; mean field puts the density-wave melting at T = z V1 / 4 = 1, the exact
     // value is Onsager's 0.567 (Onsager 1944). A tiny map over T and mu, and a line along T at mu = 2.
     await open('?view=atlas&lattice=square&interaction=nn&strength=v1&v1=1&v2=0&detuning=10&mu=2&temperature=0.5&max-cell=2'
-      + '&atlas.x=temperature=0.2:1.4:7&atlas.y=mu=1.5:2.5:3&atlas.lines=&atlas.sizes=4,6&atlas.cpoints=6&atlas.csweeps=400');
+      + '&atlas.x=temperature=0.2:1.4:7&atlas.y=mu=1.5:2.5:3&atlas.lines=&atlas.sizes=4,8&atlas.cpoints=6&atlas.csweeps=400');
     await page.locator('phase-atlas-view[data-scan="done"]').waitFor({ state: 'attached', timeout: 60_000 });
     await page.locator('boundary-check-panel button.pick').click();
     const click = async (x: number, y: number) => {
       const p = await pointAt(page, 'figure-panel.map', x, y);
       await page.mouse.click(p.x, p.y);
     };
-    await click(0.3, 2.0);
+    // the first end from the keyboard: the map's key cursor starts at the centre of the plot
+    // (T = 0.8, mu = 2.0) and moves by one grid step (0.2 in T) per arrow; Enter picks
+    await page.locator('figure-panel.map .host').focus();
+    await page.keyboard.press('ArrowLeft');
+    await page.keyboard.press('ArrowLeft');
+    await page.keyboard.press('Enter');
     await expect.poll(() => page.locator('figure-panel.map svg .boundary-check circle').count()).toBe(1);
+    // the second with the mouse
     await click(1.2, 2.0);
     const ends = await page.locator('boundary-check-panel input[name="atlas-check"]').inputValue();
     const [[x0, y0], [x1, y1]] = ends.split(';').map((p) => p.split(',').map(Number));
-    // the clicks land within a pixel of the data points (the plot is ~900 px wide for 1.4 units of T)
-    expect(Math.abs(x0 - 0.3)).toBeLessThan(0.01);
+    // the key cursor's end is exact; the click lands within a pixel of its data point (~900 px for 1.4 units of T)
+    expect(x0).toBe(0.4);
+    expect(y0).toBe(2);
     expect(Math.abs(x1 - 1.2)).toBeLessThan(0.01);
-    expect(Math.abs(y0 - 2)).toBeLessThan(0.02);
     expect(Math.abs(y1 - 2)).toBeLessThan(0.02);
     await page.locator('boundary-check-panel[data-status="complete"]').waitFor({ state: 'attached', timeout: 60_000 });
     const n = Number(await page.locator('boundary-check-panel').getAttribute('data-crossings'));
     expect(n).toBeGreaterThanOrEqual(1);
-    // every crossing is drawn on the map, on the line (mu held at the first click's value), inside its ends
+    // every crossing is drawn on the map, on the line (mu held at the first end's value), inside its ends
     const markers = page.locator('figure-panel.map svg .boundary-check .crossing-marker');
     expect(await markers.count()).toBe(n);
     const at = await markers.evaluateAll((ms) => ms.map((m) => [Number(m.getAttribute('data-x')), Number(m.getAttribute('data-y'))]));
@@ -151,7 +157,7 @@ describe('check this boundary', () => {
       expect(x).toBeLessThan(x1);
       expect(y).toBe(y0);
     }
-    // the Binder figure: one point with an error bar per run (2 sizes x 6 points)
+    // the Binder figure: one point with an error bar per run (2 sizes x 6 points from T = 0.4 to 1.2)
     expect(await page.locator('boundary-check-panel figure-panel.binder svg .error-bars circle').count()).toBe(12);
     // mean field: the order vanishes continuously at T_c = z V1/4 = 1, so the map's T = 0.8 is ordered
     // and T = 1.0 already normal: the boundary read off the grid is 0.9 +- 0.1
