@@ -16,6 +16,11 @@ import { fileOutput, type OutputTarget } from './stream-writer.ts';
 
 export interface CliIo {
   stdout(text: string): void;
+  /**
+   * Resolves once stdout has passed on what was queued ('drain'; at once when nothing is
+   * queued, or stdout closed). Absent: stdout never pushes back.
+   */
+  stdoutDrained?(): Promise<void>;
   stderr(text: string): void;
   /** Is stderr a terminal (progress bar) and how wide. */
   stderrIsTTY: boolean;
@@ -160,10 +165,27 @@ function progressInterval(v: string | undefined): number | undefined {
   return Number.isFinite(s) && s >= 0 ? s : undefined;
 }
 
+/** Resolves when `stream` has no queued writes beyond its high-water mark (or is closed or broken). */
+export function drained(stream: NodeJS.WritableStream & { writableNeedDrain?: boolean; destroyed?: boolean }): Promise<void> {
+  if (!stream.writableNeedDrain || stream.destroyed) return Promise.resolve();
+  return new Promise((resolve) => {
+    const done = () => {
+      stream.off('drain', done);
+      stream.off('close', done);
+      stream.off('error', done);
+      resolve();
+    };
+    stream.on('drain', done);
+    stream.on('close', done);
+    stream.on('error', done);
+  });
+}
+
 /** The real process: stdout, stderr, files, worker threads, SIGINT. */
 export function nodeIo(interrupt: AbortSignal, catchInterrupts: (on: boolean) => void): CliIo {
   return {
     stdout: (t) => void process.stdout.write(t),
+    stdoutDrained: () => drained(process.stdout),
     stderr: (t) => void process.stderr.write(t),
     stderrIsTTY: Boolean(process.stderr.isTTY),
     stderrColumns: process.stderr.columns || 80,

@@ -164,8 +164,15 @@ function expectEnd(p: Part): void {
   }
 }
 
-/** Join the parts (their line readers, named by source) into `target`. */
-export function mergeParts(inputs: { source: string; open: () => LineReader }[], target: OutputTarget): { rows: number } {
+/** Rows written between two waits for the output (stdout drained): what may queue in memory. */
+const ROWS_PER_WAIT = 512;
+
+/**
+ * Join the parts (their line readers, named by source) into `target`; every
+ * ROWS_PER_WAIT rows it waits until the output is ready, so a slow reader of stdout
+ * slows the merge instead of queueing the map in memory.
+ */
+export async function mergeParts(inputs: { source: string; open: () => LineReader }[], target: OutputTarget): Promise<{ rows: number }> {
   if (inputs.length === 0) throw refuse('merge needs the output files of the shards');
   const parts: Part[] = [];
   try {
@@ -184,6 +191,7 @@ export function mergeParts(inputs: { source: string; open: () => LineReader }[],
         const text = nextRow(part, seg.ix0 + i, seg.iy);
         target.write((parts[0].format === 'json' && rows > 0 ? ',' : '') + text + '\n');
         rows++;
+        if (rows % ROWS_PER_WAIT === 0) await target.ready();
       }
     }
     for (const p of parts) expectEnd(p);

@@ -33,29 +33,47 @@ function field(v: number | string | null | undefined): string {
   return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 
-/** The CSV: a '# ...' line naming the shard when sharded, the header, one row a point. */
-export function qmcScanCsv(req: QmcScanRequest, points: readonly QmcScanPoint[]): string {
+/** The CSV head: a '# ...' line naming the shard when sharded, then the column names (ends with a line end). */
+export function qmcScanCsvHead(req: QmcScanRequest): string {
   const head = ['index', 'size', axisColumn(req.axis.name), ...OBSERVABLES.flatMap((o) => [o, `${o}Error`]), 'phase', 'error'];
-  const rows = points.map((p) => {
-    const s = pointSummary(p);
-    return [p.index, p.size, p.value, ...OBSERVABLES.flatMap((o) => [s[o]?.value, s[o]?.error]), p.result?.phase, p.error].map(field).join(',');
-  });
-  const tag = req.shard ? [`# blockade-atlas qmc-scan shard=${req.shard.k}/${req.shard.n} points=${req.sizes.length * req.axis.values.length}`] : [];
-  return [...tag, head.join(','), ...rows].join('\n') + '\n';
+  const tag = req.shard ? `# blockade-atlas qmc-scan shard=${req.shard.k}/${req.shard.n} points=${req.sizes.length * req.axis.values.length}\n` : '';
+  return tag + head.join(',') + '\n';
 }
 
-/** The JSON document. */
-export function qmcScanJson(req: QmcScanRequest, points: readonly QmcScanPoint[], crossings: BinderCrossing[], complete: boolean): string {
+/** One point's CSV row (no line end). */
+export function qmcScanCsvRow(p: QmcScanPoint): string {
+  const s = pointSummary(p);
+  return [p.index, p.size, p.value, ...OBSERVABLES.flatMap((o) => [s[o]?.value, s[o]?.error]), p.result?.phase, p.error].map(field).join(',');
+}
+
+/** The CSV: head, then one row a point. */
+export function qmcScanCsv(req: QmcScanRequest, points: readonly QmcScanPoint[]): string {
+  return qmcScanCsvHead(req) + points.map((p) => qmcScanCsvRow(p) + '\n').join('');
+}
+
+/** The fields of the JSON document before its points (the scan's identity, checked by --resume). */
+export function qmcScanJsonFields(req: QmcScanRequest): Record<string, unknown> {
   const { cluster, ...run } = req.base;
-  return JSON.stringify({
-    axis: req.axis, sizes: req.sizes, shard: req.shard ?? null, complete,
-    params: { lattice: cluster.lattice, interaction: cluster.interaction, ...run },
-    points: points.map((p) => ({
-      index: p.index, size: p.size, ix: p.ix, value: p.value, ...pointSummary(p), phase: p.result?.phase ?? null,
-      orderMomentum: p.result?.orderParameter?.m ?? null, notes: p.result?.notes ?? [], ...(p.error !== undefined ? { error: p.error } : {}),
-    })),
-    crossings: crossings.map((c) => ({ sizes: c.sizes, at: c.at, error: c.error, between: c.between })),
-  }) + '\n';
+  return { axis: req.axis, sizes: req.sizes, shard: req.shard ?? null, params: { lattice: cluster.lattice, interaction: cluster.interaction, ...run } };
+}
+
+/** One point of the JSON document. */
+export function qmcScanJsonPoint(p: QmcScanPoint): Record<string, unknown> {
+  return {
+    index: p.index, size: p.size, ix: p.ix, value: p.value, ...pointSummary(p), phase: p.result?.phase ?? null,
+    orderMomentum: p.result?.orderParameter?.m ?? null, notes: p.result?.notes ?? [], ...(p.error !== undefined ? { error: p.error } : {}),
+  };
+}
+
+/** The crossings as the JSON writes them. */
+export function crossingsJson(crossings: readonly BinderCrossing[]): Record<string, unknown>[] {
+  return crossings.map((c) => ({ sizes: c.sizes, at: c.at, error: c.error, between: c.between }));
+}
+
+/** The whole JSON document at once (one line; the streamed one, qmc-scan-stream.ts, has the same values). */
+export function qmcScanJson(req: QmcScanRequest, points: readonly QmcScanPoint[], crossings: BinderCrossing[], complete: boolean): string {
+  const { axis, sizes, shard, params } = qmcScanJsonFields(req);
+  return JSON.stringify({ axis, sizes, shard, complete, params, points: points.map(qmcScanJsonPoint), crossings: crossingsJson(crossings) }) + '\n';
 }
 
 /** "Binder crossings along mu: L 8/16 at 0.512 +- 0.004; L 16/32 none in the range". */

@@ -23,7 +23,8 @@ export interface ReadBack {
   failed: number;
 }
 
-function foreign(name: string, line: number, why: string): InputError {
+/** A file that does not continue this scan, naming the line and why. */
+export function foreign(name: string, line: number, why: string): InputError {
   return new InputError(`${name} line ${line} does not continue this scan (${why}): give another --out or run without --resume`, 'resume');
 }
 

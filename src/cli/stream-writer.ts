@@ -8,6 +8,11 @@
  * `.partial` one if there is one, else `<out>` itself (appended to in place), else none
  * (a fresh run). Writes are buffered (64 KiB, or a second's worth) and go to the file with
  * plain synchronous writes, so what a killed process had flushed is on disk.
+ *
+ * Backpressure: stdout may be a pipe read more slowly than the scan computes. Its writes
+ * are queued by Node without limit, so a producer that can pause (map-stream.ts before
+ * each window, merge every few hundred rows) awaits `ready()` first: it resolves at once
+ * for a file, and for stdout once what was queued has drained ('drain').
  */
 import { chmodSync, closeSync, existsSync, ftruncateSync, openSync, realpathSync, renameSync, rmSync, statSync, writeSync } from 'node:fs';
 import { InputError } from '../core/input-error.ts';
@@ -25,6 +30,8 @@ export interface OutputTarget {
   write(text: string): void;
   /** Push buffered text out. */
   flush(): void;
+  /** Resolves when the output can take more without queueing in memory (stdout: after 'drain'). */
+  ready(): Promise<void>;
   /** The run ended (finished or interrupted): make what was written the output. */
   commit(): void;
   /** The run failed: drop what this run started (a file being resumed keeps its rows). */
@@ -86,6 +93,7 @@ export function fileOutput(path: string, resume: boolean): OutputTarget {
       if (size >= FLUSH_BYTES || Date.now() - last >= FLUSH_MS) flush();
     },
     flush,
+    ready: () => Promise.resolve(),
     commit() {
       try {
         flush();
@@ -111,8 +119,11 @@ export function fileOutput(path: string, resume: boolean): OutputTarget {
   };
 }
 
-/** Stream to stdout (nothing to resume). */
-export function stdoutOutput(stdout: (text: string) => void): OutputTarget {
+/**
+ * Stream to stdout (nothing to resume). `drained` resolves once stdout has passed on what
+ * was queued (absent: stdout never pushes back, as in tests).
+ */
+export function stdoutOutput(stdout: (text: string) => void, drained?: () => Promise<void>): OutputTarget {
   let chunks: string[] = [];
   let size = 0;
   const flush = () => {
@@ -130,6 +141,7 @@ export function stdoutOutput(stdout: (text: string) => void): OutputTarget {
       if (size >= FLUSH_BYTES) flush();
     },
     flush,
+    ready: () => (drained ? drained() : Promise.resolve()),
     commit: flush,
     abandon: flush,
   };
@@ -152,6 +164,7 @@ export function memoryOutput(path: string, resume: boolean, read: (path: string)
       text += t;
     },
     flush: () => undefined,
+    ready: () => Promise.resolve(),
     commit: () => write(path, text),
     abandon: () => undefined,
   };
@@ -159,10 +172,13 @@ export function memoryOutput(path: string, resume: boolean, read: (path: string)
 
 /** The output of a command: --out (through io.openOutput, else in memory through io's files) or stdout. */
 export function outputFor(
-  io: { stdout(t: string): void; readText(p: string): string; writeText(p: string, t: string): void; openOutput?(p: string, resume: boolean): OutputTarget },
+  io: {
+    stdout(t: string): void; stdoutDrained?(): Promise<void>; readText(p: string): string; writeText(p: string, t: string): void;
+    openOutput?(p: string, resume: boolean): OutputTarget;
+  },
   path: string | undefined, resume: boolean,
 ): OutputTarget {
-  if (!path) return stdoutOutput((t) => io.stdout(t));
+  if (!path) return stdoutOutput((t) => io.stdout(t), io.stdoutDrained ? () => (io.stdoutDrained as () => Promise<void>)() : undefined);
   if (io.openOutput) return io.openOutput(path, resume);
   const read = (p: string) => {
     try {

@@ -11,8 +11,8 @@ export interface Captured {
   files: Map<string, string>;
 }
 
-/** Run a command line in this process; `files` are readable inputs, written files land in the result. */
-export async function cli(argv: string[], files = new Map<string, string>(), interrupt?: AbortSignal): Promise<Captured> {
+/** Run a command line in this process; `files` are readable inputs, written files land in the result; `extra` replaces parts of the io. */
+export async function cli(argv: string[], files = new Map<string, string>(), interrupt?: AbortSignal, extra: Partial<CliIo> = {}): Promise<Captured> {
   let out = '', err = '';
   const io: CliIo = {
     stdout: (t) => void (out += t),
@@ -33,6 +33,7 @@ export async function cli(argv: string[], files = new Map<string, string>(), int
     interrupt: interrupt ?? new AbortController().signal,
     catchInterrupts: () => undefined,
     now: () => performance.now(),
+    ...extra,
   };
   const code = await runCli(argv, io);
   return { code, out, err, files };

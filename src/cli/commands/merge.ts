@@ -29,7 +29,7 @@ export const mergeCommand: Command = {
       open: () => (io.openLines ? io.openLines(source) : textLineReader(io.readText(source))),
     }));
     return streamOutput(io, args, async (target) => {
-      const { rows } = mergeParts(inputs, target);
+      const { rows } = await mergeParts(inputs, target);
       return { complete: true, written: rows, total: rows };
     });
   },

@@ -9,31 +9,24 @@ import { outputFor, type OutputTarget } from '../stream-writer.ts';
 
 export const OUT_FLAG: FlagSpec = { name: 'out', kind: 'string', value: 'file', help: 'write to this file instead of stdout', writes: true };
 
-/** Write text to --out or stdout; 0 when complete, 130 (and a note on stderr) when interrupted. */
-export function finishOutput(io: CliIo, args: ParsedArgs, text: string, run: { complete: boolean; points: unknown[]; total: number }): number {
-  const file = str(args, 'out');
-  if (file) io.writeText(file, text);
-  else io.stdout(text);
-  if (run.complete) return 0;
-  io.stderr(`interrupted: wrote the ${run.points.length} finished of ${run.total} points to ${file ?? 'stdout'}\n`);
-  return 130;
-}
-
 export const RESUME_FLAG: FlagSpec = {
   name: 'resume', kind: 'bool',
   help: 'continue the part --out holds (or its .partial file left by a killed run): check it is this scan, compute only what is missing',
 };
 
 /**
- * Run `work` writing to the streamed output of --out (or stdout), continued under --resume;
+ * Run `work` writing to the streamed output of --out (or stdout), continued under --resume
+ * (when the command is `resumable`; else a fresh output every run);
  * commit it when the run ends (finished or interrupted), drop what this run started when
  * it fails. 0 when complete, 130 (and a note on stderr) when interrupted.
  */
 export async function streamOutput(
   io: CliIo, args: ParsedArgs, work: (target: OutputTarget) => Promise<{ complete: boolean; written: number; total: number }>,
+  o: { resumable?: boolean; unit?: string } = {},
 ): Promise<number> {
   const file = str(args, 'out');
-  const resume = bool(args, 'resume');
+  const resumable = o.resumable ?? true;
+  const resume = resumable && bool(args, 'resume');
   if (resume && !file) throw new InputError('--resume needs --out (the file to continue)', 'resume');
   const target = outputFor(io, file, resume);
   let run;
@@ -43,8 +36,9 @@ export async function streamOutput(
     target.abandon();
     throw e;
   }
+  await target.ready(); // stdout: what is queued is passed on before the run reports its end
   target.commit();
   if (run.complete) return 0;
-  io.stderr(`interrupted: wrote the ${run.written} finished of ${run.total} points to ${file ?? 'stdout'}${file ? ' (continue it with --resume)' : ''}\n`);
+  io.stderr(`interrupted: wrote the ${run.written} finished of ${run.total} ${o.unit ?? 'points'} to ${file ?? 'stdout'}${file && resumable ? ' (continue it with --resume)' : ''}\n`);
   return 130;
 }

@@ -3,24 +3,22 @@
  * runs independent and on the pool at once (workers/qmc-scan.ts), CSV or JSON out, and the
  * Binder-cumulant crossings of consecutive sizes with their errors (the finite-size
  * location of a transition; src/core/qmc/binder-crossing.ts). `--shard k/n` takes the
- * points with index mod n = k - 1 for a job array. Ctrl-C writes the finished runs (130).
+ * points with index mod n = k - 1 for a job array. Rows stream in index order as runs finish;
+ * Ctrl-C or SIGTERM writes the finished runs (130), --resume continues a part (qmc-scan-stream.ts).
  */
 import { InputError } from '../../core/input-error.ts';
 import { LATTICE_NAMES, type LatticeName } from '../../core/lattice/geometry.ts';
 import { parseShard } from '../../core/scan/shards.ts';
 import type { AxisName } from '../../core/scan/axes.ts';
-import { qmcScanOnPool, scanCrossings } from '../../../workers/qmc-scan.ts';
 import { parseQmcAxis, parseSizes, qmcScanTasks } from '../../../workers/qmc-scan-plan.ts';
-import type { QmcScanPoint, QmcScanRequest } from '../../../workers/protocol.ts';
+import type { QmcScanRequest } from '../../../workers/protocol.ts';
 import { HELP_FLAG, type Command } from '../command.ts';
 import { bool, has, int, num, str, type FlagSpec } from '../flags.ts';
 import { CLUSTER_FLAGS } from '../cluster-flags.ts';
 import { interactionFromArgs } from '../model-flags.ts';
-import { interruptible } from '../io.ts';
-import { Progress } from '../progress.ts';
 import { QMC_FLAGS, qmcRunFromArgs, qmcWorkers } from '../qmc-flags.ts';
-import { crossingLine, qmcScanCsv, qmcScanJson } from '../qmc-scan-format.ts';
-import { finishOutput, OUT_FLAG } from './output.ts';
+import { streamQmcScan } from '../qmc-scan-stream.ts';
+import { OUT_FLAG, RESUME_FLAG, streamOutput } from './output.ts';
 
 const SCAN_FLAGS: readonly FlagSpec[] = [
   { name: 'x', kind: 'string', value: 'name=start:stop:count', help: 'the axis: mu, temperature, detuning, alpha, rb or v1' },
@@ -28,6 +26,7 @@ const SCAN_FLAGS: readonly FlagSpec[] = [
   { name: 'shard', kind: 'string', value: 'k/n', help: 'only the points with index mod n = k - 1 (a job array\'s part k of n)' },
   { name: 'json', kind: 'bool', help: 'print JSON (points and crossings) instead of CSV' },
   OUT_FLAG,
+  RESUME_FLAG,
 ];
 
 /** The axis flag of each axis (it must be absent: the axis sets it). */
@@ -81,17 +80,8 @@ export const qmcScanCommand: Command = {
     };
     const total = qmcScanTasks(req).length;
     const label = req.shard ? `qmc-scan ${req.shard.k}/${req.shard.n}` : 'qmc-scan';
-    const progress = new Progress(io, label, total, 'runs');
-    const finished: QmcScanPoint[] = [];
-    const run = await interruptible(io, Math.min(workers, Math.max(1, total * chains)), (pool, signal) => qmcScanOnPool(req, pool, {
-      signal, onPoint: (p) => finished.push(p), onProgress: (d) => progress.update(d),
-    }));
-    finished.sort((a, b) => a.index - b.index);
-    const failed = finished.filter((p) => p.error !== undefined).length;
-    progress.finish(finished.length, ` on ${workers} worker(s)${failed ? `, ${failed} failed (see the error column)` : ''}${run.complete ? '' : ', interrupted'}`);
-    const crossings = scanCrossings(finished);
-    io.stderr(crossingLine(req, crossings));
-    const text = bool(args, 'json') ? qmcScanJson(req, finished, crossings, run.complete) : qmcScanCsv(req, finished);
-    return finishOutput(io, args, text, { complete: run.complete, points: finished, total });
+    // each run's row is written as it and those before it finish; --resume continues a part (qmc-scan-stream.ts)
+    const pool = { size: Math.min(workers, Math.max(1, total * chains)), workers };
+    return streamOutput(io, args, (target) => streamQmcScan(io, req, pool, bool(args, 'json'), label, target), { unit: 'runs' });
   },
 };

@@ -2,24 +2,23 @@
  * `softlines`: soft-mode lines over a plane of two parameters, for several interaction
  * ranges at once, in the worker pool (one task per range and followed phase). Each line is
  * traced by bisection and continuation from a seed grid (src/core/softmode), and every
- * point carries the softest wavevector k* there. CSV (one row a point) or JSON.
+ * point carries the softest wavevector k* there. CSV (one row a point) or JSON, streamed
+ * in task order (softlines-stream.ts).
  */
 import { InputError } from '../../core/input-error.ts';
 import { parseAxis } from '../../core/scan/axes.ts';
 import { checkPlane, planePoint, type PlaneAxis, type PlaneAxisName } from '../../core/softmode/plane.ts';
 import type { FollowedPhase } from '../../core/softmode/own-solution.ts';
-import type { SoftLineRequest, SoftLineResult } from '../../core/softmode/soft-lines.ts';
+import type { SoftLineRequest } from '../../core/softmode/soft-lines.ts';
 import { HELP_FLAG, type Command } from '../command.ts';
 import { bool, num, str, type FlagSpec, type ParsedArgs } from '../flags.ts';
 import { MODEL_FLAGS, modelFromArgs } from '../model-flags.ts';
-import { paramsJson } from '../../core/scan/map-columns.ts';
-import { Progress } from '../progress.ts';
-import { pointBudgetMs, SCAN_FLAGS, workerCount } from '../scan-run.ts';
-import { csvLine, type Cell } from '../../core/scan/csv.ts';
-import { runScan } from '../../../workers/scan-driver.ts';
+import { SCAN_FLAGS } from '../scan-run.ts';
+import { streamSoftlines } from '../softlines-stream.ts';
 import { OUTPUT_FLAGS } from './solve.ts';
-import { finishOutput, OUT_FLAG } from './output.ts';
-import { interruptible } from '../io.ts';
+import { OUT_FLAG, streamOutput } from './output.ts';
+
+export { softlinesCsv } from '../softlines-stream.ts';
 
 export const DEFAULT_RANGES = 'nn,vdw:1,vdw:2,vdw:3,vdw:inf,dipolar';
 
@@ -44,7 +43,8 @@ export const softlinesCommand: Command = {
     'zone) is found on a seed grid of count x count nodes, its sign changes are bisected and the\n' +
     'lines followed by continuation to --tol. Ranges share the strength of --rb (or --v1): vdw and\n' +
     'dipolar take Rb with V(Rb) = 2, nn takes V1 (or 2 Rb^6, the vdw value at r = 1). Prints CSV\n' +
-    'rows range,phase,line,point,x,y,k (kx,ky in 2D),kind,jump or JSON with --json.',
+    'rows range,phase,line,point,x,y,k (kx,ky in 2D),kind,jump or JSON with --json, each range and phase\n' +
+    'written as soon as it and those before it are traced.',
   flags: [...FLAGS, ...MODEL_FLAGS, ...SCAN_FLAGS.filter((f) => f.name !== 'cold'), ...OUTPUT_FLAGS, HELP_FLAG],
   examples: [
     'softlines --x mu=-1:0.9:9 --y rb=0.8:1.5:9 --detuning 1 --ranges nn,vdw:2,vdw:inf,dipolar --phases condensate',
@@ -65,20 +65,9 @@ export const softlinesCommand: Command = {
     const followed = parsePhases(phases, base.lattice);
     const tasks: SoftLineRequest[] = [];
     for (const range of ranges) for (const phase of followed) tasks.push({ base: point, x, y, range, phase, tol });
-    const progress = new Progress(io, 'softlines', tasks.length, 'lines');
-    const done: (SoftLineResult | undefined)[] = new Array(tasks.length);
-    const { complete } = await interruptible(io, workerCount(args, io, tasks.length), (pool, signal) =>
-      runScan(pool, { kind: 'soft-lines', lines: tasks }, {
-        signal, pointBudgetMs: pointBudgetMs(args),
-        onItem: ({ index, result }) => { done[index] = result; },
-        onProgress: (d) => progress.update(d),
-      }));
-    const results = done.filter((r): r is SoftLineResult => r !== undefined);
-    progress.finish(results.length, `, ${results.reduce((a, r) => a + r.evaluations, 0)} margin evaluations`);
-    const text = bool(args, 'json')
-      ? JSON.stringify({ complete, params: paramsJson(base), x, y, tol, results }) + '\n'
-      : softlinesCsv(results, base.lattice === 'chain');
-    return finishOutput(io, args, text, { complete, points: results, total: tasks.length });
+    // each task's lines are written as it and those before it finish (softlines-stream.ts)
+    const job = { tasks, base, x, y, tol, json: bool(args, 'json') };
+    return streamOutput(io, args, (target) => streamSoftlines(io, args, job, target), { resumable: false, unit: 'lines' });
   },
 };
 
@@ -100,18 +89,4 @@ export function parsePhases(names: string[], lat: string): FollowedPhase[] {
     }
     throw new InputError(`unknown phase '${n}' (use condensate, normal, or crystal:1,0,... on the chain)`, 'phases');
   });
-}
-
-/** One CSV row a line point (quoted by the one CSV writer: a phase such as crystal:1,0 stays one field). */
-export function softlinesCsv(results: SoftLineResult[], oneD: boolean): string {
-  const head = oneD ? 'range,phase,line,point,x,y,k,kind,jump' : 'range,phase,line,point,x,y,kx,ky,kind,jump';
-  const rows = [head];
-  const g = (v: number) => Number(v.toPrecision(12));
-  for (const r of results) {
-    r.lines.forEach((L, li) => L.points.forEach((p, i) => {
-      const k: Cell[] = typeof p.k === 'number' ? [g(p.k)] : [g(p.k[0]), g(p.k[1])];
-      rows.push(csvLine([r.range, r.phase, li, i, g(p.x), g(p.y), ...k, p.kind, p.jump ? 1 : 0]));
-    }));
-  }
-  return rows.join('\n') + '\n';
 }
