@@ -66,3 +66,17 @@ describe('Binder crossings', () => {
     expect(Math.abs(g[0].at - 0.5)).toBeLessThan(1e-12);
   });
 });
+
+describe('sign changes at a common limit', () => {
+  // Fact of the trade (Binder, Z. Phys. B 43, 119 (1981)): deep in the ordered phase every
+  // size has U = 2/3, so curves that both sit there cross by noise alone.
+  it('a sign change where both sizes sit at U = 2/3 is not a crossing; one across the curves is', () => {
+    const x = [0, 1, 2, 3];
+    const e = (value: number) => ({ value, error: 0.0005 });
+    const small = { size: 4, x, binder: [e(0.6668), e(0.6663), e(0.55), e(0.3)] };
+    const large = { size: 8, x, binder: [e(0.6664), e(0.6667), e(0.62), e(0.1)] };
+    const c = crossingsOf(small, large);
+    expect(c.length).toBe(1);
+    expect(c[0].between).toEqual([2, 3]);
+  });
+});
