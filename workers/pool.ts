@@ -23,6 +23,35 @@ export interface EngineHandle<E> {
   failed?: Promise<never>;
 }
 
+/**
+ * Listeners of each handle's death, attached to its `failed` promise once. A
+ * Promise.race([call, failed.catch(...)]) per task left a reaction (and through it the
+ * task's timer, its run and its results) on that promise for as long as the worker lived:
+ * a map of a million points kept ~70 bytes a point in the main thread.
+ */
+const deathListeners = new WeakMap<object, Set<(e: unknown) => void>>();
+
+/** `call`, or a WorkerDied rejection if the handle's worker dies first; the listener goes when `call` settles. */
+function untilDeath<R>(handle: EngineHandle<unknown>, call: Promise<R>): Promise<R> {
+  let listeners = deathListeners.get(handle);
+  if (!listeners) {
+    const set = new Set<(e: unknown) => void>();
+    listeners = set;
+    deathListeners.set(handle, set);
+    // each listener removes itself when run: at most set.size turns
+    (handle.failed as Promise<never>).catch((e: unknown) => { for (const f of [...set]) f(e); });
+  }
+  const set = listeners;
+  return new Promise<R>((resolve, reject) => {
+    const onDeath = (e: unknown) => {
+      set.delete(onDeath);
+      reject(new WorkerDied(e));
+    };
+    set.add(onDeath);
+    call.then((v) => { set.delete(onDeath); resolve(v); }, (e: unknown) => { set.delete(onDeath); reject(e); });
+  });
+}
+
 /** Start one worker (see node-spawn.ts and browser-spawn.ts). */
 export type SpawnEngine<E> = () => EngineHandle<E>;
 
@@ -196,9 +225,7 @@ export class WorkerPool<E> {
     const handle = this.handleOf(slot);
     const task = run.tasks[taskIndex];
     const call = run.exec(handle.remote as Remote<unknown>, task, taskIndex, slotIndex);
-    const settled = handle.failed
-      ? Promise.race([call, handle.failed.catch((e: unknown) => Promise.reject(new WorkerDied(e)))])
-      : call;
+    const settled = handle.failed ? untilDeath(handle, call) : call;
     const b = run.opts.budgetMs;
     const budget = typeof b === 'function' ? b(task) : b ?? this.taskBudgetMs;
     const timer = setTimeout(() => {
