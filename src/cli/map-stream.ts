@@ -3,8 +3,10 @@
  * order of one uninterrupted run), through a reorder buffer of bounded size. The shard's
  * segments go to the driver a window at a time (runScan with `segments` and keepPoints
  * false), at most two windows in flight, so the pool always has work queued while no more
- * than 2 x WINDOW segments of finished points wait for an earlier one: memory does not
- * grow with the map. `--resume` first reads back the part on disk (resume.ts) and
+ * than 2 x WINDOW segments of finished points wait in the reorder buffer
+ * (reorder-buffer.ts) for an earlier one: memory does not grow with the map. Before each
+ * window the output must be ready (stdout drained), so a slow reader pauses the scan.
+ * `--resume` first reads back the part on disk (resume.ts) and
  * computes only the missing points: a segment cut in the middle is computed again from its
  * start (continuation makes a point depend on the points before it in its segment) and its
  * points already written are dropped, so the file is byte for byte the uninterrupted one.
@@ -20,6 +22,7 @@ import type { ParsedArgs } from './flags.ts';
 import { interruptible, type CliIo } from './io.ts';
 import { mapLayout, type MapFormat } from './map-layout.ts';
 import { Progress } from './progress.ts';
+import { readyOrAborted, ReorderBuffer } from './reorder-buffer.ts';
 import { readBack } from './resume.ts';
 import { mapSummary, runAdaptiveRows, type MapMode } from './map-adaptive.ts';
 import { boundariesCsv, solvesText, summaryJson } from './map-summary.ts';
@@ -99,20 +102,16 @@ export async function streamMap(io: CliIo, a: ParsedArgs, job: MapJob, target: O
   const window = Math.max(MIN_WINDOW, WINDOW_PER_WORKER * workers);
   const budget = pointBudgetMs(a);
   if (rows > 0) progress.update(rows);
-  const waiting = new Map<number, string>();
+  // rows wait as their text (not their states) until every earlier point is written
+  const buffer = new ReorderBuffer<{ text: string; bad: boolean }>({ get key() { return cursor.point?.index; }, advance: () => cursor.advance() }, (row) => {
+    target.write(layout.separator(rows) + row.text + '\n');
+    rows++;
+    if (row.bad) failed++;
+  });
   const accept = (pt: ScanPoint) => {
     const at = cursor.point;
-    if (!at || pt.index < at.index || waiting.has(pt.index)) return; // written before (a resumed segment's head)
-    waiting.set(pt.index, (pt.error === undefined ? '' : '!') + layout.row(pt));
-    for (let p = cursor.point; p && waiting.has(p.index); p = cursor.point) {
-      const row = waiting.get(p.index) as string;
-      waiting.delete(p.index);
-      const bad = row.startsWith('!');
-      target.write(layout.separator(rows) + (bad ? row.slice(1) : row) + '\n');
-      rows++;
-      if (bad) failed++;
-      cursor.advance();
-    }
+    if (!at || pt.index < at.index) return; // written before (a resumed segment's head)
+    buffer.put(pt.index, { text: layout.row(pt), bad: pt.error !== undefined });
     // progress counts the rows written (what an interruption keeps), not those waiting
     if (rows > 0) progress.update(rows);
   };
@@ -132,6 +131,8 @@ export async function streamMap(io: CliIo, a: ParsedArgs, job: MapJob, target: O
     const inFlight: Promise<void>[] = [];
     try {
       for (let j = cursor.j; j < segs.count && firstError === undefined;) {
+        await readyOrAborted(target, stop.signal); // a slow reader of stdout pauses the scan (backpressure), not memory
+        if (stop.signal.aborted) break;
         const part = [];
         for (let t = 0; t < window && j < segs.count; t++, j++) part.push(segs.at(j));
         inFlight.push(runScan(pool, { kind: 'map', plan: job.plan, segments: part, continuation: job.continuation }, {
@@ -144,6 +145,7 @@ export async function streamMap(io: CliIo, a: ParsedArgs, job: MapJob, target: O
       }
       await Promise.all(inFlight);
       if (firstError !== undefined) throw firstError;
+      if (stop.signal.aborted) throw stop.signal.reason; // stopped while waiting for the output
     } finally {
       signal.removeEventListener('abort', onAbort);
     }
