@@ -99,6 +99,8 @@ export class CorrelatedView extends LitElement {
     .controls { display: flex; flex-wrap: wrap; gap: 10px 16px; align-items: flex-end; margin-bottom: 8px; }
     .controls label { display: block; font-size: 13px; }
     .controls input { width: 90px; }
+    .controls > div { min-width: 0; max-width: 100%; }
+    .controls label, .controls select { max-width: 100%; }
     .grid { display: grid; grid-template-columns: repeat(auto-fit, minmax(420px, 1fr)); gap: 10px; }
     @media (max-width: 900px) { .grid { grid-template-columns: 1fr; } }
   `];
