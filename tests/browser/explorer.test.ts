@@ -307,6 +307,9 @@ describe('correlated check on an uploaded array', () => {
     const dx = xs[1] - xs[0], dy = ys[1] - ys[0];
     // equal scales on both axes: the pixel step is 2:1 like the data step (0.5 a up per 1 a along), to 0.02 px rounding
     expect(Math.abs(Math.abs(dx) - 2 * Math.abs(dy))).toBeLessThan(0.05);
+    // the zig-zag (rows 0.5 a apart) is cut from no lattice of spacing a: no mean-field column
+    // against the form's chain (issue 11 item 8)
+    expect(await page.locator('correlated-view table.comparison thead').textContent()).toContain('no lattice of spacing a');
     const { text } = await download(page, () => page.locator('correlated-view data-export button', { hasText: 'JSON' }).click());
     const mine = JSON.parse(text);
     const command = (await page.locator('correlated-view data-export code.command').textContent()) ?? '';

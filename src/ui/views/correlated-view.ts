@@ -38,6 +38,9 @@ import { QmcTask, qmcProgressText } from '../controllers/qmc-task.ts';
 import { qmcRows, qmcTable } from './qmc-numbers.ts';
 import { vmcWarnings } from './qmc-reference.ts';
 import { freeEnergyFigure } from '../figures/qmc-figures.ts';
+import { arrayLattice } from '../../core/cluster/array-lattice.ts';
+import { defaultMaxCell } from '../../core/model.ts';
+import type { LatticeName } from '../../core/lattice/geometry.ts';
 
 type Section = AppState['correlated'];
 export type Correlated = { kind: 'ed'; r: EdResult } | { kind: 'vmc'; r: VmcResult };
@@ -79,6 +82,8 @@ export class CorrelatedView extends LitElement {
   declare engine: EngineClient;
   private task = new EngineTask<Correlated>(this);
   private meanField = new EngineTask<SolveResult>(this);
+  /** The lattice the mean-field column is for: the model's, an array's own, or null (no lattice). */
+  private mfLattice: LatticeName | null = null;
   /** The QMC run (on the scan workers, through workers/qmc-run.ts like the CLI's qmc). */
   private qmc = new QmcTask(this, () => this.engine);
   /** The last ground-state QMC energy and the inputs it belongs to (the reference VMC is held against). */
@@ -181,7 +186,11 @@ export class CorrelatedView extends LitElement {
       ? this.engine.call((r) => r.correlated.ed({ cluster: job.cluster, mu: job.mu, alpha: job.alpha, delta: job.delta }), signal).then((r) => ({ kind: 'ed' as const, r }))
       : this.runVmc(job, signal).then((r) => ({ kind: 'vmc' as const, r }))));
     const p = this.model.params!;
-    const mf = { params: { ...p, T: job.qmc?.temperature ?? 0 } };
+    // An array is compared with the lattice it is cut from (not the form's), or with none.
+    const lat = job.cluster.kind === 'array' ? arrayLattice(job.cluster.positions, p.lattice) : p.lattice;
+    this.mfLattice = lat;
+    if (lat === null) { this.meanField.abort(); return; }
+    const mf = { params: { ...p, lattice: lat, maxCell: lat === p.lattice ? p.maxCell : defaultMaxCell(lat), T: job.qmc?.temperature ?? 0 } };
     this.meanField.run(JSON.stringify(mf), (signal) => this.engine.call((r) => r.meanfield.solve(mf), signal));
   }
 
@@ -255,7 +264,7 @@ export class CorrelatedView extends LitElement {
     const isQmc = s.method === 'qmc';
     const status = isQmc ? this.qmc.status : this.task.status;
     const runError = isQmc ? this.qmc.error : this.task.error;
-    const mf = this.meanField.value;
+    const mf = this.mfLattice === null ? undefined : this.meanField.value;
     const w = Math.max(340, Math.min(560, (this.size.width - 10) / (this.size.width > 900 ? 2 : 1)));
     const job = this.job;
     const positions = job && this.sites.valueKey === JSON.stringify(job.cluster) && this.sites.value ? Float64Array.from(this.sites.value.positions) : null;
@@ -354,7 +363,7 @@ export class CorrelatedView extends LitElement {
 
   private table(method: string, rows: [string, string, string][], mf: SolveResult | undefined, T: number) {
     return html`<table class="comparison" aria-label="Correlated result beside mean field">
-      <thead><tr><th class="l">quantity</th><th>${method}</th><th>mean field (infinite lattice)</th></tr></thead>
+      <thead><tr><th class="l">quantity</th><th>${method}</th><th>${this.mfLattice === null ? 'no mean field: the array is no lattice of spacing a' : `mean field (infinite ${this.mfLattice} lattice)`}</th></tr></thead>
       <tbody>${rows.map(([k, a, b]) => html`<tr><th class="l" scope="row">${k}</th><td>${a}</td><td>${b}</td></tr>`)}</tbody>
       <caption class="muted" style="caption-side: bottom; text-align: left">${mf ? `mean field: ${PHASE_NAMES[mf.phase]}${mf.fraction ? ' ' + mf.fraction : ''}, M = ${mf.cellSize}, at T = ${T}` : ''}</caption>
     </table>`;
