@@ -12,6 +12,7 @@ import type { ReactiveController, ReactiveControllerHost } from 'lit';
 import type { ModelParams } from '../../core/model.ts';
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import type { Axis } from '../../core/scan/axes.ts';
+import type { Boundary } from '../../core/scan/boundaries.ts';
 import { gridPoint, pointSeed, spreadRows, type ScanPlan, type ScanPoint } from '../../core/scan/grid.ts';
 import { type EngineClient, isAbort } from '../engine/engine-client.ts';
 import { mapCache, type MapCache } from './map-cache.ts';
@@ -36,6 +37,10 @@ export class MapGrid {
   count = 0;
   /** ms the scan that finished this grid took (null while unfinished). */
   totalMs: number | null = null;
+  /** Boundary lines, points really solved and notes the scan returned (the driver returns them when the scan finishes: null until then, and for a dense scan, which locates none). */
+  boundaries: Boundary[] | null = null;
+  solves: number | null = null;
+  notes: string[] = [];
   constructor(readonly plan: MapPlan, readonly key: string) {
     this.nx = plan.x.count;
     this.ny = plan.y.count;
@@ -141,10 +146,13 @@ export class MapScanController implements ReactiveController {
       this.schedule();
     };
     this.finished = this.engine().scan({ kind: 'map', plan: grid.scanPlan, order: 'spread' }, { signal: ctrl.signal, onItem: deliver }).then(
-      () => {
+      (result) => {
         if (this.ctrl !== ctrl) return;
         this.totalMs = performance.now() - this.t0;
         grid.totalMs = this.totalMs;
+        grid.boundaries = result.boundaries ?? null;
+        grid.solves = result.solves ?? null;
+        grid.notes = result.notes ?? [];
         this.cache.put(grid);
         this.status = 'done';
         this.ctrl = null;

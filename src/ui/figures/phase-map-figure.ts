@@ -1,7 +1,7 @@
 /**
  * The phase map: a heatmap of the phase at each grid point (or of a continuous quantity),
- * region boundaries as a categorical contour, the fraction written on density-wave and
- * supersolid regions, soft-mode lines as polylines, the opened point as a ring, axes with units and a legend. Built from marks only.
+ * region boundaries as a categorical contour (or, once the scan has located them, as vector
+ * polylines: boundary-lines.ts), the fraction written inside density-wave and supersolid regions, soft-mode lines as polylines, the opened point as a ring, axes with units and a legend. Built from marks only.
  */
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import type { PhaseLabel } from '../../core/meanfield/state.ts';
@@ -21,6 +21,8 @@ import { colourBar, colourBarHeight } from '../plot/colour-bar.ts';
 import { regionLabels } from './region-labels.ts';
 import { regionWord } from '../model/phase-words.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
+import type { Boundary } from '../../core/scan/boundaries.ts';
+import { boundaryLines } from './boundary-lines.ts';
 
 export type MapShade = 'phase' | 'rho' | 'photon';
 
@@ -40,6 +42,8 @@ export interface PhaseMapInput {
   /** Largest cell searched: region labels tell a locked filling from a pattern, and points whose best cell has this size are marked. */
   maxCell?: number;
   log?: boolean;
+  /** Boundary lines the scan located (a finished adaptive map); drawn instead of the pixel-edge contour. */
+  boundaries?: readonly Boundary[] | null;
   width: number;
   height: number;
   title: string;
@@ -104,7 +108,9 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
       return { key: String(lev), fill: rampColour((lev + 0.5) / LEVELS) };
     }));
   }
-  marks.push(categoryContour(g, key, { stroke: '#1d2430', width: 1 }));
+  // the scan's vector boundaries when it returned them, else the edges between unequal pixels
+  const vector = o.boundaries ? boundaryLines(o.boundaries) : null;
+  marks.push(vector ? vector.mark : categoryContour(g, key, { stroke: '#1d2430', width: 1 }));
   // fraction labels where there is room for the text (about 9 px from the region's edge)
   const cellPx = Math.min((o.width - (o.width < 640 ? 70 : 250)) / g.nx, (o.height - 70) / g.ny);
   const minDepth = Math.max(1, Math.ceil(9 / Math.max(cellPx, 1)));
@@ -142,6 +148,7 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
       entries.push({ label: values.length ? end + Number(scale.at(t).toPrecision(3)) : '', swatch: { kind: 'fill', fill: rampColour((Math.min(LEVELS - 1, Math.floor(t * LEVELS)) + 0.5) / LEVELS) } });
     }
   }
+  if (vector) entries.push(...vector.legend);
   if (atLimit.length) entries.push({ label: `M = Mmax = ${o.maxCell} (search limit)`, swatch: { kind: 'dot', fill: '#000000', stroke: '#ffffff' } });
   const seen = new Set<string>();
   for (const l of o.lines) {

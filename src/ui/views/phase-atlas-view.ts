@@ -231,13 +231,14 @@ export class PhaseAtlasView extends LitElement {
     // the figure is rebuilt only when what it shows changes (not when the cursor moves:
     // the cursor is drawn over it by <figure-panel>)
     const crange = parseColourRange(this.section.crange ?? '');
-    const figKey = g ? [g.key, g.count, this.section.shade, this.section.crange, this.section.clog, lines.length, lines.map((l) => l.x.length).join(','), this.section.point, w].join('|') : '';
+    const figKey = g ? [g.key, g.count, g.boundaries?.length ?? -1, this.section.shade, this.section.crange, this.section.clog, lines.length, lines.map((l) => l.x.length).join(','), this.section.point, w].join('|') : '';
     if (g && figKey !== this.figKey) {
       this.figKey = figKey;
       this.fig = phaseMapFigure({
         grid: { nx: g.nx, ny: g.ny, x: [g.plan.x.start, g.plan.x.stop], y: [g.plan.y.start, g.plan.y.stop] },
         stateAt: (i, j) => g.paint(i, j), xLabel: AXIS_LABELS[g.plan.x.name], yLabel: AXIS_LABELS[g.plan.y.name],
         shade: this.section.shade as MapShade, lines, selected: sel, colourRange: crange ?? {}, log: this.section.clog === '1', maxCell: g.plan.base.maxCell,
+        boundaries: g.boundaries,
         width: w, height: Math.round(Math.min(540, Math.max(300, w * 0.5))),
         title: `Phase map over ${AXIS_SYMBOLS[g.plan.x.name]} and ${AXIS_SYMBOLS[g.plan.y.name]}`,
       });
