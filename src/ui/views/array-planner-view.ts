@@ -8,8 +8,10 @@ import { LitElement, html, css, nothing } from 'lit';
 import type { AppState, ModelInputs } from '../state/app-state.ts';
 import type { ParsedModel } from '../model/model-inputs.ts';
 import { parseNumber } from '../model/model-inputs.ts';
-import { type LabNumbers, type ModelNumbers, labToModel, modelToLab } from '../../core/lab/units.ts';
+import { type LabNumbers, type ModelNumbers, collectiveCouplingMHz, labToModel, modelToLab } from '../../core/lab/units.ts';
 import { sitesInsideBlockade, shellsInsideBlockade } from '../../core/lab/regime.ts';
+import { type LossBudget, lossBudget } from '../../core/lab/losses.ts';
+import { lossFields, lossResults, lossRows, typedLosses } from './planner-losses.ts';
 import type { LatticeName } from '../../core/lattice/geometry.ts';
 import type { ModelParams } from '../../core/model.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
@@ -45,6 +47,8 @@ export class ArrayPlannerView extends LitElement {
   declare inputs: ModelInputs;
   declare engine: EngineClient;
   private verdict = new EngineTask<PhaseMargin>(this);
+  /** The last lab numbers that converted, shown (marked) while the current entries have an error. */
+  private lastGood: { lab: LabNumbers; model: ModelNumbers } | null = null;
 
   static override styles = [sharedStyles, css`
     :host { display: block; }
@@ -57,7 +61,7 @@ export class ArrayPlannerView extends LitElement {
     fieldset { border: 1px solid var(--line); border-radius: 6px; margin: 0 0 10px; }
   `];
 
-  private patch(p: Partial<PlannerSection>) {
+  private patch(p: Partial<PlannerSection> & Record<string, string>) {
     this.dispatchEvent(new CustomEvent('section-change', { detail: { section: 'planner', patch: p }, bubbles: true, composed: true }));
   }
 
@@ -71,7 +75,9 @@ export class ArrayPlannerView extends LitElement {
       detuningMHz: n('detuning'), muMHz: n('mu'), temperatureK: n('temperature') * (TUNITS[s.tunit] ?? 1),
     };
     try {
-      return { lab, model: labToModel(lab) };
+      const model = labToModel(lab);
+      this.lastGood = { lab, model };
+      return { lab, model };
     } catch (e) {
       const err = e as Error & { field?: string };
       return { error: err.message, field: err.field };
@@ -90,6 +96,41 @@ export class ArrayPlannerView extends LitElement {
     if (!(model.mu < model.delta)) return;
     // the bisection runs in a worker (a 'phase-margin' scan), not on the page's thread
     this.verdict.run(JSON.stringify(p), (signal) => this.engine.interactiveScan({ kind: 'phase-margin', params: p }, { signal }));
+  }
+
+  /**
+   * Switch how the coupling is given. Going to the collective splitting prefills it with
+   * 2 g = 2 g0 sqrt(N) from the entries just shown (the round-trip decimal of the same
+   * double, so the point and its verdict stay the same); going back keeps g0 and N.
+   */
+  private switchCoupling(to: string) {
+    const s = this.section;
+    const p: Record<string, string> = { coupling: to };
+    if (to === 'collective' && s.coupling !== 'collective') {
+      try {
+        p.splitting = String(2 * collectiveCouplingMHz({ kind: 'single', g0MHz: parseNumber(s.g0), emitters: parseNumber(s.emitters) }));
+      } catch { /* g0 or N not valid: leave the splitting as it was */ }
+    }
+    this.patch(p);
+  }
+
+  /** The loss budget at the converted point, the margin taken from the verdict when it is for this point. */
+  private losses(lab: LabNumbers, m: ModelNumbers): { budget?: LossBudget; error?: { message: string; field?: string }; marginNote: string } {
+    const rates = typedLosses(this.section as unknown as Record<string, string | undefined>);
+    const v = this.verdict.value;
+    const current = v && !this.verdict.stale && this.verdict.status !== 'pending';
+    const near = current ? [v.below, v.above].filter((x): x is NonNullable<typeof x> => !!x).sort((a, b) => a.distance - b.distance)[0] : undefined;
+    // no boundary within the +-2 g window: the margin is at least 2 g (a lower bound, so the check errs on the safe side)
+    const marginMHz = !current ? null : near ? near.distance * m.gMHz : 2 * m.gMHz;
+    const marginNote = !current ? 'awaiting the verdict' : near ? 'to the nearest boundary, along \u03bc' : 'at least: no boundary within \u00b12 g';
+    if (!rates) return { marginNote };
+    try {
+      const g0MHz = lab.coupling.kind === 'single' ? lab.coupling.g0MHz : undefined;
+      return { budget: lossBudget({ losses: rates, gMHz: m.gMHz, g0MHz, detuningMHz: lab.detuningMHz, muMHz: lab.muMHz, marginMHz }), marginNote };
+    } catch (e) {
+      const err = e as Error & { field?: string };
+      return { error: { message: err.message, field: err.field }, marginNote };
+    }
   }
 
   private useInModel(m: ModelNumbers) {
@@ -135,7 +176,12 @@ export class ArrayPlannerView extends LitElement {
 
   override render() {
     const s = this.section;
-    const { model, error, field } = this.lab();
+    const { model: current, error, field } = this.lab();
+    // while an entry is bad, the last good point stays on show (marked), with its verdict
+    const point = current ? { lab: this.lab().lab!, model: current } : this.lastGood;
+    const model = point?.model;
+    const losses = point ? this.losses(point.lab, point.model) : null;
+    const lossValues = s as unknown as Record<string, string | undefined>;
     const lat = (this.model.params?.lattice ?? this.inputs.lattice) as LatticeName;
     const shown = LAB_FIELDS.filter((f) => (s.coupling === 'collective' ? f.key !== 'g0' && f.key !== 'emitters' : f.key !== 'splitting'));
     const back = model && this.model.params ? (() => {
@@ -146,6 +192,7 @@ export class ArrayPlannerView extends LitElement {
     const rows: Table['rows'] = model ? [
       ['g', model.gMHz, 'MHz'], ['Rb', model.rbUm, 'um'], ['Rb/a', model.rbOverA, ''], ['V1', model.V1, 'g'],
       ['delta', model.delta, 'g'], ['mu', model.mu, 'g'], ['T', model.T, 'g'],
+      ...(losses?.budget ? lossRows(losses.budget) : []),
     ] : [];
     const p = model ? this.params(model) : null;
     const command = p ? cliLine('solve', ['--lattice', p.lattice, '--interaction', 'vdw', '--rb', fmt(model!.rbOverA, 8), '--detuning', fmt(model!.delta, 8),
@@ -154,16 +201,20 @@ export class ArrayPlannerView extends LitElement {
       <section aria-label="Lab numbers">
         <fieldset><legend>Lab numbers (frequencies as \u03bd = E/h)</legend>
           <div class="field wide"><label for="lab-coupling">Coupling given as</label>
-            <select id="lab-coupling" name="lab-coupling" @change=${(e: Event) => this.patch({ coupling: (e.target as HTMLSelectElement).value })}>
+            <select id="lab-coupling" name="lab-coupling" @change=${(e: Event) => this.switchCoupling((e.target as HTMLSelectElement).value)}>
               <option value="single" ?selected=${s.coupling !== 'collective'}>g0 and N (g = g0 \u221aN)</option>
               <option value="collective" ?selected=${s.coupling === 'collective'}>collective splitting 2g</option></select></div>
           ${shown.map((f) => this.field(f, field, error))}
           ${error && !shown.some((f) => f.key === field) ? html`<p class="err" role="alert">${error}</p>` : nothing}
         </fieldset>
-        ${model ? html`<button class="primary" @click=${() => this.useInModel(model)}>Use these numbers in the model</button>` : nothing}
+        <fieldset><legend>Losses (full widths, \u03bd = E/h)</legend>
+          ${lossFields(lossValues, (k, v) => this.patch({ [k]: v }), losses?.error)}
+        </fieldset>
+        ${current ? html`<button class="primary" @click=${() => this.useInModel(current)}>Use these numbers in the model</button>` : nothing}
       </section>
       <section aria-label="Model units">
         ${model ? html`
+          ${current ? nothing : html`<p class="note last-good" role="note">Showing the last good numbers: fix the entry marked on the left to update.</p>`}
           <table aria-label="Model units"><tbody>
             <tr><th class="l">collective coupling g / 2\u03c0 (energy unit)</th><td class="g-mhz">${fmt(model.gMHz)}</td><td class="l">MHz</td></tr>
             <tr><th class="l">blockade radius Rb = (C6 / 2g)^(1/6)</th><td>${fmt(model.rbUm)}</td><td class="l">\u00b5m</td></tr>
@@ -177,16 +228,21 @@ export class ArrayPlannerView extends LitElement {
             (${shellsInsideBlockade(lat, model.rbOverA).length} neighbour shell${shellsInsideBlockade(lat, model.rbOverA).length === 1 ? '' : 's'} with V &gt; 2g).
             ${model.rbOverA < 1 ? 'Below nearest-neighbour blockade: neighbours cost less than the Rabi splitting.' : ''}</p>
           ${this.verdictText(model)}
+          <h3>Losses</h3>
+          ${losses?.budget ? lossResults(losses.budget, losses.marginNote)
+            : html`<p class="muted">Enter the cavity linewidth \u03ba and the emitter decay \u03b3 (full widths, MHz) for the cooperativity, strong coupling
+              and whether the quasi-equilibrium picture can apply.${losses?.error ? ' Fix the loss entries.' : ''}</p>`}
           ${back ? html`<h3>And back: the model's current point in lab units</h3>
             <p class="back">Rb/a = ${fmt(back.rb)} needs a = ${fmt(back.lab.spacingUm)} \u00b5m at this C6 and g; \u03b4 \u2192 \u0394/2\u03c0 = ${fmt(back.lab.detuningMHz)} MHz,
             \u03bc \u2192 ${fmt(back.lab.muMHz)} MHz, T \u2192 ${fmt(back.lab.temperatureK * 1e6)} \u00b5K.</p>` : nothing}
-          <data-export .table=${{ columns: ['quantity', 'value', 'unit'], rows }} .json=${{ lab: this.lab().lab, model, verdict: this.verdict.value ?? null }}
+          <data-export .table=${{ columns: ['quantity', 'value', 'unit'], rows }} .json=${{ lab: point?.lab, model, verdict: this.verdict.value ?? null, losses: losses?.budget ?? null }}
             name="planner" .command=${command}></data-export>` : html`<p class="err">Fix the lab numbers to see the model units.</p>`}
       </section>
     </div>
     <limits-note lattice=${lat} temperature=${model?.T ?? 0}></limits-note>
-    <div class="note" role="note"><strong>What the model leaves out.</strong> No cavity or emitter losses (quasi-equilibrium with a
-      chemical potential for excitations), a single cavity mode, rotating-wave coupling, a mean-field (coherent) photon, van der Waals
+    <div class="note" role="note"><strong>What the model leaves out.</strong> No cavity or emitter losses in the solution (quasi-equilibrium with a
+      chemical potential for excitations; the losses panel only compares their rates with the gaps, and full driven-dissipative
+      steady states are not computed), a single cavity mode, rotating-wave coupling, a mean-field (coherent) photon, van der Waals
       pairs only (no F\u00f6rster resonances, no angular dependence). Check that the pair state's C6 is repulsive and that the
       blockade picture holds at your densities.</div>
     <div class="caution" role="note"><strong>Lab safety.</strong> This planner does not assess safety. Laser work (trap, tweezer and
