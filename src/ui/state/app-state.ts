@@ -36,6 +36,8 @@ export interface AppState {
   planner: {
     c6: string; spacing: string; coupling: string; g0: string; emitters: string; splitting: string;
     detuning: string; mu: string; temperature: string; tunit: string;
+    /** Losses: cavity linewidth, emitter decay and dephasing, full widths in MHz (blank: not asked). */
+    kappa: string; gamma: string; dephasing: string;
   };
 }
 
@@ -61,7 +63,7 @@ export function demoState(): AppState {
     },
     planner: {
       c6: '140', spacing: '4', coupling: 'single', g0: '0.5', emitters: '200', splitting: '',
-      detuning: '21', mu: '7', temperature: '0', tunit: 'uK',
+      detuning: '21', mu: '7', temperature: '0', tunit: 'uK', kappa: '', gamma: '', dephasing: '',
     },
   };
 }
