@@ -1,6 +1,6 @@
 /**
  * The emitter Hamiltonian (src/core/ed/hamiltonian.ts) against a dense matrix built here from
- * the model's definition (DESIGN.md), H = sum_i [-mu n_i - alpha sigma^x_i] + sum_{i<j} V_ij n_i n_j,
+ * the model's definition (README.md, "H(alpha) = ..."), H = sum_i [-mu n_i - alpha sigma^x_i] + sum_{i<j} V_ij n_i n_j,
  * with n_i = bit i of the state and sigma^x_i flipping that bit; the couplings V_ij are the
  * cluster's input data. Symmetry x.Hy = y.Hx is common practice, no source.
  */

@@ -1,6 +1,6 @@
 /**
  * selfConsistentGround (src/core/ed/self-consistent-alpha.ts) called directly, against the
- * V = 0 closed form (DESIGN.md; Hopfield 1958 for the lower polariton): each emitter is a
+ * V = 0 closed form (model of README.md; Hopfield 1958 for the lower polariton): each emitter is a
  * two-level system with E0/N = -mu/2 - E, E = sqrt(mu^2/4 + alpha^2), and de/dalpha = 0 gives
  * the condensate where (delta - mu) = 1/(2E), i.e. alpha^2 = 1/(4 (delta - mu)^2) - mu^2/4 if
  * positive, else alpha = 0.
