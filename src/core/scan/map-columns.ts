@@ -1,6 +1,7 @@
 /**
- * The one table of a map's output columns, serving the CLI's CSV and JSON and the page's
- * export alike (so the two files of one map are byte for byte the same):
+ * The one table of a map's output columns as plain strings and numbers, for every writer
+ * of a map (so two writers of one map give the same bytes; the writing itself is outside
+ * the core):
  *
  *   ix, iy, <x axis>, [<y axis>], phase, fraction, cellSize, lockedFilling, cell, alpha, photonDensity,
  *   emitterDensity, excitationDensity, grandPotential, [mu], sublatticeDensities,

@@ -1,13 +1,15 @@
 /**
  * How far a point sits from the nearest change of phase along mu (the pump), for the lab
- * planner's verdict. A row of `count` mu values over mu +- window (above: only up to just
+ * planner's verdict. A row of `count` mu values over mu +- span (above: only up to just
  * below delta) is solved as a scan row (segments of grid.ts, each cold, seeds from the
  * point index); the nearest value on each side whose phase (with its fraction) differs
  * is bisected against the point to `tol`. The nearest soft-mode line of the point's own
- * phase along mu is found by tracing the lines (softLines) in the plane mu +- window by
+ * phase along mu is found by tracing the lines (softLines) in the plane mu +- span by
  * delta +- 0.25 and cutting them with delta = const. Distances in units of g.
  */
 import { solveGroundState, type SolveResult } from '../meanfield/ground-state.ts';
+import { InputError } from '../input-error.ts';
+import { ConvergenceError } from '../convergence-error.ts';
 import type { ModelParams } from '../model.ts';
 import type { FollowedPhase } from '../softmode/own-solution.ts';
 import { softLines, type SoftLineRequest } from '../softmode/soft-lines.ts';
@@ -16,8 +18,8 @@ import { pointSeed, rowCuts } from './grid.ts';
 export interface PhaseMarginOptions {
   /** Base seed of the row's points (default 1, as the scans). */
   seed?: number;
-  /** Half-width of the mu window, g (default 2). */
-  window?: number;
+  /** Half-width of the mu span, g (default 2). */
+  span?: number;
   /** Points of the row (default 61). */
   count?: number;
   /** Bisection tolerance in mu, g (default 1e-3). */
@@ -39,20 +41,23 @@ export interface SoftDistance {
 
 export interface PhaseMargin {
   state: SolveResult;
-  /** Nearest soft-mode line of the state's own phase along mu (null: none within the window). */
+  /** Nearest soft-mode line of the state's own phase along mu (null: none within the span). */
   soft: SoftDistance | null;
-  /** Distance in mu to the nearest boundary below and above (null: none within the window). */
+  /** Distance in mu to the nearest boundary below and above (null: none within the span). */
   below: MarginSide | null;
   above: MarginSide | null;
 }
+
+/** Bisection steps at most: 2 span / 2^60 is far below any tolerance a user can mean. */
+const MAX_BISECTIONS = 60;
 
 const keyOf = (s: SolveResult) => `${s.phase}${s.fraction ? ' ' + s.fraction : ''}`;
 
 /** The phase margin of p (fixed mu). */
 export function phaseMargin(p: ModelParams, o: PhaseMarginOptions = {}): PhaseMargin {
-  const seed = o.seed ?? 1, window = o.window ?? 2, n = o.count ?? 61, tol = o.tol ?? 1e-3;
+  const seed = o.seed ?? 1, span = o.span ?? 2, n = o.count ?? 61, tol = o.tol ?? 1e-3;
   const mu = p.mu as number;
-  const lo = mu - window, hi = Math.min(mu + window, p.delta - 1e-6);
+  const lo = mu - span, hi = Math.min(mu + span, p.delta - 1e-6);
   const mus = Array.from({ length: n }, (_, i) => lo + ((hi - lo) * i) / (n - 1));
   const solve = (m: number) => solveGroundState({ ...p, mu: m }, { seed });
   const state = solve(mu);
@@ -64,7 +69,7 @@ export function phaseMargin(p: ModelParams, o: PhaseMarginOptions = {}): PhaseMa
     const j = idx.find((i) => keyOf(row[i]) !== k0);
     if (j === undefined) return null;
     let a = mu, b = mus[j], other = row[j];
-    while (Math.abs(b - a) > tol) {
+    for (let it = 0; it < MAX_BISECTIONS && Math.abs(b - a) > tol; it++) {
       const mid = (a + b) / 2;
       const s = solve(mid);
       if (keyOf(s) === k0) a = mid; else { b = mid; other = s; }
@@ -74,9 +79,11 @@ export function phaseMargin(p: ModelParams, o: PhaseMarginOptions = {}): PhaseMa
   const below = side(-1), above = side(1);
   let soft: SoftDistance | null;
   try {
-    soft = softLineDistance(p, state, window);
-  } catch {
-    soft = null; // a model the tracer refuses (softcore, say): the verdict stands without it
+    soft = softLineDistance(p, state, span);
+  } catch (e) {
+    // a model the tracer refuses or cannot follow: the verdict stands without the soft line
+    if (!(e instanceof InputError || e instanceof ConvergenceError)) throw e;
+    soft = null;
   }
   return { state, below, above, soft };
 }
@@ -104,13 +111,13 @@ export function followedPhaseOf(s: SolveResult): FollowedPhase | null {
 }
 
 /** Distance along mu to the nearest soft-mode line of the point's own phase (null: none here). */
-function softLineDistance(p: ModelParams, s: SolveResult, window: number): SoftDistance | null {
+function softLineDistance(p: ModelParams, s: SolveResult, span: number): SoftDistance | null {
   const phase = followedPhaseOf(s);
   if (!phase || p.mu === undefined) return null;
   const mu = p.mu, delta = p.delta;
   const req: SoftLineRequest = {
     base: { lattice: p.lattice, interaction: p.interaction, mu, delta, T: p.T },
-    x: { name: 'mu', start: mu - window, stop: Math.min(mu + window, delta + 0.25 - 1e-6), count: 12 },
+    x: { name: 'mu', start: mu - span, stop: Math.min(mu + span, delta + 0.25 - 1e-6), count: 12 },
     y: { name: 'detuning', start: delta - 0.25, stop: delta + 0.25, count: 12 },
     range: rangeToken(p), phase, tol: 1e-3,
   };

@@ -62,7 +62,7 @@ export function* vmcBatches(req: VmcRequest): Generator<VmcBatch, VmcResult, Seg
   let alpha = set.selfConsistent ? 0.25 / (gap as number) : (req.alpha as number);
   let theta = initialParameters(sys.ansatz, mu, alpha);
   let states: (ChainState | null)[] = Array(chains).fill(null);
-  const window = Math.max(1, Math.floor(steps / 4));
+  const tail = Math.max(1, Math.floor(steps / 4));
   const thetaSum = new Float64Array(theta.length);
   let alphaSum = 0, alphaSq = 0;
   const trace: TraceEntry[] = [];
@@ -80,12 +80,12 @@ export function* vmcBatches(req: VmcRequest): Generator<VmcBatch, VmcResult, Seg
     trace.push({ step, energyPerSite: photon + sr.energy / N, error: sr.energyError / N, alpha, acceptance: acceptance(res) });
     theta = theta.map((t, k) => t + sr.delta[k]);
     if (set.selfConsistent) alpha = Math.max(0, (1 - set.beta) * alpha + (set.beta * sr.sigmaX) / (2 * (gap as number)));
-    if (step >= steps - window) {
+    if (step >= steps - tail) {
       for (let k = 0; k < theta.length; k++) thetaSum[k] += theta[k];
       alphaSum += alpha; alphaSq += alpha * alpha;
     }
   }
-  const averaged = Math.min(window, steps);
+  const averaged = Math.min(tail, steps);
   if (steps > 0) {
     theta = thetaSum.map((t) => t / averaged);
     if (set.selfConsistent) alpha = alphaSum / averaged;

@@ -17,7 +17,7 @@ export interface VmcResult {
   mu: number;
   delta: number | null;
   selfConsistent: boolean;
-  /** Photon amplitude (optimised: the window average, error its spread / sqrt(window steps)). */
+  /** Photon amplitude (optimised: the average over the last steps, error its spread / sqrt(those steps)). */
   alpha: Estimate;
   /** <H(alpha)>/N (fixed alpha) or e = (delta - mu) alpha^2 + <H>/N (optimised alpha). */
   energyPerSite: Estimate;

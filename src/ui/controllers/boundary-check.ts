@@ -62,8 +62,7 @@ export class BoundaryCheckController implements ReactiveController {
 
   /** True when the latest request was cancelled (its result is not the one shown). */
   get cancelled(): boolean {
-    const t = this.task;
-    return t.status !== 'pending' && t.status !== 'error' && t.latestKey !== null && t.latestKey !== t.valueKey;
+    return this.task.cancelled;
   }
 
   /** Run the latest request again (after a cancel). */

@@ -73,6 +73,11 @@ export class EngineTask<T> implements ReactiveController {
     if (this.latestKey !== null && this.lastFn && this.status !== 'pending') void this.run(this.latestKey, this.lastFn, true);
   }
 
+  /** True when the latest call was cancelled (nothing pending or failed, and its result is not the one shown). */
+  get cancelled(): boolean {
+    return this.status !== 'pending' && this.status !== 'error' && this.latestKey !== null && this.latestKey !== this.valueKey;
+  }
+
   /** True when the value shown belongs to other inputs than the latest asked for. */
   get stale(): boolean {
     return this.value !== undefined && this.latestKey !== null && this.valueKey !== this.latestKey;
