@@ -10,7 +10,7 @@
 const NUMBER = /^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i;
 
 /** Columns of the map table that hold text. */
-const TEXT_COLUMNS = new Set(['phase', 'fraction', 'lockedFilling', 'error']);
+const TEXT_COLUMNS = new Set(['phase', 'fraction', 'atSearchLimit', 'lockedFilling', 'error']);
 /** Columns that hold space-separated numbers. */
 const LIST_COLUMNS = new Set(['cell', 'sublatticeDensities', 'sublatticeCoherences']);
 /** Number fields of a JSON point (beside ix, iy and the axes) when present. */

@@ -3,7 +3,7 @@
  * of a map (so two writers of one map give the same bytes; the writing itself is outside
  * the core):
  *
- *   ix, iy, <x axis>, [<y axis>], phase, fraction, cellSize, lockedFilling, cell, alpha, photonDensity,
+ *   ix, iy, <x axis>, [<y axis>], phase, fraction, cellSize, atSearchLimit, lockedFilling, cell, alpha, photonDensity,
  *   emitterDensity, excitationDensity, grandPotential, [mu], sublatticeDensities,
  *   sublatticeCoherences, [coexistLowFraction, coexistLowDensity, coexistHighDensity], error
  *
@@ -13,6 +13,9 @@
  * at T > 0). `lockedFilling` is the filling p/q only where the density is locked to it
  * (plateauFraction: no condensate, every sublattice empty or full, the density equal to p/q
  * within the saturation tolerance); empty elsewhere. JSON points carry it too.
+ * `atSearchLimit` is true where the winning pattern's cell is the largest searched
+ * (cellSize = Mmax): such a point may be an artefact of the limit, and a larger Mmax can
+ * replace it by a longer period (a thin 1/12 region on a 2D map, say).
  * Lists (sublattice densities, coherences, the cell's Hermite normal form a b c) are
  * space-separated inside one field. A point that could not be solved has empty state
  * fields and its reason in `error`; a solved point has an empty `error`.
@@ -45,6 +48,11 @@ export function mapHeader(plan: ScanPlan, shard: ShardMeta | null = null): MapHe
 /** First words of a shard's tag line (merge reads it back). */
 export const SHARD_TAG = '# blockade-atlas map';
 
+/** The state's pattern uses the largest cell the search tried (M = Mmax). */
+export function atSearchLimit(s: Pick<SolveResult, 'cellSize'>, maxCell: number): boolean {
+  return s.cellSize === maxCell;
+}
+
 type Column = [name: string, value: (s: SolveResult) => Cell];
 
 const list = (xs: number[]) => xs.map(String).join(' ');
@@ -53,6 +61,7 @@ const list = (xs: number[]) => xs.map(String).join(' ');
 function stateColumns(h: MapHeader): Column[] {
   const cols: Column[] = [
     ['phase', (s) => s.phase], ['fraction', (s) => s.fraction ?? ''], ['cellSize', (s) => s.cellSize],
+    ['atSearchLimit', (s) => String(atSearchLimit(s, h.params.maxCell))],
     ['lockedFilling', (s) => plateauFraction(s, h.params.maxCell) ?? ''],
     ['cell', (s) => `${s.cell.a} ${s.cell.b} ${s.cell.c}`], ['alpha', (s) => s.alpha],
     ['photonDensity', (s) => s.photonDensity], ['emitterDensity', (s) => s.emitterDensity],
@@ -107,7 +116,8 @@ export function paramsJson(p: ModelParams): ModelParams {
 export function mapJsonPoint(h: MapHeader, pt: ScanPoint): Record<string, unknown> {
   return {
     ix: pt.ix, iy: pt.iy, [h.x.name]: h.x.values[pt.ix], ...(h.y ? { [h.y.name]: h.y.values[pt.iy] } : {}),
-    ...(pt.state ?? {}), ...(pt.state ? { lockedFilling: plateauFraction(pt.state, h.params.maxCell) } : {}),
+    ...(pt.state ?? {}),
+    ...(pt.state ? { atSearchLimit: atSearchLimit(pt.state, h.params.maxCell), lockedFilling: plateauFraction(pt.state, h.params.maxCell) } : {}),
     ...(pt.error !== undefined ? { error: pt.error } : {}),
   };
 }
