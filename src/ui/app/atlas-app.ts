@@ -10,6 +10,8 @@ import { decodeState, encodeState, queryHasState } from '../state/url-codec.ts';
 import { clearSession, loadSession, saveSession } from '../state/session-store.ts';
 import { type ParsedModel, parseModel } from '../model/model-inputs.ts';
 import { browserEngineClient } from '../engine/browser-engine.ts';
+import { AXIS_ENTRIES } from '../../core/scan/model-entries.ts';
+import type { AxisName } from '../../core/scan/axes.ts';
 import { sharedStyles } from './shared-styles.ts';
 import './model-form.ts';
 import '../views/phase-atlas-view.ts';
@@ -25,6 +27,21 @@ import '../views/array-planner-view.ts';
 function workerCount(): number {
   const n = Number(new URLSearchParams(location.search).get('workers'));
   return Number.isInteger(n) && n >= 1 && n <= 64 ? n : Math.max(1, navigator.hardwareConcurrency || 2);
+}
+
+/** Model fields the shown view sets itself (map axes, the staircase's mu scan), with the note the form shows. */
+function overriddenFields(s: AppState): Partial<Record<ModelKey, string>> {
+  const out: Partial<Record<ModelKey, string>> = {};
+  if (s.view === 'atlas') {
+    for (const which of ['x', 'y'] as const) {
+      const name = s.atlas[which].split('=')[0].trim() as AxisName;
+      for (const k of AXIS_ENTRIES[name] ?? []) out[k as ModelKey] ??= `set by the ${which} axis`;
+    }
+  } else if (s.view === 'staircase') {
+    out.mu = 'set by the \u03bc scan of the staircase';
+    out.density = 'the staircase scans \u03bc instead';
+  }
+  return out;
 }
 
 const VIEW_TITLES: Record<ViewName, string> = {
@@ -142,7 +159,7 @@ export class AtlasApp extends LitElement {
       </header>
       <div class="layout" @model-input=${this.onModelInput} @model-replace=${this.onModelReplace} @section-change=${this.onSectionChange}>
         <aside aria-label="Model inputs">
-          <model-form .inputs=${s.model} .errors=${this.parsed.errors}></model-form>
+          <model-form .inputs=${s.model} .errors=${this.parsed.errors} .overrides=${overriddenFields(s)}></model-form>
         </aside>
         <main>
           <nav role="tablist" aria-label="Views" @keydown=${this.onTabKey}>

@@ -2,6 +2,13 @@
  * Fluctuation branches omega_n(k) along the zone path (a line per branch, the extra
  * photon branch at the zone centre as dots), and the stability margin against k with the
  * softest wavevector k* marked. High-symmetry corners label the horizontal axis.
+ *
+ * Nothing is hidden: branches that coincide along the whole path (flat bands of equal
+ * sublattices) are drawn dashed over each other and named together in the legend, and
+ * whatever lies outside the chosen frequency range is counted in a note at the top. By
+ * default the range follows the low branches (the lowest LOW_BRANCHES); "all" takes every
+ * branch and the photon-like dots; a [lo, hi] pair zooms to it. Narrow figures (under
+ * NARROW px) put the legend under the axis so the plot keeps its width and its axes.
  */
 import type { StateSpectrum } from '../../core/spectrum/state-spectrum.ts';
 import { renderFigure } from '../plot/figure.ts';
@@ -10,11 +17,23 @@ import { dots } from '../plot/dot.ts';
 import { bandsX, type Band } from '../plot/band.ts';
 import { ruleX, ruleY } from '../plot/rule.ts';
 import { axisX, axisY } from '../plot/axis.ts';
-import { legend, type LegendEntry } from '../plot/legend.ts';
-import type { Mark } from '../plot/frame.ts';
+import { legend, legendBelowHeight, type LegendEntry } from '../plot/legend.ts';
+import type { Frame, Mark } from '../plot/frame.ts';
+import { el, esc } from '../plot/svg-markup.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
+import { kText } from '../model/pi-multiple.ts';
 
 const BRANCH = ['#165a78', '#b3124e', '#0c6e4f', '#5a2ca0', '#8a4b00', '#1d2430'];
+
+/** Branches the default frequency range follows. */
+export const LOW_BRANCHES = 3;
+/** Figures narrower than this (px) take their legend below the axis. */
+export const NARROW = 560;
+/** Two branches coincide when they differ by less than this (g) at every path point. */
+const SAME = 1e-9;
+
+/** Frequency range of the branch figure: the low branches, all of them, or [lo, hi] in g. */
+export type BranchRange = 'low' | 'all' | [number, number];
 
 /** Corner labels as symbols. */
 export function cornerLabel(l: string): string {
@@ -27,7 +46,35 @@ export function softPathPosition(sp: StateSpectrum): number | null {
   return typeof k === 'number' ? Math.abs(k) : null;
 }
 
-export function branchesFigure(sp: StateSpectrum, width: number, height: number, title: string): RenderedFigure {
+/** Groups of branch indices that coincide at every path point (each group ascending). */
+export function coincidentBranches(lines: number[][]): number[][] {
+  const groups: number[][] = [];
+  const taken = new Set<number>();
+  for (let n = 0; n < lines.length; n++) {
+    if (taken.has(n)) continue;
+    const g = [n];
+    for (let m = n + 1; m < lines.length; m++) {
+      if (!taken.has(m) && lines[n].every((w, i) => Math.abs(w - lines[m][i]) < SAME)) { g.push(m); taken.add(m); }
+    }
+    groups.push(g);
+  }
+  return groups;
+}
+
+/** A note in the top left corner of the plot area (what the range leaves out). */
+function cornerNote(text: string): Mark {
+  return {
+    clip: false,
+    render(f: Frame) {
+      return el('text', { class: 'range-note', x: f.inner.x0 + 6, y: f.inner.y0 + 13, 'font-size': 11, fill: '#7a1f1f',
+        stroke: '#ffffff', 'stroke-width': 3, 'paint-order': 'stroke' }, esc(text));
+    },
+  };
+}
+
+const f4 = (x: number) => Number(x.toPrecision(4)).toString();
+
+export function branchesFigure(sp: StateSpectrum, width: number, height: number, title: string, range: BranchRange = 'low'): RenderedFigure {
   const s = sp.branches.map((b) => b.s);
   const common = Math.min(...sp.branches.map((b) => b.omega.length));
   // At the zone centre the photon adds a branch: take out the one with the largest photon
@@ -40,23 +87,45 @@ export function branchesFigure(sp: StateSpectrum, width: number, height: number,
     b.omega.forEach((w, i) => { if (Math.abs(w - photonOmega) < Math.abs(b.omega[j] - photonOmega)) j = i; });
     return { line: b.omega.filter((_, i) => i !== j), extra: [b.omega[j]] };
   });
+  const lines = Array.from({ length: common }, (_, n) => omegas.map((o) => o.line[n]));
+  const extra = sp.branches.flatMap((b, i) => omegas[i].extra.map((w) => ({ x: b.s, y: w })));
+  // the frequency range: zoomed, every branch, or the lowest LOW_BRANCHES (branches are ordered by frequency)
+  const span = (vals: number[]): [number, number] => {
+    const v = [0, ...vals.filter(Number.isFinite)];
+    const lo = Math.min(...v), hi = Math.max(...v), pad = (hi - lo) * 0.06 || 0.5;
+    return [lo - pad, hi + pad];
+  };
+  const y: [number, number] = Array.isArray(range) ? [range[0], range[1]]
+    : span(range === 'all' ? [...lines.flat(), ...extra.map((p) => p.y)] : lines.slice(0, LOW_BRANCHES).flat());
+  const inRange = (w: number) => w >= y[0] && w <= y[1];
   const marks: Mark[] = [];
   const entries: LegendEntry[] = [];
-  const ys: number[] = [0];
-  for (let n = 0; n < common; n++) {
-    const y = omegas.map((o) => o.line[n]);
-    ys.push(...y);
-    const c = BRANCH[n % BRANCH.length];
-    marks.push(line(s, y, { stroke: c, width: 1.8 }));
-    if (n < 5) entries.push({ label: `branch ${n + 1}`, swatch: { kind: 'line', stroke: c, width: 1.8 } });
-  }
-  if (common > 5) entries.push({ label: `\u2026 ${common} branches`, swatch: { kind: 'line', stroke: '#7d8798' } });
-  const extra = sp.branches.flatMap((b, i) => omegas[i].extra.map((w) => ({ x: b.s, y: w })));
+  const groups = coincidentBranches(lines);
+  groups.forEach((g, gi) => {
+    g.forEach((n, j) => {
+      const c = BRANCH[n % BRANCH.length];
+      // coincident branches: the later ones dashed over the first, so each colour shows
+      marks.push(line(s, lines[n], { stroke: c, width: 1.8, dash: j === 0 ? undefined : `${4 + 2 * j} ${4 + 2 * j}` }));
+    });
+    const c = BRANCH[g[0] % BRANCH.length];
+    const name = g.length === 1 ? `branch ${g[0] + 1}` : `branches ${g.map((n) => n + 1).join(' = ')} (${g.length}-fold)`;
+    if (gi < 8) entries.push({ label: name, swatch: { kind: 'line', stroke: c, width: 1.8, dash: g.length > 1 ? '6 6' : undefined } });
+  });
+  if (groups.length > 8) entries.push({ label: `and ${groups.length - 8} more (${common} in all)`, swatch: { kind: 'line', stroke: '#7d8798' } });
   if (extra.length) {
-    ys.push(...extra.map((p) => p.y));
     marks.push(dots(extra.map((p) => ({ ...p, r: 4, fill: '#c46a00', stroke: '#1d2430' }))));
     entries.push({ label: 'photon-like (k = 0)', swatch: { kind: 'dot', fill: '#c46a00' } });
   }
+  // what the range leaves out, said on the figure
+  const above = lines.filter((l) => l.every((w) => !Number.isFinite(w) || w > y[1])).length;
+  const partly = lines.filter((l) => l.some((w) => Number.isFinite(w) && !inRange(w))).length - above;
+  const dotsOut = extra.filter((p) => !inRange(p.y)).length;
+  const top = Math.max(...lines.flat().filter(Number.isFinite), ...extra.map((p) => p.y));
+  const out: string[] = [];
+  if (above) out.push(`${above} branch${above === 1 ? '' : 'es'} above`);
+  if (partly) out.push(`${partly} partly outside`);
+  if (dotsOut) out.push(`the photon-like mode${dotsOut === 1 ? '' : 's'} outside`);
+  if (out.length) marks.push(cornerNote(`${out.join(', ')} (highest \u03c9 = ${f4(top)} g): choose "all branches" to see them`));
   // runs of path points with complex eigenvalues, shaded (half a step either side)
   const bands: Band[] = [];
   const h = s.length > 1 ? (s[1] - s[0]) / 2 : 0;
@@ -74,10 +143,12 @@ export function branchesFigure(sp: StateSpectrum, width: number, height: number,
   marks.push(ruleY(0, { stroke: '#7d8798', dash: '2 2' }));
   marks.push(axisX({ label: 'wavevector along the path (1/a)', tickValues: sp.ticks.map((t) => ({ value: t.s, label: cornerLabel(t.label) })) }));
   marks.push(axisY({ label: 'frequency \u03c9 (g), frame rotating at \u03bc', grid: true }));
-  marks.push(legend(entries, { title: 'Branches' }));
-  const lo = Math.min(...ys), hi = Math.max(...ys), pad = (hi - lo) * 0.06 || 0.5;
+  const narrow = width < NARROW;
+  marks.push(legend(entries, narrow ? { below: true } : { title: 'Branches' }));
+  const below = narrow ? legendBelowHeight(entries.length, width) : 0;
   const { svg, frame } = renderFigure({
-    id: 'branches', width, height, margin: { right: 200, left: 62 }, x: [s[0], s[s.length - 1]], y: [lo - pad, hi + pad], marks, title,
+    id: 'branches', width, height: height + below, margin: narrow ? { right: 14, left: 62, bottom: 46 + below } : { right: 200, left: 62 },
+    x: [s[0], s[s.length - 1]], y, marks, title,
   });
   return { svg, frame, name: 'branches', title };
 }
@@ -95,16 +166,19 @@ export function marginFigure(sp: StateSpectrum, width: number, height: number): 
   ];
   if (kStar !== null) {
     marks.push(ruleX(kStar, { stroke: '#c46a00', width: 1.5, label: 'k*' }));
-    entries.push({ label: `k* = ${kStar.toFixed(4)} (${sp.softMode.kind})`, swatch: { kind: 'line', stroke: '#c46a00', width: 1.5 } });
+    entries.push({ label: `k* = ${kText(kStar, 4)} (${sp.softMode.kind})`, swatch: { kind: 'line', stroke: '#c46a00', width: 1.5 } });
   }
   for (const t of sp.ticks) marks.push(ruleX(t.s, { stroke: '#c9cfd9' }));
   marks.push(axisX({ label: 'wavevector along the path (1/a)', tickValues: sp.ticks.map((t) => ({ value: t.s, label: cornerLabel(t.label) })) }));
-  marks.push(axisY({ label: 'stability margin (dimensionless)', grid: true }), legend(entries, { title: 'Static stability' }));
+  const narrow = width < NARROW;
+  marks.push(axisY({ label: 'stability margin (dimensionless)', grid: true }), legend(entries, narrow ? { below: true } : { title: 'Static stability' }));
+  const below = narrow ? legendBelowHeight(entries.length, width) : 0;
   const ys = [...sp.margins, 0, sp.softMode.margin].filter(Number.isFinite);
   const lo = Math.min(...ys), hi = Math.max(...ys), pad = (hi - lo) * 0.08 || 0.1;
   const title = `Stability margin against k; softest mode margin ${sp.softMode.margin.toPrecision(4)}`;
   const { svg, frame } = renderFigure({
-    id: 'margin', width, height, margin: { right: 200, left: 62 }, x: [s[0], s[s.length - 1]], y: [lo - pad, hi + pad], marks, title,
+    id: 'margin', width, height: height + below, margin: narrow ? { right: 14, left: 62, bottom: 46 + below } : { right: 200, left: 62 },
+    x: [s[0], s[s.length - 1]], y: [lo - pad, hi + pad], marks, title,
   });
   return { svg, frame, name: 'stability-margin', title };
 }

@@ -12,7 +12,10 @@ import { parseNumber } from '../model/model-inputs.ts';
 import type { StateSpectrum } from '../../core/spectrum/state-spectrum.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
 import { EngineTask } from '../controllers/engine-task.ts';
-import { branchesFigure, marginFigure } from '../figures/spectrum-figure.ts';
+import { type BranchRange, LOW_BRANCHES, branchesFigure, marginFigure } from '../figures/spectrum-figure.ts';
+import { kText } from '../model/pi-multiple.ts';
+import { inPageWords } from '../model/page-words.ts';
+import { term, termStyles } from '../app/term-tip.ts';
 import { sharedStyles } from '../app/shared-styles.ts';
 import { cliLine, modelFlags } from '../export/cli-command.ts';
 import type { Table } from '../export/table.ts';
@@ -26,7 +29,15 @@ type Section = AppState['modes'];
 /** Wall time a spectrum may take before it is stopped and the view says so (2D cells of up to 12 sites take ~20 s). */
 const MODES_BUDGET_MS = 180_000;
 const f = (x: number) => (Math.abs(x) < 1e-12 ? '0' : Number(x.toPrecision(6)).toString());
-const kText = (k: number | [number, number]) => (typeof k === 'number' ? f(k) : `(${f(k[0])}, ${f(k[1])})`);
+
+/** The zoom entry "lo:hi" (g) as a range, or the reason it is not one. */
+export function parseZoom(text: string): [number, number] | string {
+  const m = text.split(':');
+  const lo = Number(m[0]), hi = Number(m[1]);
+  if (m.length !== 2 || m[0].trim() === '' || m[1].trim() === '' || !Number.isFinite(lo) || !Number.isFinite(hi)) return `write the frequency range as lo:hi in g, e.g. 0:3 (got "${text}")`;
+  if (!(lo < hi)) return `the range needs lo < hi (got ${lo}:${hi})`;
+  return [lo, hi];
+}
 
 /** Branch table: one row a path point (k, arc length, margin, growth, omega_1..n). */
 export function spectrumTable(sp: StateSpectrum): Table {
@@ -39,7 +50,13 @@ export function spectrumTable(sp: StateSpectrum): Table {
 }
 
 export class ModesView extends LitElement {
-  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false } };
+  static override properties = {
+    section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false },
+    zoom: { state: true }, zoomText: { state: true },
+  };
+  /** Frequency range of the branch figure (view-local: it changes the look, never a result). */
+  declare zoom: 'low' | 'all' | 'custom';
+  declare zoomText: string;
   declare section: Section;
   declare model: ParsedModel;
   declare inputs: ModelInputs;
@@ -48,12 +65,19 @@ export class ModesView extends LitElement {
   private inputError: string | null = null;
   private size = new HostWidthController(this);
 
-  static override styles = [sharedStyles, css`
+  constructor() {
+    super();
+    this.zoom = 'low';
+    this.zoomText = '';
+  }
+
+  static override styles = [sharedStyles, termStyles, css`
     :host { display: block; }
     .controls { display: flex; gap: 16px; flex-wrap: wrap; align-items: flex-end; margin-bottom: 8px; }
     .controls label { display: block; font-size: 13px; }
     .controls input { width: 90px; }
     .summary { font-size: 14px; margin: 6px 0; }
+    .controls select { max-width: 100%; }
   `];
 
 
@@ -82,11 +106,13 @@ export class ModesView extends LitElement {
 
   override render() {
     const sp = this.task.value;
-    const w = Math.max(340, Math.min(this.size.width, 1000));
+    const w = Math.max(300, Math.min(this.size.width, 1000));
     const h = Math.round(Math.min(420, Math.max(260, w * 0.42)));
     const st = sp?.state;
     const stale = !sp ? '' : !this.model.params || this.inputError ? 'out of date: an entry is invalid'
       : !this.task.stale ? '' : this.task.status === 'pending' ? 'out of date, recomputing\u2026' : 'out of date (not recomputed)';
+    const zoomed = this.zoom === 'custom' ? parseZoom(this.zoomText) : null;
+    const range: BranchRange = this.zoom === 'custom' ? (typeof zoomed === 'string' ? 'low' : zoomed!) : this.zoom;
     const cmd = cliLine('spectrum', [...modelFlags(this.inputs), ...(this.section.cell.trim() ? ['--cell', this.section.cell.trim()] : []), '--points', this.section.points.trim(), '--json']);
     return html`
       <div class="controls">
@@ -96,19 +122,28 @@ export class ModesView extends LitElement {
           @input=${(e: Event) => this.patch({ cell: (e.target as HTMLInputElement).value })}></div>
         <div aria-live="polite">${this.task.status === 'pending' ? html`computing\u2026 <button @click=${() => this.task.abort()}>Cancel</button>` : nothing}
           ${this.task.status !== 'pending' && (this.task.stale || this.task.error) ? html`<button class="retry" @click=${() => this.task.retry()}>Run again</button>` : nothing}</div>
+        <div><label for="md-zoom">Frequency range</label>
+          <select id="md-zoom" name="modes-zoom" @change=${(e: Event) => { this.zoom = (e.target as HTMLSelectElement).value as 'low' | 'all' | 'custom'; }}>
+            <option value="low" ?selected=${this.zoom === 'low'}>the ${LOW_BRANCHES} lowest branches</option>
+            <option value="all" ?selected=${this.zoom === 'all'}>all branches</option>
+            <option value="custom" ?selected=${this.zoom === 'custom'}>zoom to lo:hi</option></select></div>
+        ${this.zoom === 'custom' ? html`<div><label for="md-zoom-range">ω from:to (g)</label><input id="md-zoom-range" name="modes-zoom-range" .value=${this.zoomText}
+          aria-invalid=${typeof zoomed === 'string' ? 'true' : 'false'} aria-describedby="md-zoom-msg"
+          @input=${(e: Event) => { this.zoomText = (e.target as HTMLInputElement).value; }}>
+          <div class="err" id="md-zoom-msg">${typeof zoomed === 'string' && this.zoomText.trim() ? zoomed : ''}</div></div>` : nothing}
       </div>
       ${this.inputError ? html`<p class="err" role="alert">${this.inputError}</p>` : nothing}
-      ${this.task.error ? html`<p class="err" role="alert">${this.task.error}</p>` : nothing}
+      ${this.task.error ? html`<p class="err" role="alert">${inPageWords(this.task.error)}</p>` : nothing}
       ${!this.model.params ? html`<p class="err">The model has an invalid entry: showing the last good spectrum.</p>` : nothing}
       ${sp && st ? html`
-        <p class="summary ${stale ? 'stale-text' : ''}" role="status">${stale ? html`<strong class="err">${stale}:</strong> ` : nothing}State: <strong>${PHASE_NAMES[st.phase]}${st.fraction ? ' ' + st.fraction : ''}</strong> (M = ${st.cellSize}).
-          Softest mode at <strong class="kstar">k* = ${kText(sp.softMode.k)}</strong> (${sp.softMode.kind}), margin
+        <p class="summary ${stale ? 'stale-text' : ''}" role="status">${stale ? html`<strong class="err">${stale}:</strong> ` : nothing}State: <strong>${st.phase === 'supersolid' ? term('supersolid', PHASE_NAMES[st.phase]) : PHASE_NAMES[st.phase]}${st.fraction ? ' ' + st.fraction : ''}</strong> (M = ${st.cellSize}).
+          Softest mode at <strong class="kstar">k* = ${kText(sp.softMode.k)}</strong> (${sp.softMode.kind}), ${term('margin')}
           <strong class="margin">${f(sp.softMode.margin)}</strong>: ${sp.softMode.stable ? 'thermodynamically stable' : 'UNSTABLE (a lower state exists in the cell of k*)'};
           ${sp.dynamicallyStable ? 'dynamically stable (real frequencies).' : html`<span class="err">dynamically unstable, growth rate ${f(sp.growth)} g.</span>`}</p>
-        <figure-panel class="branches" stale=${stale} .figure=${branchesFigure(sp, w, h, `Fluctuation branches of the ${PHASE_NAMES[st.phase]} state`)}></figure-panel>
+        <figure-panel class="branches" stale=${stale} .figure=${branchesFigure(sp, w, h, `Fluctuation branches of the ${PHASE_NAMES[st.phase]} state`, range)}></figure-panel>
         <figure-panel class="margin" stale=${stale} .figure=${marginFigure(sp, w, Math.round(h * 0.8))}></figure-panel>
-        <p class="muted">At k = 0: ${sp.zoneCentre.omega.map((o, i) => `${f(o)} g (photon weight ${f(sp.zoneCentre.photonWeight[i])})`).join(', ')}.
-          Margin: lowest eigenvalue of the static stability matrix, 1 for free emitters, 0 on a soft-mode line.</p>
+        <p class="muted">At k = 0 (${term('photon weight')} in brackets): ${sp.zoneCentre.omega.map((o, i) => `${f(o)} g (${f(sp.zoneCentre.photonWeight[i])})`).join(', ')}.
+          ${term('margin', 'Margin')}: lowest eigenvalue of the static stability matrix, 1 for free emitters, 0 on a soft-mode line.</p>
         <data-export class="modes-export" .table=${spectrumTable(sp)} .json=${sp} name="spectrum" .command=${cmd}></data-export>` : nothing}
       <limits-note lattice=${this.model.params?.lattice ?? this.inputs.lattice} temperature=${this.model.params?.T ?? 0}></limits-note>`;
   }
