@@ -38,6 +38,17 @@ export interface AppState {
     detuning: string; mu: string; temperature: string; tunit: string;
     /** Losses: cavity linewidth, emitter decay and dephasing, full widths in MHz (blank: not asked). */
     kappa: string; gamma: string; dephasing: string;
+    /** Standard uncertainties (one sigma) of the spacing (um), the detuning and the pump (MHz); blank = exact. */
+    dspacing: string; ddetuning: string; dmu: string;
+  };
+  /**
+   * The lab's operating point put on every view by the planner's "use these numbers", in
+   * model units with its one-sigma tolerances (src/core/lab/operating-point.ts); all blank
+   * when there is none. `linear` is '1' while the first-order box is a fair picture.
+   */
+  lab: {
+    rb: string; drb: string; v1: string; dv1: string; detuning: string; ddetuning: string;
+    mu: string; dmu: string; temperature: string; g: string; linear: string;
   };
 }
 
@@ -64,8 +75,15 @@ export function demoState(): AppState {
     planner: {
       c6: '140', spacing: '4', coupling: 'single', g0: '0.5', emitters: '200', splitting: '',
       detuning: '21', mu: '7', temperature: '0', tunit: 'uK', kappa: '', gamma: '', dephasing: '',
+      dspacing: '0.02', ddetuning: '0.5', dmu: '0.5',
     },
+    lab: emptyLab(),
   };
+}
+
+/** No operating point (the lab section all blank). */
+export function emptyLab(): AppState['lab'] {
+  return { rb: '', drb: '', v1: '', dv1: '', detuning: '', ddetuning: '', mu: '', dmu: '', temperature: '', g: '', linear: '' };
 }
 
 /** A deep copy (states are small plain objects of strings). */

@@ -6,7 +6,7 @@
  */
 import { type AppState, MODEL_KEYS, type SectionName, VIEWS, type ViewName, demoState } from './app-state.ts';
 
-const SECTIONS: SectionName[] = ['atlas', 'staircase', 'modes', 'correlated', 'planner'];
+const SECTIONS: SectionName[] = ['atlas', 'staircase', 'modes', 'correlated', 'planner', 'lab'];
 
 /** State -> query string (without the leading "?"). */
 export function encodeState(s: AppState): string {
