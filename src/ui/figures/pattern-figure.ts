@@ -2,7 +2,9 @@
  * The sublattice pattern of a mean-field state drawn on the lattice, to scale: every site
  * of a window of the lattice shaded by its sublattice's density m_s (white = empty, ink =
  * filled), ringed in amber with a width growing with its coherence |<sigma^x>_s| (the
- * emitter's share of the photon condensate), and the supercell outlined.
+ * emitter's share of the photon condensate), and the supercell outlined. The density
+ * legend is a continuous bar (m from 0 to 1, the same grey ramp as the sites), where m is the
+ * probability that a site's emitter is excited, <n> of its sublattice.
  */
 import type { MeanFieldState } from '../../core/meanfield/state.ts';
 import { type LatticeName, lattice, position } from '../../core/lattice/geometry.ts';
@@ -12,6 +14,8 @@ import { dots, type Dot } from '../plot/dot.ts';
 import { line } from '../plot/line.ts';
 import { axisX, axisY } from '../plot/axis.ts';
 import { legend } from '../plot/legend.ts';
+import type { Frame, Mark } from '../plot/frame.ts';
+import { el } from '../plot/svg-markup.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
 
 const COHERENCE = '#c46a00';
@@ -20,6 +24,33 @@ const COHERENCE = '#c46a00';
 export function densityGrey(m: number): string {
   const x = Math.min(1, Math.max(0, m));
   return `hsl(215 12% ${Math.round(100 - 86 * x)}%)`;
+}
+
+/** Height (px) the density bar takes at the top of the right margin, title and ticks included. */
+const BAR_BLOCK = 64;
+
+/** The gradient of densityGrey over m in [0, 1] (21 stops: the ramp is linear in lightness, piecewise in RGB). */
+function densityGradient(id: string): string {
+  const stops = Array.from({ length: 21 }, (_, i) => el('stop', { offset: `${i * 5}%`, 'stop-color': densityGrey(i / 20) })).join('');
+  return `<linearGradient id="${id}" x1="0" x2="1" y1="0" y2="0">${stops}</linearGradient>`;
+}
+
+/** A horizontal bar of m from 0 to 1 in the right margin, with ticks at 0, 0.5 and 1. */
+function densityBar(id: string): Mark {
+  return {
+    clip: false,
+    render(f: Frame) {
+      const x = f.inner.x1 + 14, y = f.inner.y0 + 4, w = 150, h = 12;
+      let out = el('text', { x, y: y + 10, 'font-weight': 'bold', fill: '#1d2430' }, 'm = ⟨n⟩ of the site');
+      out += el('rect', { x, y: y + 18, width: w, height: h, fill: `url(#${id})`, stroke: '#5b6577', 'stroke-width': 0.8 });
+      for (const [t, label] of [[0, '0 empty'], [0.5, '0.5'], [1, '1 excited']] as const) {
+        const X = x + t * w;
+        out += el('line', { x1: X, x2: X, y1: y + 18 + h, y2: y + 22 + h, stroke: '#1d2430' });
+        out += el('text', { x: X, y: y + 34 + h, 'text-anchor': t === 0 ? 'start' : t === 1 ? 'end' : 'middle', 'font-size': 10.5, fill: '#1d2430' }, label);
+      }
+      return `<g class="density-bar">${out}</g>`;
+    },
+  };
 }
 
 /** Sites (x, y, sublattice) of a window holding a few supercells. */
@@ -66,22 +97,22 @@ export function patternFigure(name: LatticeName, st: MeanFieldState, width: numb
   const ox = -(l.a1[0] + l.a2[0]) / 2, oy = -(l.a1[1] + l.a2[1]) / 2;
   const cx = l.dim === 1 ? [-0.5, A1[0] - 0.5, A1[0] - 0.5, -0.5, -0.5] : [0, A1[0], A1[0] + A2[0], A2[0], 0].map((v) => v + ox);
   const cy = l.dim === 1 ? [-0.6, -0.6, 0.6, 0.6, -0.6] : [0, A1[1], A1[1] + A2[1], A2[1], 0].map((v) => v + oy);
+  const gradientId = 'pattern-density';
   const marks = [
     line(cx, cy, { stroke: '#165a78', width: 1.5, dash: '5 3' }),
     dots(list),
     axisX({ label: 'x (lattice spacings a)' }),
     axisY({ label: 'y (a)' }),
+    densityBar(gradientId),
     legend([
-      { label: 'empty site (m = 0)', swatch: { kind: 'dot', fill: densityGrey(0), stroke: '#5b6577' } },
-      { label: 'half (m = 0.5)', swatch: { kind: 'dot', fill: densityGrey(0.5), stroke: '#5b6577' } },
-      { label: 'excited (m = 1)', swatch: { kind: 'dot', fill: densityGrey(1), stroke: '#5b6577' } },
       { label: 'coherence |\u27e8\u03c3x\u27e9|', swatch: { kind: 'dot', fill: '#ffffff', stroke: COHERENCE } },
       { label: `supercell (M = ${st.cellSize})`, swatch: { kind: 'line', stroke: '#165a78', dash: '5 3' } },
-    ], { title: 'Sites' }),
+    ], { top: BAR_BLOCK }),
   ];
   const title = `Sublattice pattern: ${st.phase}${st.fraction ? ' ' + st.fraction : ''}, M = ${st.cellSize}`;
   const { svg, frame } = renderFigure({
-    id: 'pattern', width, height, margin: { right: 190, left: 52 }, x: [x0, x1], y: [y0, y1], equalAspect: true, marks, title,
+    id: 'pattern', width, height: Math.max(height, 62 + BAR_BLOCK + 50), margin: { right: 190, left: 52 }, x: [x0, x1], y: [y0, y1], equalAspect: true, marks, title,
+    defs: () => densityGradient(gradientId),
   });
   return { svg, frame, name: 'sublattice-pattern', title };
 }

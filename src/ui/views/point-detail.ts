@@ -4,6 +4,9 @@
  * map has reached the point (`state`); otherwise it is solved once on the interactive
  * worker with the map's seed for the point (cold, as the first point of a segment). The
  * spectrum is computed about that state, never solving it again.
+ *
+ * It opens below the map: each newly opened point is scrolled into view (when its top is
+ * not already on screen), and Escape closes it from anywhere on the page.
  */
 import { LitElement, html, css, nothing } from 'lit';
 import type { ModelParams } from '../../core/model.ts';
@@ -20,7 +23,9 @@ import { PHASE_NAMES } from '../plot/phase-palette.ts';
 import type { StateSpectrum } from '../../core/spectrum/state-spectrum.ts';
 import { branchesFigure } from '../figures/spectrum-figure.ts';
 
-const fmtK = (k: number | [number, number]) => (typeof k === 'number' ? k.toFixed(4) : `(${k[0].toFixed(3)}, ${k[1].toFixed(3)})`);
+import { kText } from '../model/pi-multiple.ts';
+import { inPageWords } from '../model/page-words.ts';
+import { term, termStyles } from '../app/term-tip.ts';
 
 export class PointDetail extends LitElement {
   static override properties = {
@@ -48,7 +53,33 @@ export class PointDetail extends LitElement {
     this.command = '';
   }
 
-  static override styles = [sharedStyles, css`
+  /** Escape anywhere closes the point (unless another handler already took the key). */
+  private onKey = (e: KeyboardEvent) => {
+    if (e.key === 'Escape' && !e.defaultPrevented) { e.preventDefault(); this.close(); }
+  };
+
+  override connectedCallback() {
+    super.connectedCallback();
+    document.addEventListener('keydown', this.onKey);
+  }
+
+  override disconnectedCallback() {
+    document.removeEventListener('keydown', this.onKey);
+    super.disconnectedCallback();
+  }
+
+  /** The label last scrolled to: a new point scrolls once, later re-renders do not move the page. */
+  private shownLabel = '';
+
+  override updated() {
+    if (this.label === this.shownLabel) return;
+    this.shownLabel = this.label;
+    const r = this.getBoundingClientRect();
+    // its top below the lower fifth of the window (or above it): bring the header into view
+    if (r.top > innerHeight * 0.8 || r.top < 0) this.scrollIntoView({ block: 'start', behavior: 'smooth' });
+  }
+
+  static override styles = [sharedStyles, termStyles, css`
     :host { display: block; border: 1px solid var(--line); border-radius: 6px; padding: 8px 12px; background: var(--panel); }
     .cols { display: grid; grid-template-columns: minmax(0, 3fr) minmax(260px, 2fr); gap: 12px; align-items: start; }
     @media (max-width: 900px) { .cols { grid-template-columns: 1fr; } }
@@ -78,12 +109,14 @@ export class PointDetail extends LitElement {
     const s = this.task.value;
     const lat = this.params?.lattice ?? 'chain';
     return html`<section aria-label="Opened point" aria-busy=${this.task.status === 'pending' ? 'true' : 'false'}>
-      <header><h3>Point ${this.label}${s ? html`: <span class="phase-name">${phaseWords(s, this.params?.maxCell ?? s.cellSize)}</span>${this.params && s.cellSize === this.params.maxCell
+      <header><h3>Point ${this.label}${s ? html`: <span class="phase-name">${s.phase === 'supersolid' ? term('supersolid', phaseWords(s, this.params?.maxCell ?? s.cellSize)) : phaseWords(s, this.params?.maxCell ?? s.cellSize)}</span>${this.params && s.cellSize === this.params.maxCell
           ? html` <span class="err at-limit">(M = Mmax = ${s.cellSize}, the largest cell searched: may be an artefact of that limit)</span>` : nothing}` : nothing}</h3>
-        <button @click=${this.close} aria-label="Close the opened point">Close</button></header>
-      ${this.task.error ? html`<p class="err" role="alert">${this.task.error}</p>` : nothing}
+        <button @click=${this.close} aria-label="Close the opened point" title="Close (Escape)">Close</button></header>
+      ${this.task.error ? html`<p class="err" role="alert">${inPageWords(this.task.error)}</p>` : nothing}
       ${s ? html`<div class="cols">
-          <figure-panel class="pattern" .figure=${patternFigure(lat, s, Math.max(380, this.width * 0.58), lat === 'chain' ? 190 : 360)}></figure-panel>
+          <div><figure-panel class="pattern" .figure=${patternFigure(lat, s, Math.max(380, this.width * 0.58), lat === 'chain' ? 190 : 360)}></figure-panel>
+            <p class="muted m-note">Shade: m, the probability that the site's emitter is excited (⟨n⟩ of its sublattice), from white
+              (empty) to ink (excited). Amber ring: the coherence |⟨σx⟩|, the site's part in the photon condensate (wider = more).</p></div>
           <div>
             <table aria-label="Numbers of the opened point"><tbody>
               ${stateRows(s).map(([k, v, u]) => html`<tr><th class="l" scope="row">${k}</th><td>${v}</td><td class="l muted">${u}</td></tr>`)}
@@ -93,10 +126,10 @@ export class PointDetail extends LitElement {
         </div>` : html`<p class="muted">Solving\u2026</p>`}
       ${this.spectrum.value ? html`<figure-panel class="point-spectrum"
           .figure=${branchesFigure(this.spectrum.value, Math.max(380, this.width - 30), 260, `Fluctuation branches at this point`)}></figure-panel>
-        <p class="muted soft">Softest mode k* = ${fmtK(this.spectrum.value.softMode.k)} (${this.spectrum.value.softMode.kind}), margin
+        <p class="muted soft">Softest mode k* = ${kText(this.spectrum.value.softMode.k, 4)} (${this.spectrum.value.softMode.kind}), ${term('margin')}
           ${this.spectrum.value.softMode.margin.toPrecision(4)}${this.spectrum.value.softMode.stable ? ', stable' : ', unstable'};
           ${this.spectrum.value.dynamicallyStable ? 'real frequencies.' : 'complex frequencies (dynamically unstable).'}</p>`
-        : this.spectrum.error ? html`<p class="err">${this.spectrum.error}</p>` : html`<p class="muted">Spectrum…</p>`}
+        : this.spectrum.error ? html`<p class="err">${inPageWords(this.spectrum.error)}</p>` : html`<p class="muted">Spectrum…</p>`}
     </section>`;
   }
 }
