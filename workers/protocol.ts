@@ -131,6 +131,8 @@ export interface MapScanResult {
   solves?: number;
   /** Of those, the solves that located boundaries (confirming crystal crossings). */
   boundarySolves?: number;
+  /** Points solved in one cell only (a map refined without certification: T > 0, a temperature axis). */
+  cellSolves?: number;
   /** Phase boundaries as polylines (src/core/scan/boundaries.ts). */
   boundaries?: Boundary[];
   /** What the adaptive map could not do here (no certification, a shard solved densely). */

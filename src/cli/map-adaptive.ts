@@ -4,10 +4,12 @@
  * (it delivers a band of rows at a time in point order, so the writer streams it), or the
  * dense scan in windows of segments (map-stream.ts) when asked (--dense), for a shard
  * (shards interleave segments, not bands: a shard is solved densely, same pixels), or for a
- * plan the argument does not cover (T > 0, a temperature or density axis). The reason is a
- * note for stderr and the JSON summary (map-summary.ts).
+ * plan at fixed density. A plan the argument does not certify (T > 0, a temperature axis)
+ * is refined without certification (the scan's note says so). The reasons are notes for
+ * stderr and the JSON summary (map-summary.ts).
  */
 import { certificationBlocker } from '../core/scan/affine-axes.ts';
+import { uniformNote, uniformRefinable } from '../core/scan/refinement.ts';
 import type { ScanPlan, ScanPoint } from '../core/scan/grid.ts';
 import type { Shard } from '../core/scan/shards.ts';
 import type { Engine } from '../../workers/engine.ts';
@@ -34,7 +36,9 @@ export function mapMode(plan: ScanPlan, shard: Shard | undefined, dense: boolean
   if (dense) return { adaptive: false, notes: [DENSE_NOTE] };
   if (shard) return { adaptive: false, notes: [SHARD_NOTE] };
   const blocker = certificationBlocker(plan);
-  return blocker ? { adaptive: false, notes: [blocker] } : { adaptive: true, notes: [] };
+  if (!blocker) return { adaptive: true, notes: [] };
+  // a plan that cannot be certified is refined without certification, unless at fixed density
+  return uniformRefinable(plan) ? { adaptive: true, notes: [uniformNote(blocker)] } : { adaptive: false, notes: [blocker] };
 }
 
 /** Run the adaptive map from row fromRow on, points to onItem in point order (keepPoints false). */
@@ -51,11 +55,12 @@ export function runAdaptiveRows(
  * only the rows computed after resuming (a note says so).
  */
 export function mapSummary(mode: MapMode, result: MapScanResult | null, computed: number, fromRow: number): MapSummary {
-  const notes = [...mode.notes, ...(result?.notes ?? [])];
+  const notes = [...new Set([...mode.notes, ...(result?.notes ?? [])])];
   if (fromRow > 0) notes.push(`resumed at row ${fromRow}: solves and boundary lines count only the rows computed after resuming`);
   if (!mode.adaptive || !result) {
     return { solves: { total: computed, pixels: computed, boundaries: 0 }, notes, boundaries: null };
   }
   const total = result.solves ?? computed, b = result.boundarySolves ?? 0;
-  return { solves: { total, pixels: total - b, boundaries: b }, notes, boundaries: result.boundaries ?? [] };
+  const inCell = result.cellSolves !== undefined ? { inCell: result.cellSolves } : {};
+  return { solves: { total, pixels: total - b, boundaries: b, ...inCell }, notes, boundaries: result.boundaries ?? [] };
 }

@@ -22,8 +22,11 @@ import type { ScanPlan } from '../core/scan/grid.ts';
 
 /** The figures of one run. */
 export interface MapSummary {
-  /** Points solved in full: all, the pixels' (refinement and fill) and the boundaries'. */
-  solves: { total: number; pixels: number; boundaries: number };
+  /**
+   * Points solved in full: all, the pixels' (refinement and fill) and the boundaries';
+   * inCell: points solved in one cell only (a map refined without certification).
+   */
+  solves: { total: number; pixels: number; boundaries: number; inCell?: number };
   notes: string[];
   /** The boundary lines (null: not located, a dense map). */
   boundaries: Boundary[] | null;
@@ -54,6 +57,7 @@ export function boundariesCsv(plan: ScanPlan, bs: readonly Boundary[]): string {
 
 /** The solves figure in words, for stderr. */
 export function solvesText(s: MapSummary, pixels: number): string {
-  const { total, pixels: px, boundaries } = s.solves;
-  return `${total} points solved for ${pixels} pixels (${px} for the pixels, ${boundaries} confirming boundaries)`;
+  const { total, pixels: px, boundaries, inCell } = s.solves;
+  const cells = inCell !== undefined ? `; ${inCell} more solved in one cell only (not certified)` : '';
+  return `${total} points solved for ${pixels} pixels (${px} for the pixels, ${boundaries} confirming boundaries${cells})`;
 }

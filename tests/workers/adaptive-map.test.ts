@@ -76,12 +76,14 @@ describe('adaptive map = dense map, pixel for pixel', () => {
     expect((await both(sq)).differing).toBe(0);
   }, 300_000);
 
-  it('a T > 0 map is not certified: a note says so, every pixel is solved, pixels equal', async () => {
-    const warm: ScanPlan = { ...vdw, base: { ...vdw.base, T: 0.05 }, x: parseAxis('mu=0:2:17', 'x'), y: parseAxis('rb=1:2:3', 'y') };
+  it('a T > 0 map is refined without certification: a note says so, every pixel solved in full or in its region\'s cell, pixels equal here', async () => {
+    const warm: ScanPlan = { ...vdw, base: { ...vdw.base, T: 0.05 }, x: parseAxis('mu=0:2:17', 'x'), y: parseAxis('rb=1:2:9', 'y') };
     const { adaptive, differing } = await both(warm);
+    // not guaranteed (a pocket touching no coarse point would be missed), but none exists on this map
     expect(differing).toBe(0);
-    expect(adaptive.solves).toBe(51);
-    expect(adaptive.notes?.[0]).toMatch(/T > 0/);
+    expect((adaptive.solves as number) + (adaptive.cellSolves as number)).toBe(17 * 9);
+    expect(adaptive.solves).toBeLessThan(17 * 9);
+    expect(adaptive.notes?.[0]).toMatch(/not certified \(at T > 0/);
   }, 300_000);
 
   it('random off-grid points inside certified regions carry the certified crystal', async () => {

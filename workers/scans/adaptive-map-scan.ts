@@ -18,7 +18,7 @@ import { gridPoint, gridShape, pointSeed, rowCuts, spreadRows, type ScanPlan, ty
 import { applyAxis, type Axis } from '../../src/core/scan/axes.ts';
 import { affineCoordinate, axisValue, certificationBlocker } from '../../src/core/scan/affine-axes.ts';
 import { crystalOf, type Crystal } from '../../src/core/scan/crystal.ts';
-import { bandRects, coarseColumns, coarseRows, corners, refineLevel } from '../../src/core/scan/refinement.ts';
+import { bandRects, coarseColumns, coarseRows, corners, refineLevel, refineUniformLevel, subdivide, uniformNote, uniformRefinable, UNIFORM_STEP, type RegionCell } from '../../src/core/scan/refinement.ts';
 import {
   affineCrossing, chainBoundaries, crossing, crystalOmega, phaseName, type Crossing,
 } from '../../src/core/scan/boundaries.ts';
@@ -60,13 +60,24 @@ export async function runMap(pool: WorkerPool<Engine>, req: MapScanRequest, o: S
     rows = Array.from({ length: ny - from }, (_, i) => from + i);
   }
   const blocker = certificationBlocker(req.plan);
-  if (blocker) return dense(blocker);
-  return runAdaptive(pool, req, o, rows ?? Array.from({ length: ny }, (_, i) => i));
+  const all = rows ?? Array.from({ length: ny }, (_, i) => i);
+  if (blocker) {
+    if (!uniformRefinable(req.plan)) return dense(blocker);
+    const r = await runAdaptive(pool, req, o, all, 'uniform');
+    return { ...r, notes: [uniformNote(blocker)] };
+  }
+  return runAdaptive(pool, req, o, all, 'certify');
 }
+
 
 interface Band { y0: number; y1: number; rows: number[] }
 
-async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: ScanOptions<ScanPoint>, wanted: number[]): Promise<MapScanResult> {
+/**
+ * The banded adaptive map. mode 'certify': crystal rectangles are certified (exact);
+ * 'uniform': rectangles whose corners share phase and cell are solved in that cell only
+ * (refinement.ts refineUniformLevel; not certified, see uniformNote).
+ */
+async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: ScanOptions<ScanPoint>, wanted: number[], mode: 'certify' | 'uniform'): Promise<MapScanResult> {
   const { plan } = req;
   const { nx, ny } = gridShape(plan);
   const continuation = req.continuation ?? true;
@@ -91,7 +102,7 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
   const crossings: Crossing[] = [];
   const edgeRows = new Map<number, Array<SolveResult | undefined>>();
   const located = locateState(plan);
-  let solves = 0, boundarySolves = 0, remaining = bands.reduce((a, b) => a + b.rows.length * nx, 0);
+  let solves = 0, cellSolves = 0, boundarySolves = 0, remaining = bands.reduce((a, b) => a + b.rows.length * nx, 0);
   const progress = () => o.onProgress?.(solves, solves + remaining);
 
   const solveCold = async (pts: Array<{ p: ModelParams; seed: number; what: string }>): Promise<ColdOutcome[]> => {
@@ -115,14 +126,24 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
   for (const band of bands) {
     // refinement: every pixel of the band certified or solved cold
     const certified = new Map<number, Crystal>();
-    let rects = bandRects(cols, band.y0, band.y1);
+    const uniform = new Map<number, RegionCell>();
+    let rects = mode === 'uniform' ? subdivide(bandRects(cols, band.y0, band.y1), UNIFORM_STEP) : bandRects(cols, band.y0, band.y1);
     for (let level = 0; rects.length && level < 64; level++) {
       const need = new Map<number, [number, number]>();
       for (const r of rects) for (const [x, y] of corners(r)) if (!known.has(y * nx + x)) need.set(y * nx + x, [x, y]);
       const list = [...need.values()];
       const got = await solveCold(list.map(([x, y]) => ({ p: gridPoint(plan, x, y), seed: pointSeed(plan.seed, y * nx + x), what: at(x, y) })));
       list.forEach(([x, y], i) => known.set(y * nx + x, got[i]));
-      const lvl = refineLevel(rects, (x, y) => known.get(y * nx + x)?.cold?.state);
+      const stateAt = (x: number, y: number) => known.get(y * nx + x)?.cold?.state;
+      if (mode === 'uniform') {
+        const lvl = refineUniformLevel(rects, stateAt);
+        for (const { rect, region } of lvl.uniform) {
+          for (let y = rect.y0; y <= rect.y1; y++) for (let x = rect.x0; x <= rect.x1; x++) uniform.set(y * nx + x, region);
+        }
+        rects = lvl.children;
+        continue;
+      }
+      const lvl = refineLevel(rects, stateAt);
       for (const { rect, crystal } of lvl.certified) {
         for (let y = rect.y0; y <= rect.y1; y++) for (let x = rect.x0; x <= rect.x1; x++) certified.set(y * nx + x, crystal);
       }
@@ -139,15 +160,16 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
       const pixels: AdaptivePixel[] = [];
       for (let i = 0; i < seg.length; i++) {
         const ix = seg.ix0 + i, index = seg.iy * nx + ix;
-        const cr = certified.get(index), cold = known.get(index)?.cold;
+        const cr = certified.get(index), cold = known.get(index)?.cold, region = cold ? undefined : uniform.get(index);
         pixels.push({
           params: gridPoint(plan, ix, seg.iy), seed: pointSeed(plan.seed, index),
-          ...(cr ? { crystal: { cell: cr.cell, n: cr.n } } : {}), ...(cold ? { cold } : {}),
+          ...(cr ? { crystal: { cell: cr.cell, n: cr.n } } : {}), ...(cold ? { cold } : {}), ...(region ? { inCell: region } : {}),
         });
       }
       const out = await remote.meanfield.fillSegment({ pixels, continuation });
       out.forEach((r, i) => {
         solves += r.solves;
+        cellSolves += r.cellSolves ?? 0;
         const ix = seg.ix0 + i;
         bandPoints.push({ index: seg.iy * nx + ix, ix, iy: seg.iy, ...(r.state ? { state: r.state } : {}), ...(r.error !== undefined ? { error: r.error } : {}) });
       });
@@ -197,9 +219,13 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
     const before = solves;
     crossings.push(...await locate(edges, plan, located, solveCold));
     boundarySolves += solves - before;
+    // corners inside the band are done with; in row order so is every corner above its
+    // closing row y1, where the next band starts (memory: one coarse row of corners, not
+    // one a band of the map)
+    const spread = req.order === 'spread';
     for (const [index] of known) {
       const iy = Math.floor(index / nx);
-      if (iy > band.y0 && iy < band.y1) known.delete(index);
+      if (spread ? iy > band.y0 && iy < band.y1 : iy < band.y1) known.delete(index);
     }
   }
   const centre = (ix: number, iy: number) => [
@@ -207,7 +233,7 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
   ];
   const boundaries = chainBoundaries(crossings, nx, ny, centre);
   o.onProgress?.(solves, solves);
-  return { points, solves, boundarySolves, boundaries };
+  return { points, solves, boundarySolves, boundaries, ...(mode === 'uniform' ? { cellSolves } : {}) };
 }
 
 /** An edge between neighbouring pixels, along one axis. */

@@ -28,6 +28,7 @@ import { solveCell } from '../meanfield/sublattice.ts';
 import { isPrimitive, sameUpToTranslation } from '../meanfield/pattern.ts';
 import type { Supercell } from '../lattice/supercells.ts';
 import { validateModel, type ModelParams } from '../model.ts';
+import type { RegionCell } from './refinement.ts';
 
 /** What the runner knows of one point of a segment. */
 export interface AdaptivePixel {
@@ -37,6 +38,11 @@ export interface AdaptivePixel {
   crystal?: { cell: { a: number; b: number; c: number }; n: number[] };
   /** The point solved without a guess (a refinement corner; solveCold). */
   cold?: ColdPoint;
+  /**
+   * Inside a rectangle whose corners share phase and cell, without certification (T > 0,
+   * a temperature axis): solved in that cell only, with the dense search's starts there.
+   */
+  inCell?: RegionCell;
 }
 
 /** A point solved without a guess, with the cell its winner was found in (before reduction). */
@@ -66,6 +72,8 @@ export interface FilledPoint {
   error?: string;
   /** 1 when the point was solved in full here, else 0. */
   solves: number;
+  /** 1 when the point was solved in one cell only (an inCell pixel), else absent. */
+  cellSolves?: number;
 }
 
 /** Must equal cell-search.ts: translations within this are symmetries (primitive test). */
@@ -124,6 +132,22 @@ function certifiedState(ctx: Context, px: AdaptivePixel, guess: SolveResult | un
   return toState(ctx, best, mu);
 }
 
+/**
+ * A pixel inside a uniform rectangle (no certification): the best candidate of the region's
+ * cell, built as the dense search builds that cell's list (same seed, same guess). Equal to
+ * the dense answer wherever the dense winner lies in that cell; null when no start there
+ * converges (solve it in full).
+ */
+function inCellState(ctx: Context, px: AdaptivePixel, guess: SolveResult | undefined): SolveResult | null {
+  const r = px.inCell as RegionCell;
+  const cell = findCell(ctx, r.cell, r.M);
+  if (!cell) return null;
+  const mu = px.params.mu as number;
+  let best: Candidate | null = null;
+  for (const c of cellCandidates(ctx, cell, mu, { seed: px.seed, guess })) if (better(c, best)) best = c;
+  return best ? toState(ctx, best, mu) : null;
+}
+
 /** The dense state of a point solved cold, given the guess (null: solve it). */
 function knownState(ctx: Context, known: ColdPoint, guess: SolveResult | undefined, mu: number): SolveResult | null {
   const cold = known.state, sc = known.searchCell;
@@ -157,11 +181,12 @@ export function fillSegment(pixels: readonly AdaptivePixel[], continuation: bool
     let r: FilledPoint;
     try {
       let state: SolveResult | null = null;
-      if (px.crystal || px.cold) {
+      if (px.crystal || px.cold || px.inCell) {
         const ctx = context(px.params);
-        state = px.crystal ? certifiedState(ctx, px, guess) : knownState(ctx, px.cold as ColdPoint, guess, px.params.mu as number);
+        state = px.crystal ? certifiedState(ctx, px, guess) : px.cold ? knownState(ctx, px.cold, guess, px.params.mu as number) : inCellState(ctx, px, guess);
       }
-      r = state ? { state, solves: 0 } : { state: solveGroundState(px.params, { seed: px.seed, guess }), solves: 1 };
+      r = state ? { state, solves: 0, ...(px.inCell && !px.crystal && !px.cold ? { cellSolves: 1 } : {}) }
+        : { state: solveGroundState(px.params, { seed: px.seed, guess }), solves: 1 };
       prev = r.state;
     } catch (e) {
       prev = undefined;

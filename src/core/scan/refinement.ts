@@ -14,7 +14,7 @@
  */
 import type { SolveResult } from '../meanfield/ground-state.ts';
 import { crystalOf, type Crystal } from './crystal.ts';
-import { rowCuts } from './grid.ts';
+import { rowCuts, type ScanPlan } from './grid.ts';
 
 /** Rows of a band: refinement works on blocks of this many rows (plus the shared last one). */
 export const BAND_ROWS = 16;
@@ -71,12 +71,89 @@ export function refineLevel(rects: readonly Rect[], state: (ix: number, iy: numb
       out.certified.push({ rect: r, crystal: first });
       continue;
     }
-    const wide = r.x1 - r.x0 > 1, tall = r.y1 - r.y0 > 1;
-    if (!wide && !tall) continue;
-    const xm = Math.floor((r.x0 + r.x1) / 2), ym = Math.floor((r.y0 + r.y1) / 2);
-    const xs = wide ? [[r.x0, xm], [xm, r.x1]] : [[r.x0, r.x1]];
-    const ys = tall ? [[r.y0, ym], [ym, r.y1]] : [[r.y0, r.y1]];
-    for (const [x0, x1] of xs) for (const [y0, y1] of ys) out.children.push({ x0, x1, y0, y1 });
+    out.children.push(...split(r));
   }
   return out;
+}
+
+/** The two or four halves of a rectangle (none for a leaf, at most one pixel wide both ways). */
+function split(r: Rect): Rect[] {
+  const wide = r.x1 - r.x0 > 1, tall = r.y1 - r.y0 > 1;
+  if (!wide && !tall) return [];
+  const xm = Math.floor((r.x0 + r.x1) / 2), ym = Math.floor((r.y0 + r.y1) / 2);
+  const xs = wide ? [[r.x0, xm], [xm, r.x1]] : [[r.x0, r.x1]];
+  const ys = tall ? [[r.y0, ym], [ym, r.y1]] : [[r.y0, r.y1]];
+  const out: Rect[] = [];
+  for (const [x0, x1] of xs) for (const [y0, y1] of ys) out.push({ x0, x1, y0, y1 });
+  return out;
+}
+
+/** The cell a phase region is solved in: the primitive cell (Hermite normal form) and its size. */
+export interface RegionCell { cell: { a: number; b: number; c: number }; M: number }
+
+/**
+ * Identity of a state for refinement without certification (T > 0, a temperature axis):
+ * its phase label, pattern and primitive cell. Null for an unsolved point.
+ */
+export function regionKey(s: SolveResult | undefined): string | null {
+  if (!s) return null;
+  return `${s.phase} ${s.fraction ?? ''} ${s.cell.a},${s.cell.b},${s.cell.c}:${s.sublatticeDensities.length}`;
+}
+
+/** The outcome of one uncertified level: rectangles whose corners share a region key, and those to refine. */
+export interface UniformLevel {
+  uniform: Array<{ rect: Rect; region: RegionCell }>;
+  children: Rect[];
+}
+
+/**
+ * One level of refinement without certification: a rectangle whose four corners have the
+ * same regionKey is uniform (its inside is solved in that phase's cell only, an assumption:
+ * a pocket of another phase that touches no corner is missed), the others split as in
+ * refineLevel.
+ */
+export function refineUniformLevel(rects: readonly Rect[], state: (ix: number, iy: number) => SolveResult | undefined): UniformLevel {
+  const out: UniformLevel = { uniform: [], children: [] };
+  for (const r of rects) {
+    const ss = corners(r).map(([x, y]) => state(x, y));
+    const k0 = regionKey(ss[0]);
+    if (k0 !== null && ss.every((s) => regionKey(s) === k0)) {
+      const s = ss[0] as SolveResult;
+      out.uniform.push({ rect: r, region: { cell: { ...s.cell }, M: s.sublatticeDensities.length } });
+      continue;
+    }
+    out.children.push(...split(r));
+  }
+  return out;
+}
+
+/**
+ * Whether a plan that cannot be certified is refined without certification: yes unless the
+ * density is fixed (its own solver, a Maxwell construction over mu, is run at every pixel).
+ */
+export function uniformRefinable(plan: ScanPlan): boolean {
+  return plan.base.rho === undefined && plan.x.name !== 'density' && plan.y?.name !== 'density';
+}
+
+/** The note of a map refined without certification (why: certificationBlocker's sentence). */
+export function uniformNote(why: string): string {
+  return `not certified (${why.replace(/:.*$/, '')}): the map is refined where corner phases differ, and inside a rectangle whose corners share phase and cell each pixel is solved in that cell only; a pocket of another phase that touches no corner of the coarse grid would be missed (--dense searches every cell at every pixel)`;
+}
+
+/**
+ * Coarse spacing (pixels) of a map refined without certification: its rectangles start no
+ * wider or taller than this, so a pocket of another phase is missed only when it touches
+ * no point of a grid this fine.
+ */
+export const UNIFORM_STEP = 4;
+
+/** Halve rectangles (as refineLevel splits) until no side spans more than step pixels. */
+export function subdivide(rects: readonly Rect[], step: number): Rect[] {
+  const out: Rect[] = [];
+  const todo = [...rects];
+  for (let r = todo.pop(); r; r = todo.pop()) {
+    if (r.x1 - r.x0 <= step && r.y1 - r.y0 <= step) out.push(r);
+    else todo.push(...split(r));
+  }
+  return out.sort((a, b) => a.y0 - b.y0 || a.x0 - b.x0 || a.y1 - b.y1 || a.x1 - b.x1);
 }
