@@ -278,6 +278,8 @@ export class PhaseAtlasView extends LitElement {
         ${this.scan.failed ? html`<span class="err failed">${this.scan.failed} point${this.scan.failed === 1 ? '' : 's'} could not be solved (blank; the reason is in the export's error column)</span>` : nothing}
         ${!this.model.params ? html`<span class="err stale">The model has an invalid entry: showing the last good map.</span>` : nothing}
       </div>
+      ${g && g.solves !== null ? html`<p class="muted map-notes">${g.solves} of ${g.nx * g.ny} points solved in full${g.notes.length
+        ? html`; ${g.notes.map((n) => n.replace(/\s*\(--dense[^)]*\)/g, '')).join('; ')}` : ''}.</p>` : nothing}
       <figure-panel class="map" interactive .figure=${fig} .cursor=${this.hover} ?busy=${running} stale=${this.staleText()}
         .keyStep=${g ? [(g.plan.x.stop - g.plan.x.start) / Math.max(1, g.nx - 1), (g.plan.y.stop - g.plan.y.start) / Math.max(1, g.ny - 1)] : null}
         @plot-hover=${(e: CustomEvent) => { this.hover = [e.detail.x, e.detail.y]; }}
