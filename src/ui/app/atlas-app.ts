@@ -8,6 +8,9 @@ import { LitElement, html, css, nothing } from 'lit';
 import { type AppState, type ModelKey, type SectionName, type ViewName, VIEWS, demoState, cloneState } from '../state/app-state.ts';
 import { decodeState, encodeState, queryHasState } from '../state/url-codec.ts';
 import { clearSession, loadSession, saveSession } from '../state/session-store.ts';
+import { clearLabPoint, readLabPoint, useLabPoint } from '../state/lab-point.ts';
+import type { OperatingPoint } from '../../core/lab/operating-point.ts';
+import './session-menu.ts';
 import { type ParsedModel, parseModel } from '../model/model-inputs.ts';
 import { browserEngineClient } from '../engine/browser-engine.ts';
 import { AXIS_ENTRIES } from '../../core/scan/model-entries.ts';
@@ -130,6 +133,20 @@ export class AtlasApp extends LitElement {
     try { await navigator.clipboard.writeText(location.href); } catch { /* the address bar holds it too */ }
   }
 
+  /** The planner's "use these numbers": model, lab point and re-centred axes in one change. */
+  private onLabUse(e: CustomEvent<{ model: Partial<Record<ModelKey, string>>; point: OperatingPoint }>) {
+    this.commit(useLabPoint(this.state, e.detail.model, e.detail.point));
+  }
+
+  private onLabClear() {
+    this.commit(clearLabPoint(this.state));
+  }
+
+  /** A named session loaded from the browser's store replaces the state (the view it was saved on included). */
+  private onSessionLoad(e: CustomEvent<{ state: AppState }>) {
+    this.commit(e.detail.state);
+  }
+
   private reset() {
     clearSession();
     this.commit(demoState());
@@ -138,12 +155,13 @@ export class AtlasApp extends LitElement {
   private view() {
     const s = this.state;
     const common = { model: this.parsed };
+    const lab = readLabPoint(s.lab);
     switch (s.view) {
-      case 'atlas': return html`<phase-atlas-view .section=${s.atlas} .model=${common.model} .inputs=${s.model} .engine=${this.engine}></phase-atlas-view>`;
-      case 'staircase': return html`<staircase-view .section=${s.staircase} .model=${common.model} .inputs=${s.model} .engine=${this.engine}></staircase-view>`;
-      case 'modes': return html`<modes-view .section=${s.modes} .model=${common.model} .inputs=${s.model} .engine=${this.engine}></modes-view>`;
-      case 'correlated': return html`<correlated-view .section=${s.correlated} .model=${common.model} .inputs=${s.model} .engine=${this.engine}></correlated-view>`;
-      case 'planner': return html`<array-planner-view .section=${s.planner} .model=${common.model} .inputs=${s.model} .engine=${this.engine}></array-planner-view>`;
+      case 'atlas': return html`<phase-atlas-view .section=${s.atlas} .model=${common.model} .inputs=${s.model} .engine=${this.engine} .labPoint=${lab}></phase-atlas-view>`;
+      case 'staircase': return html`<staircase-view .section=${s.staircase} .model=${common.model} .inputs=${s.model} .engine=${this.engine} .labPoint=${lab}></staircase-view>`;
+      case 'modes': return html`<modes-view .section=${s.modes} .model=${common.model} .inputs=${s.model} .engine=${this.engine} .labPoint=${lab}></modes-view>`;
+      case 'correlated': return html`<correlated-view .section=${s.correlated} .model=${common.model} .inputs=${s.model} .engine=${this.engine} .labPoint=${lab}></correlated-view>`;
+      case 'planner': return html`<array-planner-view .section=${s.planner} .model=${common.model} .inputs=${s.model} .engine=${this.engine} .labPoint=${lab}></array-planner-view>`;
     }
   }
 
@@ -155,9 +173,11 @@ export class AtlasApp extends LitElement {
         <span class="demo" title="The default inputs are an invented demo scenario">Demo scenario: invented for this tool, not from an experiment</span>
         <span class="spacer"></span>
         <button @click=${this.copyLink} aria-label="Copy a link to this exact view">Copy link</button>
+        <session-menu .state=${s} @session-load=${this.onSessionLoad}></session-menu>
         <button @click=${this.reset}>Reset to demo</button>
       </header>
-      <div class="layout" @model-input=${this.onModelInput} @model-replace=${this.onModelReplace} @section-change=${this.onSectionChange}>
+      <div class="layout" @model-input=${this.onModelInput} @model-replace=${this.onModelReplace} @section-change=${this.onSectionChange}
+        @lab-point-use=${this.onLabUse} @lab-point-clear=${this.onLabClear}>
         <aside aria-label="Model inputs">
           <model-form .inputs=${s.model} .errors=${this.parsed.errors} .overrides=${overriddenFields(s)}></model-form>
         </aside>

@@ -11,6 +11,8 @@ import { parseNumber } from '../model/model-inputs.ts';
 import { type LabNumbers, type ModelNumbers, collectiveCouplingMHz, labToModel, modelToLab } from '../../core/lab/units.ts';
 import { sitesInsideBlockade, shellsInsideBlockade } from '../../core/lab/regime.ts';
 import { type LossBudget, lossBudget } from '../../core/lab/losses.ts';
+import { type OperatingPoint, operatingPoint } from '../../core/lab/operating-point.ts';
+import { type LabPoint, labPointText } from '../state/lab-point.ts';
 import { lossFields, lossResults, lossRows, typedLosses } from './planner-losses.ts';
 import type { LatticeName } from '../../core/lattice/geometry.ts';
 import type { ModelParams } from '../../core/model.ts';
@@ -40,9 +42,18 @@ const LAB_FIELDS: FieldSpec[] = [
   { key: 'temperature', label: 'Temperature of the excitations', unit: '' },
 ];
 
+/** Standard uncertainties (one sigma) of the entries the tolerance box is made of. */
+const SIGMA_FIELDS: FieldSpec[] = [
+  { key: 'dspacing', label: '± spacing a (one σ)', unit: 'µm' },
+  { key: 'ddetuning', label: '± detuning Δ / 2π (one σ)', unit: 'MHz' },
+  { key: 'dmu', label: '± pump μ / h (one σ)', unit: 'MHz' },
+];
+
 export class ArrayPlannerView extends LitElement {
-  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false } };
+  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false }, labPoint: { attribute: false } };
   declare section: PlannerSection;
+  /** The operating point in use on every view (null: none). */
+  declare labPoint: LabPoint | null;
   declare model: ParsedModel;
   declare inputs: ModelInputs;
   declare engine: EngineClient;
@@ -133,11 +144,45 @@ export class ArrayPlannerView extends LitElement {
     }
   }
 
-  private useInModel(m: ModelNumbers) {
+  /** The operating point with its first-order tolerance box (blank uncertainties are exact), or the entry at fault. */
+  private tolerance(lab: LabNumbers): { point?: OperatingPoint; error?: string; field?: string } {
+    const s = this.section;
+    const n = (k: 'dspacing' | 'ddetuning' | 'dmu') => ((s[k] ?? '').trim() === '' ? 0 : parseNumber(s[k]));
+    try {
+      return { point: operatingPoint(lab, { spacingUm: n('dspacing'), detuningMHz: n('ddetuning'), muMHz: n('dmu') }) };
+    } catch (e) {
+      const err = e as Error & { field?: string };
+      return { error: err.message, field: err.field };
+    }
+  }
+
+  /**
+   * Set the model to the point and put the point, with its tolerance box, on every view
+   * (atlas-app applies it: state/lab-point.ts re-centres the axes on it where needed).
+   */
+  private useInModel(m: ModelNumbers, point: OperatingPoint) {
     const patch: Record<string, string> = {
       interaction: 'vdw', strength: 'rb', rb: fmt(m.rbOverA, 6), detuning: fmt(m.delta, 6), pump: 'mu', mu: fmt(m.mu, 6), temperature: fmt(m.T, 6), range: '',
     };
-    this.dispatchEvent(new CustomEvent('model-replace', { detail: patch, bubbles: true, composed: true }));
+    this.dispatchEvent(new CustomEvent('lab-point-use', { detail: { model: patch, point }, bubbles: true, composed: true }));
+  }
+
+  /** The tolerance box in model units, and the point in use on the views. */
+  private toleranceBox(t: { point?: OperatingPoint; error?: string }) {
+    const pm = (a: { value: number; sigma: number }) => `${fmt(a.value)} ± ${fmt(a.sigma, 3)}`;
+    const p = t.point;
+    return html`<h3>Tolerance box (one σ, first order)</h3>
+      ${p ? html`<table aria-label="Tolerance box" class="tolerance"><tbody>
+        <tr><th class="l">Rb / a, σ = (Rb/a) σ_a / a</th><td class="box-rb">${pm(p.rbOverA)}</td><td class="l"></td></tr>
+        <tr><th class="l">V1, σ = 6 V1 σ_a / a</th><td class="box-v1">${pm(p.V1)}</td><td class="l">g</td></tr>
+        <tr><th class="l">δ, σ = σ_Δ / g</th><td class="box-delta">${pm(p.delta)}</td><td class="l">g</td></tr>
+        <tr><th class="l">μ, σ = σ_μ / g</th><td class="box-mu">${pm(p.mu)}</td><td class="l">g</td></tr></tbody></table>
+        ${p.linear ? nothing : html`<p class="caution" role="note">6 σ_a / a is not small: the V1 box is first order and the true interval is lopsided (V1 ∝ a⁻⁶).</p>`}
+        <p class="muted">C6, g and T are taken as exact; the inputs as uncorrelated (JCGM 100:2008 eq. 10). Rb/a and V1 share σ_a.</p>`
+        : html`<p class="err">${t.error ?? 'Fix the lab numbers first.'}</p>`}
+      ${this.labPoint ? html`<p class="lab-in-use" role="status"><strong>Lab point on every view:</strong> ${labPointText(this.labPoint)}
+          <button class="clear-lab" @click=${() => this.dispatchEvent(new CustomEvent('lab-point-clear', { bubbles: true, composed: true }))}>Take the lab point off the views</button></p>`
+        : html`<p class="muted">"Use these numbers" sets the model to this point and marks it, with this box, on the atlas, the staircase, the modes and the correlated check.</p>`}`;
   }
 
   private field(f: FieldSpec, errField?: string, err?: string) {
@@ -181,6 +226,8 @@ export class ArrayPlannerView extends LitElement {
     const point = current ? { lab: this.lab().lab!, model: current } : this.lastGood;
     const model = point?.model;
     const losses = point ? this.losses(point.lab, point.model) : null;
+    // the tolerance box of the current entries only (never of the last good ones: "use" must use what is typed)
+    const tol = current ? this.tolerance(point!.lab) : null;
     const lossValues = s as unknown as Record<string, string | undefined>;
     const lat = (this.model.params?.lattice ?? this.inputs.lattice) as LatticeName;
     const shown = LAB_FIELDS.filter((f) => (s.coupling === 'collective' ? f.key !== 'g0' && f.key !== 'emitters' : f.key !== 'splitting'));
@@ -207,10 +254,13 @@ export class ArrayPlannerView extends LitElement {
           ${shown.map((f) => this.field(f, field, error))}
           ${error && !shown.some((f) => f.key === field) ? html`<p class="err" role="alert">${error}</p>` : nothing}
         </fieldset>
+        <fieldset><legend>Uncertainties (one \u03c3; blank = exact)</legend>
+          ${SIGMA_FIELDS.map((f) => this.field(f, tol?.field, tol?.error))}
+        </fieldset>
         <fieldset><legend>Losses (full widths, \u03bd = E/h)</legend>
           ${lossFields(lossValues, (k, v) => this.patch({ [k]: v }), losses?.error)}
         </fieldset>
-        ${current ? html`<button class="primary" @click=${() => this.useInModel(current)}>Use these numbers in the model</button>` : nothing}
+        ${current ? html`<button class="primary use-numbers" ?disabled=${!tol?.point} @click=${() => tol?.point && this.useInModel(current, tol.point)}>Use these numbers in the model</button>` : nothing}
       </section>
       <section aria-label="Model units">
         ${model ? html`
@@ -228,6 +278,7 @@ export class ArrayPlannerView extends LitElement {
             (${shellsInsideBlockade(lat, model.rbOverA).length} neighbour shell${shellsInsideBlockade(lat, model.rbOverA).length === 1 ? '' : 's'} with V &gt; 2g).
             ${model.rbOverA < 1 ? 'Below nearest-neighbour blockade: neighbours cost less than the Rabi splitting.' : ''}</p>
           ${this.verdictText(model)}
+          ${this.toleranceBox(tol ?? {})}
           <h3>Losses</h3>
           ${losses?.budget ? lossResults(losses.budget, losses.marginNote)
             : html`<p class="muted">Enter the cavity linewidth \u03ba and the emitter decay \u03b3 (full widths, MHz) for the cooperativity, strong coupling
