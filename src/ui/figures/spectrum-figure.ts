@@ -6,8 +6,10 @@
  * Nothing is hidden: branches that coincide along the whole path (flat bands of equal
  * sublattices) are drawn dashed over each other and named together in the legend, and
  * whatever lies outside the chosen frequency range is counted in a note at the top. By
- * default the range follows the low branches (the lowest LOW_BRANCHES); "all" takes every
- * branch and the photon-like dots; a [lo, hi] pair zooms to it. Narrow figures (under
+ * default the range follows the low branches (lowBranches: from the lowest up, a branch
+ * joins while its minimum lies below GAP_FACTOR times the top so far plus 0.5 g, so a
+ * branch far above, such as a flat band of excited sites at ~V1, does not squash the
+ * others); "all" takes every branch and the photon-like dots; a [lo, hi] pair zooms to it. Narrow figures (under
  * NARROW px) put the legend under the axis so the plot keeps its width and its axes.
  */
 import type { StateSpectrum } from '../../core/spectrum/state-spectrum.ts';
@@ -25,8 +27,23 @@ import { kText } from '../model/pi-multiple.ts';
 
 const BRANCH = ['#165a78', '#b3124e', '#0c6e4f', '#5a2ca0', '#8a4b00', '#1d2430'];
 
-/** Branches the default frequency range follows. */
-export const LOW_BRANCHES = 3;
+/** A branch joins the low range while its minimum is below GAP_FACTOR x (top so far) + 0.5 g. */
+export const GAP_FACTOR = 3;
+
+/** The low branches: branch 1, then each next branch (by minimum) that starts near the range so far. */
+export function lowBranches(lines: number[][]): number[][] {
+  const fin = (l: number[]) => l.filter(Number.isFinite);
+  const order = lines.filter((l) => fin(l).length).sort((a, b) => Math.min(...fin(a)) - Math.min(...fin(b)));
+  const out: number[][] = [];
+  let top = -Infinity;
+  for (const l of order) {
+    const lo = Math.min(...fin(l));
+    if (out.length && lo > GAP_FACTOR * Math.max(top, 0) + 0.5) break;
+    out.push(l);
+    top = Math.max(top, ...fin(l));
+  }
+  return out;
+}
 /** Figures narrower than this (px) take their legend below the axis. */
 export const NARROW = 560;
 /** Two branches coincide when they differ by less than this (g) at every path point. */
@@ -96,7 +113,7 @@ export function branchesFigure(sp: StateSpectrum, width: number, height: number,
     return [lo - pad, hi + pad];
   };
   const y: [number, number] = Array.isArray(range) ? [range[0], range[1]]
-    : span(range === 'all' ? [...lines.flat(), ...extra.map((p) => p.y)] : lines.slice(0, LOW_BRANCHES).flat());
+    : span(range === 'all' ? [...lines.flat(), ...extra.map((p) => p.y)] : lowBranches(lines).flat());
   const inRange = (w: number) => w >= y[0] && w <= y[1];
   const marks: Mark[] = [];
   const entries: LegendEntry[] = [];

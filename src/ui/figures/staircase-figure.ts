@@ -2,7 +2,10 @@
  * The staircase: excitation density rho(mu) and emitter filling <n>(mu) for two
  * interaction ranges (solid and dashed), the first range's plateaus shaded over the full
  * height and labelled with their fraction, the second range's as a labelled strip along
- * the bottom, the detuning as a rule (mu must stay below it).
+ * the bottom, the detuning as a rule (mu must stay below it). Neighbouring plateaus are
+ * shaded alternately light and dark so two that touch stay apart, and labels are set in
+ * up to LABEL_ROWS rows so they never overlap; a label with no room in any row is left out
+ * (the plateau table lists every plateau) and the plateau keeps it as a tooltip.
  */
 import type { Plateau } from '../../core/meanfield/plateaus.ts';
 import { renderFigure } from '../plot/figure.ts';
@@ -11,7 +14,8 @@ import { bandsX, type Band } from '../plot/band.ts';
 import { ruleX } from '../plot/rule.ts';
 import { axisX, axisY } from '../plot/axis.ts';
 import { legend } from '../plot/legend.ts';
-import type { Mark } from '../plot/frame.ts';
+import type { Frame, Mark } from '../plot/frame.ts';
+import { el, esc } from '../plot/svg-markup.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
 
 export interface StaircaseSeries {
@@ -23,6 +27,46 @@ export interface StaircaseSeries {
 }
 
 const MAIN = '#165a78', SECOND = '#b3124e';
+/** Rows of plateau labels (over the full height: at the top; on the strip: above it). */
+export const LABEL_ROWS = 3;
+/** Width (px) a label of n characters takes at 11 px (DejaVu Sans averages ~6.6 px a character). */
+const labelWidth = (text: string) => text.length * 6.6 + 6;
+
+interface PlateauLabel { x0: number; x1: number; text: string }
+
+/**
+ * Plateau labels placed without overlap: each (in order of mu) goes to the first row whose
+ * last label ends left of it; rows count down from `top` (px) by 13 px, or up from `bottom`.
+ */
+export function placeLabels(f: Frame, list: PlateauLabel[], at: { top?: number; bottom?: number }): { x: number; y: number; text: string }[] {
+  const ends = new Array<number>(LABEL_ROWS).fill(-Infinity);
+  const out: { x: number; y: number; text: string }[] = [];
+  for (const l of [...list].sort((a, b) => a.x0 - b.x0)) {
+    const cx = (f.x(l.x0) + f.x(l.x1)) / 2, w = labelWidth(l.text);
+    const left = Math.max(f.inner.x0, Math.min(cx - w / 2, f.inner.x1 - w));
+    const row = ends.findIndex((e) => e + 2 <= left);
+    if (row < 0) continue;
+    ends[row] = left + w;
+    const y = at.top !== undefined ? at.top + 11 + 13 * row : at.bottom! - 4 - 13 * row;
+    out.push({ x: left + w / 2, y, text: l.text });
+  }
+  return out;
+}
+
+/** The labels of one series' plateaus (class band-label), on a white halo. */
+function plateauLabels(list: PlateauLabel[], strip: boolean, colour: string): Mark {
+  return {
+    clip: true,
+    render(f: Frame) {
+      const h = f.inner.y1 - f.inner.y0;
+      const at = strip ? { bottom: f.inner.y1 - h * 0.1 } : { top: f.inner.y0 + 2 };
+      return `<g class="plateau-labels">${placeLabels(f, list, at).map((p) => el('text', {
+        x: p.x, y: p.y, 'text-anchor': 'middle', 'font-size': 11, fill: colour, class: 'band-label',
+        stroke: '#ffffff', 'stroke-width': 3, 'paint-order': 'stroke', 'stroke-linejoin': 'round',
+      }, esc(p.text))).join('')}</g>`;
+    },
+  };
+}
 
 /** Label of a plateau: its fraction, "empty" and "filled" for 0/1 and 1/1. */
 export function plateauLabel(f: string): string {
@@ -36,12 +80,15 @@ export function staircaseFigure(a: StaircaseSeries, b: StaircaseSeries | null, d
   const x: [number, number] = [Math.min(...mus), Math.max(...mus)];
   const y: [number, number] = [0, Math.max(0.55, Math.min(1.05, Math.max(...ys) * 1.08))];
   const step = (x[1] - x[0]) / Math.max(1, a.mu.length - 1);
-  const bands = (s: StaircaseSeries, fill: string, strip: boolean): Band[] => s.plateaus
+  const shown = (s: StaircaseSeries) => s.plateaus
     .filter((p) => p.fraction !== '0/1' || !p.openLow || p.points > 1)
-    .map((p) => ({
-      x0: p.muLow - step / 2, x1: p.muHigh + step / 2, fill, label: plateauLabel(p.fraction),
-      ...(strip ? { from: 0, to: 0.1, opacity: 0.55 } : { opacity: 0.22 }),
-    }));
+    .sort((p, q) => p.muLow - q.muLow);
+  // neighbours alternate light and dark, so two plateaus that touch read as two
+  const bands = (s: StaircaseSeries, fill: string, strip: boolean): Band[] => shown(s).map((p, i) => ({
+    x0: p.muLow - step / 2, x1: p.muHigh + step / 2, fill,
+    ...(strip ? { from: 0, to: 0.1, opacity: i % 2 ? 0.75 : 0.4 } : { opacity: i % 2 ? 0.3 : 0.13 }),
+  }));
+  const labels = (s: StaircaseSeries): PlateauLabel[] => shown(s).map((p) => ({ x0: p.muLow - step / 2, x1: p.muHigh + step / 2, text: plateauLabel(p.fraction) }));
   const marks: Mark[] = [
     bandsX(bands(a, MAIN, false)),
     ...(b ? [bandsX(bands(b, SECOND, true))] : []),
@@ -51,11 +98,13 @@ export function staircaseFigure(a: StaircaseSeries, b: StaircaseSeries | null, d
     marks.push(line(s.mu, s.rho, { stroke: colour, width: 2, dash }));
     marks.push(line(s.mu, s.filling, { stroke: colour, width: 1.2, dash: dash ?? '1 2' }));
   }
+  marks.push(plateauLabels(labels(a), false, '#0d3a4f'));
+  if (b) marks.push(plateauLabels(labels(b), true, '#6e0b30'));
   marks.push(axisX({ label: 'chemical potential \u03bc (g)' }), axisY({ label: 'density per site', grid: true }));
   marks.push(legend([
     { label: `\u03c1, ${a.label}`, swatch: { kind: 'line', stroke: MAIN, width: 2 } },
     { label: `\u27e8n\u27e9, ${a.label}`, swatch: { kind: 'line', stroke: MAIN, width: 1.2, dash: '1 2' } },
-    { label: `plateau, ${a.label}`, swatch: { kind: 'fill', fill: 'rgba(22,90,120,0.22)' } },
+    { label: `plateaus, ${a.label}`, swatch: { kind: 'fill', fill: 'rgba(22,90,120,0.22)' } },
     ...(b ? [
       { label: `\u03c1, ${b.label}`, swatch: { kind: 'line' as const, stroke: SECOND, width: 2, dash: '6 3' } },
       { label: `\u27e8n\u27e9, ${b.label}`, swatch: { kind: 'line' as const, stroke: SECOND, width: 1.2, dash: '6 3' } },

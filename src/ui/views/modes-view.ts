@@ -12,7 +12,7 @@ import { parseNumber } from '../model/model-inputs.ts';
 import type { StateSpectrum } from '../../core/spectrum/state-spectrum.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
 import { EngineTask } from '../controllers/engine-task.ts';
-import { type BranchRange, LOW_BRANCHES, branchesFigure, marginFigure } from '../figures/spectrum-figure.ts';
+import { type BranchRange, branchesFigure, marginFigure } from '../figures/spectrum-figure.ts';
 import { kText } from '../model/pi-multiple.ts';
 import { inPageWords } from '../model/page-words.ts';
 import { term, termStyles } from '../app/term-tip.ts';
@@ -124,7 +124,7 @@ export class ModesView extends LitElement {
           ${this.task.status !== 'pending' && (this.task.stale || this.task.error) ? html`<button class="retry" @click=${() => this.task.retry()}>Run again</button>` : nothing}</div>
         <div><label for="md-zoom">Frequency range</label>
           <select id="md-zoom" name="modes-zoom" @change=${(e: Event) => { this.zoom = (e.target as HTMLSelectElement).value as 'low' | 'all' | 'custom'; }}>
-            <option value="low" ?selected=${this.zoom === 'low'}>the ${LOW_BRANCHES} lowest branches</option>
+            <option value="low" ?selected=${this.zoom === 'low'}>follow the low branches</option>
             <option value="all" ?selected=${this.zoom === 'all'}>all branches</option>
             <option value="custom" ?selected=${this.zoom === 'custom'}>zoom to lo:hi</option></select></div>
         ${this.zoom === 'custom' ? html`<div><label for="md-zoom-range">ω from:to (g)</label><input id="md-zoom-range" name="modes-zoom-range" .value=${this.zoomText}

@@ -20,6 +20,9 @@ import { plateauLabel, staircaseFigure, type StaircaseSeries } from '../figures/
 import { sharedStyles } from '../app/shared-styles.ts';
 import { cliLine, modelFlags } from '../export/cli-command.ts';
 import type { Table } from '../export/table.ts';
+import { inPageWords } from '../model/page-words.ts';
+import { phaseWords } from '../model/phase-words.ts';
+import { term, termStyles } from '../app/term-tip.ts';
 import '../app/figure-panel.ts';
 import '../app/data-export.ts';
 import '../app/limits-note.ts';
@@ -36,7 +39,12 @@ function rangeLabel(r: number | undefined): string {
 }
 
 export class StaircaseView extends LitElement {
-  static override properties = { section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false } };
+  static override properties = {
+    section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false },
+    hover: { state: true },
+  };
+  /** The mu under the pointer (or the keyboard cursor) on the staircase, null when away. */
+  declare hover: number | null;
   declare section: StaircaseSection;
   declare model: ParsedModel;
   declare inputs: ModelInputs;
@@ -45,11 +53,17 @@ export class StaircaseView extends LitElement {
   private rangeError: string | null = null;
   private size = new HostWidthController(this);
 
-  static override styles = [sharedStyles, css`
+  constructor() {
+    super();
+    this.hover = null;
+  }
+
+  static override styles = [sharedStyles, termStyles, css`
     :host { display: block; }
     .controls { display: flex; gap: 16px; flex-wrap: wrap; align-items: flex-end; margin-bottom: 8px; }
     .controls label { display: block; font-size: 13px; }
     .tables { display: flex; gap: 24px; flex-wrap: wrap; margin-top: 8px; align-items: flex-start; }
+    .readout { font-family: 'DejaVu Sans Mono', monospace; font-size: 13px; min-height: 20px; padding: 3px 6px; background: #f1f3f6; border-radius: 4px; }
   `];
 
 
@@ -70,10 +84,10 @@ export class StaircaseView extends LitElement {
     const p = this.model.params;
     this.rangeError = null;
     let r;
-    try { r = parseRange(this.section.mu, 'mu'); } catch (e) { this.rangeError = (e as Error).message; return; }
+    try { r = parseRange(this.section.mu, 'mu'); } catch (e) { this.rangeError = inPageWords((e as Error).message); return; }
     if (!p || !this.engine) return;
-    if (r.count < 2 || r.count > 5000) { this.rangeError = 'mu: count must be 2..5000'; return; }
-    if (!(Math.max(r.start, r.stop) < p.delta)) { this.rangeError = `mu must stay below the detuning ${p.delta} (the photon number is unbounded above it)`; return; }
+    if (r.count < 2 || r.count > 5000) { this.rangeError = 'the \u03bc scan needs a count from 2 to 5000'; return; }
+    if (!(Math.max(r.start, r.stop) < p.delta)) { this.rangeError = `\u03bc must stay below the detuning ${p.delta} (the photon number is unbounded above it)`; return; }
     const series: ScanSeries[] = this.ranges(p).map((rmax) => {
       const { rho: _rho, mu: _mu, ...base } = p;
       const interaction = { ...p.interaction };
@@ -130,16 +144,19 @@ export class StaircaseView extends LitElement {
           <input id="st-mu" name="staircase-mu" .value=${this.section.mu} aria-invalid=${this.rangeError ? 'true' : 'false'} aria-describedby="st-mu-msg"
             @input=${(e: Event) => this.patch({ mu: (e.target as HTMLInputElement).value })}>
           <div class="err" id="st-mu-msg" role=${this.rangeError ? 'alert' : nothing}>${this.rangeError ?? ''}</div></div>
-        <div><label for="st-cmp">Compare with the range cut</label>
+        <div><label for="st-cmp">Compare with the ${term('range cut')}</label>
           <select id="st-cmp" name="staircase-compare" @change=${(e: Event) => this.patch({ compare: (e.target as HTMLSelectElement).value })}>
             ${COMPARE.map(([k, t]) => html`<option value=${k} ?selected=${k === this.section.compare}>${t}</option>`)}</select></div>
         <div aria-live="polite"><progress max=${this.scans.total || 1} .value=${this.scans.done} aria-label="Staircase progress"></progress>
           ${this.scans.status === 'running' ? html`${this.scans.done} / ${this.scans.total} <button @click=${() => this.scans.cancel()}>Cancel</button>` : nothing}
           ${this.scans.status === 'cancelled' || this.scans.status === 'error' ? html`<button class="resume" @click=${() => this.scans.resume()}>Run again</button>` : nothing}
-          ${this.scans.error ? html`<span class="err" role="alert">${this.scans.error}</span>` : nothing}
+          ${this.scans.error ? html`<span class="err" role="alert">${inPageWords(this.scans.error)}</span>` : nothing}
           ${!p ? html`<span class="err">The model has an invalid entry: showing the last good staircase.</span>` : nothing}</div>
       </div>
-      <figure-panel class="staircase" .figure=${fig} stale=${this.staleText()}></figure-panel>
+      <figure-panel class="staircase" interactive .figure=${fig} stale=${this.staleText()} .cursor=${this.cursorAt(v?.series[0], fig)}
+        .keyStep=${series.length ? [(series[0].mu.at(-1)! - series[0].mu[0]) / Math.max(1, series[0].mu.length - 1), 0.05] : null}
+        @plot-hover=${(e: CustomEvent) => { this.hover = e.detail.x; }} @plot-leave=${() => { this.hover = null; }}></figure-panel>
+      <div class="readout" aria-live="polite" aria-label="Readout under the cursor">${v ? this.readout(v.series) : 'Waiting for the first points\u2026'}</div>
       <p class="muted">Plateaus are read from the solutions: no condensate and every sublattice empty or full, the fraction from the
         cell's integer occupation confirmed by continued fractions with denominators \u2264 Mmax.
         ${refined ? html`Edges bisected to ${EDGE_TOL} g.` : html`Edges at the grid (within one step ${series.length ? `= ${fmt((series[0].mu.at(-1)! - series[0].mu[0]) / Math.max(1, series[0].mu.length - 1))} g` : ''});
@@ -153,10 +170,38 @@ export class StaircaseView extends LitElement {
     `;
   }
 
+  /** The solved point of a scan nearest to mu, or null. */
+  private nearest(s: { result: { points: { state?: SolveResult }[] } }, mu: number): SolveResult | null {
+    let best: SolveResult | null = null;
+    for (const p of s.result.points) if (p.state && (!best || Math.abs(p.state.mu - mu) < Math.abs(best.mu - mu))) best = p.state;
+    return best;
+  }
+
+  /** The cursor dot on the first series' rho curve at the hovered mu. */
+  private cursorAt(s: { result: { points: { state?: SolveResult }[] } } | undefined, fig: unknown): [number, number] | null {
+    if (this.hover === null || !s || !fig) return null;
+    const x = this.nearest(s, this.hover);
+    return x ? [x.mu, x.excitationDensity] : null;
+  }
+
+  /** mu, rho, <n>, the phase and the plateau under the pointer, for each range. */
+  private readout(list: { label: string; result: { points: { state?: SolveResult }[]; plateaus: Plateau[] } }[]) {
+    if (this.hover === null) return html`<span class="muted">Move the pointer over the staircase (or focus it and use the arrow keys).</span>`;
+    const maxCell = this.model.params?.maxCell ?? 12;
+    return html`${list.map((s, i) => {
+      const x = this.nearest(s, this.hover!);
+      if (!x) return nothing;
+      const on = s.result.plateaus.find((p) => x.mu >= p.muLow && x.mu <= p.muHigh);
+      return html`${i ? html`<br>` : nothing}<span class="readout-line">${list.length > 1 ? `${s.label}: ` : ''}\u03bc = ${fmt(x.mu)}, \u03c1 = ${fmt(x.excitationDensity)},
+        \u27e8n\u27e9 = ${fmt(x.emitterDensity)}: <strong>${phaseWords(x, maxCell)}</strong>${on
+          ? html`, on the plateau <strong class="readout-plateau">${plateauLabel(on.fraction)}</strong> (\u03bc ${fmt(on.muLow)} to ${fmt(on.muHigh)})` : ', between plateaus'}</span>`;
+    })}`;
+  }
+
   private widths(s: StaircaseSeries) {
-    const list: Plateau[] = [...s.plateaus].sort((a, b) => b.width - a.width);
+    const list: Plateau[] = [...s.plateaus].sort((a, b) => a.muLow - b.muLow);
     return html`<table class="plateaus" aria-label="Plateau widths, ${s.label}">
-      <caption><strong>${s.label}</strong>: ${list.length} plateaus</caption>
+      <caption><strong>${s.label}</strong>: ${list.length} plateaus, in order of \u03bc</caption>
       <thead><tr><th class="l">fraction</th><th>\u03bc low (g)</th><th>\u03bc high (g)</th><th>width (g)</th></tr></thead>
       <tbody>${list.map((p) => html`<tr><td class="l">${plateauLabel(p.fraction)}</td><td>${p.openLow ? '\u2264 ' : ''}${fmt(p.muLow)}</td>
         <td>${p.openHigh ? '\u2265 ' : ''}${fmt(p.muHigh)}</td><td>${fmt(p.width)}</td></tr>`)}</tbody></table>`;
