@@ -17,12 +17,12 @@ import { appendToFigure, overlayLegend, wrapText } from './lab-point-mark.ts';
 export const PINNED_STROKE = '#6a1b9a';
 const DASH = '7 4';
 
-const lineChars = (f: Frame) => Math.max(18, Math.floor((f.margin.right >= 150 ? f.margin.right - 30 : 200) / 6.3));
+/** A number per pinned object, so a new pin with the same label is never served a memoised old drawing. */
+const ids = new WeakMap<object, number>();
+let nextId = 1;
+const idOf = (o: object) => ids.get(o) ?? (ids.set(o, nextId), nextId++);
 
-/** Rows of legend text an overlay entry of this figure takes (so the next overlay stacks above it). */
-export function pinnedLegendRows(fig: RenderedFigure, label: string): number {
-  return 1 + wrapText(label, lineChars(fig.frame)).length;
-}
+const lineChars = (f: Frame) => Math.max(18, Math.floor((f.margin.right >= 150 ? f.margin.right - 30 : 200) / 6.3));
 
 /** The pinned map's boundaries in the figure's frame. */
 function mapLines(f: Frame, p: PinnedMap): string {
@@ -34,20 +34,21 @@ function mapLines(f: Frame, p: PinnedMap): string {
 }
 
 /**
- * The map with the pinned map's boundaries over it, or the figure unchanged (and `drawn`
- * false) when the pinned map is over other axes than `axes`.
+ * The map with the pinned map's boundaries over it, or with only a legend note (and
+ * `drawn` false) when the pinned map is over other axes than `axes`. `rows`: the legend
+ * rows taken, the slot of the next overlay.
  */
-export function withPinnedMap(fig: RenderedFigure, p: PinnedMap, axes: { x: string; y: string }, slot = 0): { fig: RenderedFigure; drawn: boolean } {
+export function withPinnedMap(fig: RenderedFigure, p: PinnedMap, axes: { x: string; y: string }, slot = 0): { fig: RenderedFigure; drawn: boolean; rows: number } {
   const f = fig.frame;
   const same = p.xName === axes.x && p.yName === axes.y;
   const lines = same ? ['pinned map (dashed):', ...wrapText(p.label, lineChars(f))]
     : ['pinned map is over other axes:', `${p.xName} \u00d7 ${p.yName}; not drawn`];
   const legend = `<g class="pinned-legend">${overlayLegend(f, [{ swatch: 'dashed', stroke: PINNED_STROKE, lines }], slot)}</g>`;
-  return { fig: appendToFigure(fig, `pin-map|${slot}|${same}|${p.label}|${p.grid.nx}x${p.grid.ny}`, same ? mapLines(f, p) : '', legend), drawn: same };
+  return { fig: appendToFigure(fig, `pin-map|${idOf(p)}|${slot}|${same}`, same ? mapLines(f, p) : '', legend), drawn: same, rows: lines.length };
 }
 
-/** The staircase with the pinned staircase's curves over it (rho dashed, filling dotted, in the pinned colour). */
-export function withPinnedStaircase(fig: RenderedFigure, p: PinnedStaircase, slot = 0): RenderedFigure {
+/** The staircase with the pinned staircase's curves over it (rho dashed, filling dotted, in the pinned colour), and the legend rows taken. */
+export function withPinnedStaircase(fig: RenderedFigure, p: PinnedStaircase, slot = 0): { fig: RenderedFigure; rows: number } {
   const f = fig.frame;
   let drawn = '';
   for (const s of p.series) {
@@ -57,5 +58,5 @@ export function withPinnedStaircase(fig: RenderedFigure, p: PinnedStaircase, slo
   const ranges = p.series.map((s) => s.label).join(' and ');
   const lines = ['pinned staircase (\u03c1 dashed,', `\u27e8n\u27e9 dotted; ${ranges}):`, ...wrapText(p.label, lineChars(f))];
   const legend = `<g class="pinned-legend">${overlayLegend(f, [{ swatch: 'dashed', stroke: PINNED_STROKE, lines }], slot)}</g>`;
-  return appendToFigure(fig, `pin-st|${slot}|${p.label}|${ranges}|${p.series.map((s) => s.mu.length).join(',')}`, `<g class="pinned-staircase">${drawn}</g>`, legend);
+  return { fig: appendToFigure(fig, `pin-st|${idOf(p)}|${slot}`, `<g class="pinned-staircase">${drawn}</g>`, legend), rows: lines.length };
 }

@@ -31,6 +31,11 @@ import './point-detail.ts';
 import './boundary-check-panel.ts';
 import { withBoundaryCheck, type CheckOverlay } from '../figures/boundary-check-overlay.ts';
 import { addPick } from '../model/boundary-check-line.ts';
+import { type LabPoint, labOnAxis, labPointText } from '../state/lab-point.ts';
+import { PinsController, pinLabel, pins } from '../state/pinned-results.ts';
+import { phaseKey } from '../figures/phase-map-figure.ts';
+import { withLabPoint } from '../figures/lab-point-mark.ts';
+import { withPinnedMap } from '../figures/pinned-overlay.ts';
 
 type AtlasSection = AppState['atlas'];
 
@@ -39,13 +44,19 @@ const fmt = (v: number) => Number(v.toPrecision(4)).toString();
 export class PhaseAtlasView extends LitElement {
   static override properties = {
     section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false },
-    hover: { state: true },
+    hover: { state: true }, labPoint: { attribute: false },
   };
   declare section: AtlasSection;
   declare model: ParsedModel;
   declare inputs: ModelInputs;
   declare engine: EngineClient;
   declare hover: [number, number] | null;
+  /** The lab's operating point, marked with its tolerance box (null: none). */
+  declare labPoint: LabPoint | null;
+  /** Pinned results (a pinned map's boundaries are drawn over this one). */
+  private pinned = new PinsController(this);
+  /** What the overlays drew last: the lab point marker, the pinned boundaries. */
+  private overlayState = { lab: '', pinned: '' };
   /** "Check this boundary": which end the map's next select picks (0: none), and its overlay on the map. */
   private checkPick = 0;
   private checkOverlay: CheckOverlay | null = null;
@@ -154,6 +165,8 @@ export class PhaseAtlasView extends LitElement {
     this.dataset.firstMs = this.scan.firstPictureMs === null ? '' : this.scan.firstPictureMs.toFixed(1);
     this.dataset.startMs = this.scan.startedAt.toFixed(1);
     this.dataset.totalMs = this.scan.totalMs === null ? '' : this.scan.totalMs.toFixed(1);
+    this.dataset.lab = this.overlayState.lab;
+    this.dataset.pinned = this.overlayState.pinned;
   }
 
   /** Grid cell nearest to data point (x, y). */
@@ -185,6 +198,36 @@ export class PhaseAtlasView extends LitElement {
     }
     return html`${where}: <strong class="readout-phase">${phaseWords(s, maxCell)}</strong>,
       \u03c1 = ${fmt(s.excitationDensity)}, \u03b1\u00b2 = ${fmt(s.photonDensity)}, M = ${s.cellSize}${limit}${own ? '' : ' (coarse preview)'}`;
+  }
+
+  /** The pinned map's boundaries and the lab point drawn over the map (in the exported SVG too). */
+  private overlays(fig: RenderedFigure, g: MapGrid): RenderedFigure {
+    let out = fig, slot = 0;
+    this.overlayState = { lab: '', pinned: '' };
+    if (pins.map) {
+      const r = withPinnedMap(out, pins.map, { x: g.plan.x.name, y: g.plan.y.name });
+      out = r.fig; slot = r.rows;
+      this.overlayState.pinned = r.drawn ? 'drawn' : 'other-axes';
+    }
+    const lab = this.labPoint;
+    if (lab) {
+      const x = labOnAxis(lab, g.plan.x.name), y = labOnAxis(lab, g.plan.y.name);
+      out = withLabPoint(out, { x, y, text: labPointText(lab) }, slot);
+      this.overlayState.lab = x && y ? 'box' : x || y ? 'band' : 'off-axes';
+    }
+    return out;
+  }
+
+  /** Pin the map on show: its axes, phase categories and located boundaries, named by the model's other entries. */
+  private pinMap(g: MapGrid) {
+    const keys: (string | null)[] = new Array(g.nx * g.ny);
+    for (let j = 0; j < g.ny; j++) for (let i = 0; i < g.nx; i++) keys[j * g.nx + i] = phaseKey(g.paint(i, j));
+    pins.pinMap({
+      xName: g.plan.x.name, yName: g.plan.y.name,
+      grid: { nx: g.nx, ny: g.ny, x: [g.plan.x.start, g.plan.x.stop], y: [g.plan.y.start, g.plan.y.stop] },
+      keys, boundaries: g.boundaries?.map((b) => ({ points: b.points.map((p) => [p[0], p[1]]), firstOrder: b.firstOrder === true })) ?? null,
+      label: pinLabel(this.inputs, [g.plan.x.name, g.plan.y.name]),
+    });
   }
 
   private axisControl(which: 'x' | 'y') {
@@ -243,7 +286,8 @@ export class PhaseAtlasView extends LitElement {
         title: `Phase map over ${AXIS_SYMBOLS[g.plan.x.name]} and ${AXIS_SYMBOLS[g.plan.y.name]}`,
       });
     }
-    const fig = g && this.fig && this.checkOverlay ? withBoundaryCheck(this.fig, this.checkOverlay) : g ? this.fig : null;
+    const base = g && this.fig && this.checkOverlay ? withBoundaryCheck(this.fig, this.checkOverlay) : g ? this.fig : null;
+    const fig = g && base ? this.overlays(base, g) : base;
     const cmdAxes = g ? [g.plan.x.name, g.plan.y.name] : [];
     const command = cliLine('map', [...modelFlags(this.inputs, cmdAxes), '--x', this.section.x, '--y', this.section.y]);
     const selParams = g && sel ? (() => { const [ix, iy] = this.cellAt(g, sel[0], sel[1]); return { p: g.point(ix, iy), seed: g.seed(ix, iy), state: g.own(ix, iy) }; })() : null;
@@ -277,6 +321,9 @@ export class PhaseAtlasView extends LitElement {
         ${this.scan.error ? html`<span class="err" role="alert">${this.scan.error}</span>` : nothing}
         ${this.scan.failed ? html`<span class="err failed">${this.scan.failed} point${this.scan.failed === 1 ? '' : 's'} could not be solved (blank; the reason is in the export's error column)</span>` : nothing}
         ${!this.model.params ? html`<span class="err stale">The model has an invalid entry: showing the last good map.</span>` : nothing}
+        ${g ? html`<button class="pin-map" ?disabled=${!g.complete || !!this.staleText()} title="Keep this map's boundaries drawn (dashed) over the maps of other parameters"
+          @click=${() => this.pinMap(g)}>Pin this map</button>` : nothing}
+        ${pins.map ? html`<button class="unpin-map" @click=${() => pins.pinMap(null)}>Unpin</button>` : nothing}
       </div>
       ${g && g.solves !== null ? html`<p class="muted map-notes">${g.solves} of ${g.nx * g.ny} points solved in full${g.notes.length
         ? html`; ${g.notes.map((n) => n.replace(/\s*\(--dense[^)]*\)/g, '')).join('; ')}` : ''}.</p>` : nothing}
