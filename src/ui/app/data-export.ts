@@ -1,13 +1,19 @@
 /**
  * <data-export>: a view's numbers as CSV and JSON files, and the command line that
  * reproduces the view ("copy as command"), shown in full so it can be read and selected.
+ * The CSV starts with a '#' comment header of every input (export/csv-header.ts, for
+ * pandas.read_csv(path, comment='#')); files are named after the view, `name` and the
+ * key inputs (export/file-name.ts).
  * `table` and `json` may be functions, called only when the file is asked for (a big map's
  * table is not rebuilt at every redraw); `rows` then gives the count shown.
  */
 import { LitElement, html, css, nothing } from 'lit';
 import { sharedStyles } from './shared-styles.ts';
 import { downloadText } from '../export/download.ts';
-import { type Table, toCSV } from '../export/table.ts';
+import type { Table } from '../export/table.ts';
+import { commentedCsv, inputHeader } from '../export/csv-header.ts';
+import { exportBaseName } from '../export/file-name.ts';
+import { pageState } from '../export/page-state.ts';
 
 export class DataExport extends LitElement {
   static override properties = {
@@ -51,12 +57,15 @@ export class DataExport extends LitElement {
 
   private csv() {
     const t = typeof this.table === 'function' ? this.table() : this.table;
-    if (t) downloadText(toCSV(t), `${this.name}.csv`, 'text/csv');
+    if (!t) return;
+    const s = pageState();
+    const header = inputHeader(s, this.name, { command: this.command, written: new Date(), rows: t.rows.length });
+    downloadText(commentedCsv(t, header), `${exportBaseName(s, this.name)}.csv`, 'text/csv');
   }
 
   private saveJson() {
     const j = typeof this.json === 'function' ? (this.json as () => unknown)() : this.json;
-    downloadText(JSON.stringify(j, null, 1), `${this.name}.json`, 'application/json');
+    downloadText(JSON.stringify(j, null, 1), `${exportBaseName(pageState(), this.name)}.json`, 'application/json');
   }
 
   override render() {

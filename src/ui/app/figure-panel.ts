@@ -1,6 +1,8 @@
 /**
  * <figure-panel>: shows one rendered figure (SVG markup from renderFigure), with buttons
- * to save it as SVG or PNG. When `interactive`, pointer and keyboard positions are turned
+ * to save it as SVG, vector PDF or PNG, at a figure size shared by every figure (as on
+ * screen, single or double journal column, or a custom width; PNG at 150/300/600 dpi),
+ * in files named after the view and its key inputs (export/file-name.ts). When `interactive`, pointer and keyboard positions are turned
  * back into data coordinates through the figure's frame and sent as events:
  *   plot-hover {x, y} while the pointer (or the keyboard cursor) is over the plot area,
  *   plot-leave when it leaves, plot-select {x, y} on click or Enter.
@@ -13,7 +15,16 @@ import { unsafeHTML } from 'lit/directives/unsafe-html.js';
 import type { Frame } from '../plot/frame.ts';
 import { sharedStyles } from './shared-styles.ts';
 import { downloadBlob } from '../export/download.ts';
-import { pngFile, svgFile } from '../export/figure-image.ts';
+import { pdfFile, pngFile, svgFile } from '../export/figure-image.ts';
+import { exportBaseName } from '../export/file-name.ts';
+import { pageState } from '../export/page-state.ts';
+import { loadFigureSize, onFigureSizeChange, saveFigureSize } from '../export/export-settings.ts';
+import {
+  type FigureSize, type SizePreset, DPI_CHOICES, PRESET_LABELS, bodyTextPoints, customWidthProblem, pngPixels, pngProblem, printedInches,
+} from '../export/figure-size.ts';
+
+/** Body text below this many points is too small for print (journals ask for about 6 pt or more; common practice, no source). */
+const SMALL_PRINT_PT = 6;
 
 export interface RenderedFigure { svg: string; frame: Frame; name: string; title: string }
 
@@ -25,6 +36,10 @@ export class FigurePanel extends LitElement {
     busy: { type: Boolean },
     cursor: { attribute: false },
     stale: { type: String },
+    size: { state: true },
+    sizeOpen: { state: true },
+    inchesText: { state: true },
+    failure: { state: true },
   };
   declare figure: RenderedFigure | null;
   declare interactive: boolean;
@@ -34,7 +49,15 @@ export class FigurePanel extends LitElement {
   declare cursor: [number, number] | null;
   /** Empty while the figure is current; else the words of the out-of-date mark. */
   declare stale: string;
+  /** The export size (shared by every figure, export-settings.ts). */
+  declare size: FigureSize;
+  declare sizeOpen: boolean;
+  /** The custom width as typed. */
+  declare inchesText: string;
+  /** Why the last save failed, in the page's words; '' when it did not. */
+  declare failure: string;
   private keyCursor: [number, number] | null = null;
+  private unlisten: (() => void) | null = null;
 
   constructor() {
     super();
@@ -44,6 +67,21 @@ export class FigurePanel extends LitElement {
     this.busy = false;
     this.cursor = null;
     this.stale = '';
+    this.size = loadFigureSize();
+    this.sizeOpen = false;
+    this.inchesText = String(this.size.inches);
+    this.failure = '';
+  }
+
+  override connectedCallback() {
+    super.connectedCallback();
+    this.unlisten = onFigureSizeChange(() => { this.size = loadFigureSize(); });
+  }
+
+  override disconnectedCallback() {
+    super.disconnectedCallback();
+    this.unlisten?.();
+    this.unlisten = null;
   }
 
   static override styles = [sharedStyles, css`
@@ -51,8 +89,12 @@ export class FigurePanel extends LitElement {
     .host { position: relative; }
     .host svg { display: block; width: 100%; height: auto; max-width: 100%; }
     .host.interactive { cursor: crosshair; }
-    .tools { display: flex; gap: 6px; justify-content: flex-end; margin-top: 4px; }
+    .tools { display: flex; gap: 6px; justify-content: flex-end; align-items: center; flex-wrap: wrap; margin-top: 4px; }
     .tools button { font-size: 12.5px; padding: 2px 8px; }
+    .size-note { font-size: 12px; }
+    .size-panel { display: flex; gap: 10px; justify-content: flex-end; align-items: center; flex-wrap: wrap; margin-top: 4px; font-size: 12.5px; }
+    .size-panel input { width: 5em; }
+    .size-panel select, .size-panel input { font-size: 12.5px; }
     .host:focus-visible { outline: 3px solid #d9a21b; }
     .cursor { position: absolute; width: 9px; height: 9px; margin: -5px 0 0 -5px; border: 1.5px solid #000;
       background: #fff; border-radius: 50%; pointer-events: none; }
@@ -126,11 +168,67 @@ export class FigurePanel extends LitElement {
     return html`<div class="cursor" style="left:${left}%;top:${top}%"></div>`;
   }
 
-  private async save(kind: 'svg' | 'png') {
+  private async save(kind: 'svg' | 'pdf' | 'png') {
     const fig = this.figure;
     if (!fig) return;
-    const blob = kind === 'svg' ? svgFile(fig.svg) : await pngFile(fig.svg, fig.frame.width, fig.frame.height);
-    downloadBlob(blob, `${fig.name}.${kind}`);
+    const { width, height } = fig.frame;
+    const problem = this.sizeProblem(fig);
+    if (problem) { this.failure = problem; return; }
+    this.failure = '';
+    try {
+      const blob = kind === 'svg' ? svgFile(fig.svg, this.size, width, height)
+        : kind === 'pdf' ? await pdfFile(fig.svg, fig.title, this.size, width)
+          : await pngFile(fig.svg, width, height, this.size);
+      downloadBlob(blob, `${exportBaseName(pageState(), fig.name)}.${kind}`);
+    } catch (e) {
+      this.failure = `The ${kind.toUpperCase()} could not be made: ${e instanceof Error ? e.message : String(e)}`;
+    }
+  }
+
+  /** Why the chosen size cannot be exported, or ''. */
+  private sizeProblem(fig: RenderedFigure): string {
+    if (this.size.preset === 'custom') {
+      const p = customWidthProblem(this.inchesText);
+      if (p) return `Custom width: ${p}.`;
+    }
+    return pngProblem(this.size, fig.frame.width, fig.frame.height);
+  }
+
+  private setSize(patch: Partial<FigureSize>) {
+    this.size = { ...this.size, ...patch };
+    saveFigureSize(this.size);
+  }
+
+  private onInches(e: Event) {
+    this.inchesText = (e.target as HTMLInputElement).value;
+    if (!customWidthProblem(this.inchesText)) this.setSize({ inches: Number(this.inchesText) });
+  }
+
+  /** One line saying what the saved files will be: printed width, PNG pixels, text size. */
+  private sizeNote(fig: RenderedFigure) {
+    const { width, height } = fig.frame;
+    const px = pngPixels(this.size, width, height);
+    const pt = bodyTextPoints(this.size, width);
+    const inches = printedInches(this.size, width);
+    const what = this.size.preset === 'screen' ? 'as on screen' : this.size.preset === 'custom' ? 'custom' : `${this.size.preset} column`;
+    return html`<span class="size-note muted">${what}, ${inches.toFixed(2)} in wide; PNG ${px.width} × ${px.height} px at ${this.size.dpi} dpi;
+      text ${pt.toFixed(1)} pt${pt < SMALL_PRINT_PT ? html` <span class="err">(small for print: a narrower window lays the figure out narrower)</span>` : ''}</span>`;
+  }
+
+  private sizePanel(fig: RenderedFigure) {
+    const custom = this.size.preset === 'custom';
+    const problem = custom ? customWidthProblem(this.inchesText) : '';
+    return html`<div class="size-panel" role="group" aria-label="Size of saved figures (all figures)">
+      <label>Figure size <select name="export-size" @change=${(e: Event) => this.setSize({ preset: (e.target as HTMLSelectElement).value as SizePreset })}>
+        ${(Object.keys(PRESET_LABELS) as SizePreset[]).map((p) => html`<option value=${p} ?selected=${p === this.size.preset}>${PRESET_LABELS[p]}</option>`)}
+      </select></label>
+      ${custom ? html`<label>Width (in) <input name="export-inches" inputmode="decimal" .value=${this.inchesText}
+        aria-invalid=${problem ? 'true' : 'false'} @input=${this.onInches}></label>${problem ? html`<span class="err">${problem}</span>` : ''}` : ''}
+      <label>PNG resolution <select name="export-dpi" @change=${(e: Event) => this.setSize({ dpi: Number((e.target as HTMLSelectElement).value) })}>
+        ${DPI_CHOICES.map((d) => html`<option value=${d} ?selected=${d === this.size.dpi}>${d} dpi</option>`)}
+      </select></label>
+      ${this.sizeNote(fig)}
+    </div>`;
   }
 
   override render() {
@@ -144,9 +242,14 @@ export class FigurePanel extends LitElement {
         @click=${this.interactive ? this.onClick : null} @keydown=${this.onKey}>${unsafeHTML(fig.svg)}${this.cursorMark(fig)}${this.stale
           ? html`<div class="stale-mark" role="status">${this.stale}</div>` : null}</div>
       <div class="tools">
+        <button class="size-toggle" aria-expanded=${this.sizeOpen ? 'true' : 'false'} @click=${() => { this.sizeOpen = !this.sizeOpen; }}
+          title="Figure size and PNG resolution for the saved files">Size…</button>
         <button @click=${() => this.save('svg')} aria-label="Save ${fig.title} as SVG">SVG</button>
+        <button @click=${() => this.save('pdf')} aria-label="Save ${fig.title} as vector PDF">PDF</button>
         <button @click=${() => this.save('png')} aria-label="Save ${fig.title} as PNG">PNG</button>
-      </div>`;
+      </div>
+      ${this.sizeOpen ? this.sizePanel(fig) : null}
+      ${this.failure ? html`<p class="err" role="alert">${this.failure}</p>` : null}`;
   }
 }
 customElements.define('figure-panel', FigurePanel);

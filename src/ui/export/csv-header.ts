@@ -31,6 +31,10 @@ export function inputHeader(s: AppState, item: string, opts: { command?: string;
   for (const k of MODEL_KEYS) out.push(`  ${k} = ${s.model[k]}`);
   out.push(`${s.view} view inputs:`);
   for (const [k, v] of Object.entries(s[s.view])) out.push(`  ${k} = ${v}`);
+  if (s.lab && Object.values(s.lab).some((v) => v.trim() !== '')) {
+    out.push('lab operating point marked on the figures (model units):');
+    for (const [k, v] of Object.entries(s.lab)) out.push(`  ${k} = ${v}`);
+  }
   if (opts.command) {
     out.push('command line for the same numbers:');
     for (const line of opts.command.split('\n')) if (line.trim()) out.push(`  ${line.trim()}`);
