@@ -2,8 +2,10 @@
  * Reactive controller of a phase-map scan: the grid of points, filled by the one scan
  * driver (workers/scan-driver.ts, the CLI's path) in 'spread' order, rows coarse to fine,
  * with progress, timing and cancellation. A new run aborts the old one at once; the old
- * map stays on screen until the new run delivers its first points. Host updates are
- * throttled so rendering never floods the main thread while results stream in.
+ * map stays on screen until the new run delivers its first points. Points arrive in blocks
+ * (an adaptive map's band at a time, from the coordinating worker); host updates are
+ * throttled and aligned to animation frames (at most one a frame), so rendering never
+ * floods the main thread while results stream in.
  * Grids are kept in the page's map cache (map-cache.ts) by request: a finished one comes
  * back without a scan, a part-done one (its view left the page) is completed by a new run
  * that keeps the points it has. Cancel stops; only resume() or new inputs start again.
@@ -13,15 +15,12 @@ import type { ModelParams } from '../../core/model.ts';
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import type { Axis } from '../../core/scan/axes.ts';
 import type { Boundary } from '../../core/scan/boundaries.ts';
-import { gridPoint, pointSeed, spreadRows, type ScanPlan, type ScanPoint } from '../../core/scan/grid.ts';
+import { gridPoint, pointSeed, type ScanPlan, type ScanPoint } from '../../core/scan/grid.ts';
 import { type EngineClient, isAbort } from '../engine/engine-client.ts';
 import { mapCache, type MapCache } from './map-cache.ts';
 
 /** Seed of the page's scans (the CLI's default, so both give the same answers). */
 export const SCAN_SEED = 1;
-
-/** Rows of the first picture: the first rows of the spread order (about every eighth row). */
-const FIRST_ROWS = 9;
 
 export interface MapPlan { base: ModelParams; x: Axis; y: Axis }
 
@@ -85,7 +84,7 @@ export class MapScanController implements ReactiveController {
   error: string | null = null;
   /** Points of the current grid that could not be solved. */
   failed = 0;
-  /** ms from start to the first picture (the first rows of the spread order), and to the last point. */
+  /** ms from start to the first picture (the first whole row: from then on every cell is painted, from its nearest row done), and to the last point. */
   firstPictureMs: number | null = null;
   totalMs: number | null = null;
   /** performance.now() at the start of the current run. */
@@ -132,16 +131,16 @@ export class MapScanController implements ReactiveController {
     this.totalMs = null;
     this.t0 = performance.now();
     this.startedAt = this.t0;
+    this.painted = false;
     const ctrl = new AbortController();
     this.ctrl = ctrl;
-    const firstRows = spreadRows(grid.ny).slice(0, FIRST_ROWS);
     const deliver = (pt: ScanPoint) => {
       if (ctrl.signal.aborted || grid.points[pt.index]) return;
       grid.points[pt.index] = pt;
       grid.rowCount[pt.iy]++;
       grid.count++;
       if (pt.error !== undefined) this.failed++;
-      if (this.firstPictureMs === null && firstRows.every((iy) => grid.rowCount[iy] === grid.nx)) this.firstPictureMs = performance.now() - this.t0;
+      if (this.firstPictureMs === null && grid.rowCount[pt.iy] === grid.nx) this.firstPictureMs = performance.now() - this.t0;
       if (this.shown !== grid) this.shown = grid;
       this.schedule();
     };
@@ -205,15 +204,26 @@ export class MapScanController implements ReactiveController {
     this.renderCost = this.renderCost === 0 ? ms : 0.7 * this.renderCost + 0.3 * ms;
   }
 
+  private frame: number | null = null;
+
+  /** A redraw after the throttle delay, in the next animation frame (the first points of a run at once). */
   private schedule() {
-    if (this.timer === null) {
-      const delay = Math.min(1500, Math.max(this.throttleMs, 10 * this.renderCost));
-      this.timer = setTimeout(() => this.flush(), delay);
-    }
+    if (this.timer !== null || this.frame !== null) return;
+    const delay = this.painted ? Math.min(1500, Math.max(this.throttleMs, 10 * this.renderCost)) : 0;
+    this.timer = setTimeout(() => {
+      this.timer = null;
+      if (typeof requestAnimationFrame !== 'function') { this.flush(); return; }
+      this.frame = requestAnimationFrame(() => { this.frame = null; this.flush(); });
+    }, delay);
   }
+
+  /** The current run has been drawn once (its first points come without a throttle delay). */
+  private painted = false;
 
   private flush() {
     if (this.timer !== null) { clearTimeout(this.timer); this.timer = null; }
+    if (this.frame !== null) { cancelAnimationFrame(this.frame); this.frame = null; }
+    this.painted = true;
     this.host.requestUpdate();
   }
 

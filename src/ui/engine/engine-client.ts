@@ -6,13 +6,18 @@
  * queue behind a long scan. Every call takes an AbortSignal; aborting drops queued work
  * and stops busy workers.
  *
- * The client is environment-agnostic: it is given its pools, so the same code runs the
- * page (browser-engine.ts starts Web Workers) and, in tests, Node worker threads.
+ * On the page, scans go to a coordinating worker that runs the same driver with its own
+ * pool (workers/scan-host.ts): the main thread only receives blocks of finished points.
+ *
+ * The client is environment-agnostic: it is given its pools (and, optionally, the scan
+ * host), so the same code runs the page (browser-engine.ts starts Web Workers) and, in
+ * tests, Node worker threads.
  */
 import type { Remote } from 'comlink';
 import type { Engine } from '../../../workers/engine.ts';
 import type { WorkerPool } from '../../../workers/pool.ts';
 import { runScan } from '../../../workers/scan-driver.ts';
+import type { ScanHostClient } from '../../../workers/scan-host-client.ts';
 import type { ScanItem, ScanKind, ScanKinds, ScanOptions, ScanResult } from '../../../workers/protocol.ts';
 
 export type EngineRemote = Remote<Engine>;
@@ -21,8 +26,9 @@ export class EngineClient {
   /**
    * @param scanPool workers for scans
    * @param interactivePool one worker for interactive single calls
+   * @param host where scans run (a coordinating worker with a pool of scanPool's size); absent: on scanPool here
    */
-  constructor(readonly scanPool: WorkerPool<Engine>, readonly interactivePool: WorkerPool<Engine>) {}
+  constructor(readonly scanPool: WorkerPool<Engine>, readonly interactivePool: WorkerPool<Engine>, readonly host?: ScanHostClient) {}
 
   /** Number of scan workers. */
   get workers(): number {
@@ -35,7 +41,8 @@ export class EngineClient {
    */
   warm(): Promise<void> {
     const probe = (r: EngineRemote) => r.info();
-    return Promise.all([this.scanPool.warm(probe), this.interactivePool.warm(probe)]).then(() => undefined);
+    const scans = this.host ? this.host.warm() : this.scanPool.warm(probe);
+    return Promise.all([scans, this.interactivePool.warm(probe)]).then(() => undefined);
   }
 
   /**
@@ -49,9 +56,9 @@ export class EngineClient {
     return r;
   }
 
-  /** A scan (any kind of workers/protocol.ts) on the scan workers, through the one scan driver. */
+  /** A scan (any kind of workers/protocol.ts) on the scan workers, through the one scan driver (in the host when there is one). */
   scan<K extends ScanKind>(req: ScanKinds[K]['request'] & { kind: K }, o: ScanOptions<ScanItem<K>> = {}): Promise<ScanResult<K>> {
-    return runScan(this.scanPool, req, o);
+    return this.host ? this.host.scan(req, o) : runScan(this.scanPool, req, o);
   }
 
   /** A one-task scan (a phase margin) on the interactive worker, so it never waits behind a map. */
@@ -63,6 +70,7 @@ export class EngineClient {
   close(): void {
     this.scanPool.close();
     this.interactivePool.close();
+    this.host?.close();
   }
 }
 
