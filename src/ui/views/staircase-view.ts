@@ -8,7 +8,7 @@ import { HostWidthController } from '../controllers/host-width.ts';
 import { LitElement, html, css, nothing } from 'lit';
 import type { AppState, ModelInputs } from '../state/app-state.ts';
 import type { ParsedModel } from '../model/model-inputs.ts';
-import { parseRange, rangeValues } from '../../core/scan/axes.ts';
+import { parseRange, rangeNote, rangeValues } from '../../core/scan/axes.ts';
 import type { Plateau } from '../../core/meanfield/plateaus.ts';
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import type { ModelParams } from '../../core/model.ts';
@@ -23,6 +23,11 @@ import type { Table } from '../export/table.ts';
 import { inPageWords } from '../model/page-words.ts';
 import { phaseWords } from '../model/phase-words.ts';
 import { term, termStyles } from '../app/term-tip.ts';
+import { type LabPoint, labPointText } from '../state/lab-point.ts';
+import { PinsController, pinLabel, pins } from '../state/pinned-results.ts';
+import { withLabPoint } from '../figures/lab-point-mark.ts';
+import { withPinnedStaircase } from '../figures/pinned-overlay.ts';
+import type { RenderedFigure } from '../app/figure-panel.ts';
 import '../app/figure-panel.ts';
 import '../app/data-export.ts';
 import '../app/limits-note.ts';
@@ -41,8 +46,13 @@ function rangeLabel(r: number | undefined): string {
 export class StaircaseView extends LitElement {
   static override properties = {
     section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false },
-    hover: { state: true },
+    hover: { state: true }, labPoint: { attribute: false },
   };
+  /** The lab's operating point: its mu and tolerance marked on the staircase (null: none). */
+  declare labPoint: LabPoint | null;
+  /** Pinned results (a pinned staircase is drawn over this one). */
+  private pinned = new PinsController(this);
+  private overlayState = { lab: '', pinned: '' };
   /** The mu under the pointer (or the keyboard cursor) on the staircase, null when away. */
   declare hover: number | null;
   declare section: StaircaseSection;
@@ -86,7 +96,7 @@ export class StaircaseView extends LitElement {
     let r;
     try { r = parseRange(this.section.mu, 'mu'); } catch (e) { this.rangeError = inPageWords((e as Error).message); return; }
     if (!p || !this.engine) return;
-    if (r.count < 2 || r.count > 5000) { this.rangeError = 'the \u03bc scan needs a count from 2 to 5000'; return; }
+    if (r.count < 2 || r.count > 5000) { this.rangeError = 'the \u03bc scan needs from 2 to 5000 points (xN)'; return; }
     if (!(Math.max(r.start, r.stop) < p.delta)) { this.rangeError = `\u03bc must stay below the detuning ${p.delta} (the photon number is unbounded above it)`; return; }
     const series: ScanSeries[] = this.ranges(p).map((rmax) => {
       const { rho: _rho, mu: _mu, ...base } = p;
@@ -99,6 +109,8 @@ export class StaircaseView extends LitElement {
 
   override updated() {
     this.dataset.scan = this.scans.status;
+    this.dataset.lab = this.overlayState.lab;
+    this.dataset.pinned = this.overlayState.pinned;
     this.dataset.refined = this.scans.status === 'done' && this.scans.value?.series.every((s) => s.result.refined) ? 'yes' : 'no';
   }
 
@@ -140,10 +152,11 @@ export class StaircaseView extends LitElement {
     const cmds = p ? this.ranges(p).map((rmax) => cliLine('staircase', [...modelFlags({ ...this.inputs, range: rmax === undefined ? '' : String(rmax) }, ['mu']), `--mu=${this.section.mu}`, '--json'])) : [];
     return html`
       <div class="controls">
-        <div><label for="st-mu">\u03bc scan start:stop:count (g)</label>
-          <input id="st-mu" name="staircase-mu" .value=${this.section.mu} aria-invalid=${this.rangeError ? 'true' : 'false'} aria-describedby="st-mu-msg"
+        <div><label for="st-mu">\u03bc scan start..stop xN points (g)</label>
+          <input id="st-mu" name="staircase-mu" .value=${this.section.mu} aria-invalid=${this.rangeError ? 'true' : 'false'} aria-describedby="st-mu-msg st-mu-note"
             @input=${(e: Event) => this.patch({ mu: (e.target as HTMLInputElement).value })}>
-          <div class="err" id="st-mu-msg" role=${this.rangeError ? 'alert' : nothing}>${this.rangeError ?? ''}</div></div>
+          <div class="err" id="st-mu-msg" role=${this.rangeError ? 'alert' : nothing}>${this.rangeError ?? ''}</div>
+          <div class="muted range-note" id="st-mu-note">${this.rangeError ? '' : rangeNote(this.section.mu, true) ?? ''}</div></div>
         <div><label for="st-cmp">Compare with the ${term('range cut')}</label>
           <select id="st-cmp" name="staircase-compare" @change=${(e: Event) => this.patch({ compare: (e.target as HTMLSelectElement).value })}>
             ${COMPARE.map(([k, t]) => html`<option value=${k} ?selected=${k === this.section.compare}>${t}</option>`)}</select></div>
@@ -151,9 +164,12 @@ export class StaircaseView extends LitElement {
           ${this.scans.status === 'running' ? html`${this.scans.done} / ${this.scans.total} <button @click=${() => this.scans.cancel()}>Cancel</button>` : nothing}
           ${this.scans.status === 'cancelled' || this.scans.status === 'error' ? html`<button class="resume" @click=${() => this.scans.resume()}>Run again</button>` : nothing}
           ${this.scans.error ? html`<span class="err" role="alert">${inPageWords(this.scans.error)}</span>` : nothing}
-          ${!p ? html`<span class="err">The model has an invalid entry: showing the last good staircase.</span>` : nothing}</div>
+          ${!p ? html`<span class="err">The model has an invalid entry: showing the last good staircase.</span>` : nothing}
+          ${series.length ? html`<button class="pin-staircase" ?disabled=${this.scans.status !== 'done' || !!this.staleText()}
+            title="Keep these curves drawn (dashed) over the staircases of other parameters" @click=${() => this.pinStaircase(series)}>Pin this staircase</button>` : nothing}
+          ${pins.staircase ? html`<button class="unpin-staircase" @click=${() => pins.pinStaircase(null)}>Unpin</button>` : nothing}</div>
       </div>
-      <figure-panel class="staircase" interactive .figure=${fig} stale=${this.staleText()} .cursor=${this.cursorAt(v?.series[0], fig)}
+      <figure-panel class="staircase" interactive .figure=${fig ? this.overlays(fig, series) : null} stale=${this.staleText()} .cursor=${this.cursorAt(v?.series[0], fig)}
         .keyStep=${series.length ? [(series[0].mu.at(-1)! - series[0].mu[0]) / Math.max(1, series[0].mu.length - 1), 0.05] : null}
         @plot-hover=${(e: CustomEvent) => { this.hover = e.detail.x; }} @plot-leave=${() => { this.hover = null; }}></figure-panel>
       <div class="readout" aria-live="polite" aria-label="Readout under the cursor">${v ? this.readout(v.series) : 'Waiting for the first points\u2026'}</div>
@@ -178,6 +194,32 @@ export class StaircaseView extends LitElement {
   }
 
   /** The cursor dot on the first series' rho curve at the hovered mu. */
+  /** The pinned staircase and the lab point (its mu band, the marker on rho(mu) of the first range) over the figure. */
+  private overlays(fig: RenderedFigure, series: StaircaseSeries[]): RenderedFigure {
+    let out = fig, slot = 0;
+    this.overlayState = { lab: '', pinned: '' };
+    if (pins.staircase) {
+      const r = withPinnedStaircase(out, pins.staircase);
+      out = r.fig; slot = r.rows;
+      this.overlayState.pinned = 'drawn';
+    }
+    const lab = this.labPoint;
+    if (lab) {
+      const rho = interpolate(series[0].mu, series[0].rho, lab.mu.value);
+      out = withLabPoint(out, { x: lab.mu, y: rho === null ? null : { value: rho, sigma: 0 }, band: true, text: labPointText(lab) }, slot);
+      this.overlayState.lab = rho === null ? 'band' : 'marker';
+    }
+    return out;
+  }
+
+  /** Pin the curves on show, named by the model's entries (mu is the scan's). */
+  private pinStaircase(series: StaircaseSeries[]) {
+    pins.pinStaircase({
+      label: pinLabel(this.inputs, ['mu']),
+      series: series.map((s) => ({ label: s.label, mu: [...s.mu], rho: [...s.rho], filling: [...s.filling] })),
+    });
+  }
+
   private cursorAt(s: { result: { points: { state?: SolveResult }[] } } | undefined, fig: unknown): [number, number] | null {
     if (this.hover === null || !s || !fig) return null;
     const x = this.nearest(s, this.hover);
@@ -210,3 +252,12 @@ export class StaircaseView extends LitElement {
 customElements.define('staircase-view', StaircaseView);
 
 declare global { interface HTMLElementTagNameMap { 'staircase-view': StaircaseView } }
+
+/** y at x on the polyline (xs ascending), or null outside it. */
+function interpolate(xs: number[], ys: number[], x: number): number | null {
+  if (!xs.length || x < xs[0] || x > xs[xs.length - 1]) return null;
+  let i = 1;
+  while (i < xs.length - 1 && xs[i] < x) i++;
+  const x0 = xs[i - 1], x1 = xs[i] ?? x0;
+  return x1 === x0 ? ys[i - 1] : ys[i - 1] + ((ys[i] - ys[i - 1]) * (x - x0)) / (x1 - x0);
+}
