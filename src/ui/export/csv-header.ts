@@ -23,17 +23,20 @@ export function noCommentMark(c: Cell): Cell {
   return typeof c === 'string' && c.includes(COMMENT) ? c.replace(/#/g, '\uff03') : c;
 }
 
+/** An entry as typed, '(blank)' when empty. */
+const shown = (v: string) => (v.trim() === '' ? '(blank)' : v);
+
 /** The header lines (without '# '): what the file is, when it was written, every input, the command. */
 export function inputHeader(s: AppState, item: string, opts: { command?: string; written?: Date; rows?: number } = {}): string[] {
   const out = [`blockade-atlas ${s.view} view, ${item}${opts.rows !== undefined ? `, ${opts.rows} rows` : ''}`];
   if (opts.written) out.push(`written ${opts.written.toISOString()}`);
   out.push('model inputs (as typed in the model form; names are the command line flags):');
-  for (const k of MODEL_KEYS) out.push(`  ${k} = ${s.model[k]}`);
+  for (const k of MODEL_KEYS) out.push(`  ${k} = ${shown(s.model[k])}`);
   out.push(`${s.view} view inputs:`);
-  for (const [k, v] of Object.entries(s[s.view])) out.push(`  ${k} = ${v}`);
+  for (const [k, v] of Object.entries(s[s.view])) out.push(`  ${k} = ${shown(v)}`);
   if (s.lab && Object.values(s.lab).some((v) => v.trim() !== '')) {
     out.push('lab operating point marked on the figures (model units):');
-    for (const [k, v] of Object.entries(s.lab)) out.push(`  ${k} = ${v}`);
+    for (const [k, v] of Object.entries(s.lab)) out.push(`  ${k} = ${shown(v)}`);
   }
   if (opts.command) {
     out.push('command line for the same numbers:');
