@@ -188,6 +188,8 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
         return seg.length;
       },
     });
+    certified.clear();
+    uniform.clear();
     bandPoints.sort((a, b) => a.index - b.index);
     for (const pt of bandPoints) o.onItem?.(pt);
     if ((o as { keepPoints?: boolean }).keepPoints !== false) points.push(...bandPoints);
@@ -199,9 +201,21 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
     }
     const first = band.rows[0], last = band.rows[band.rows.length - 1];
     const edges: EdgeJob[] = [];
+    // a job only for an edge whose pixels differ (locate skips the others): memory of a
+    // band is its boundary edges, not 2 x 16 x nx jobs with their parameter sets
+    const ids = new Map<Array<SolveResult | undefined>, Array<string | undefined>>();
+    const idsOf = (row: Array<SolveResult | undefined>) => {
+      let r = ids.get(row);
+      if (!r) ids.set(row, r = Array.from(row, (st) => (st ? identity(st) : undefined)));
+      return r;
+    };
+    const differ = (lo: Array<SolveResult | undefined>, hi: Array<SolveResult | undefined>, i: number, j: number) => {
+      const a = idsOf(lo)[i], b = idsOf(hi)[j];
+      return a !== undefined && b !== undefined && a !== b;
+    };
     for (const iy of band.rows) {
       const s = rowStates.get(iy) as Array<SolveResult | undefined>;
-      for (let ix = 0; ix + 1 < nx; ix++) edges.push({ edge: `h${iy * nx + ix}`, axis: plan.x, a: s[ix], b: s[ix + 1], pa: gridPoint(plan, ix, iy), pb: gridPoint(plan, ix + 1, iy), va: plan.x.values[ix], vb: plan.x.values[ix + 1], fixed: plan.y ? [plan.y.values[iy]] : [], along: 0 });
+      for (let ix = 0; ix + 1 < nx; ix++) if (differ(s, s, ix, ix + 1)) edges.push({ edge: `h${iy * nx + ix}`, axis: plan.x, a: s[ix], b: s[ix + 1], pa: gridPoint(plan, ix, iy), pb: gridPoint(plan, ix + 1, iy), va: plan.x.values[ix], vb: plan.x.values[ix + 1], fixed: plan.y ? [plan.y.values[iy]] : [], along: 0 });
       const up = rowStates.get(iy + 1) ?? (iy === last ? edgeRows.get(iy + 1) : undefined);
       const down = iy === first ? edgeRows.get(iy - 1) : undefined;
       const pairs: Array<[number, Array<SolveResult | undefined>, Array<SolveResult | undefined>]> = [];
@@ -209,13 +223,17 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
       if (down && plan.y) pairs.push([iy - 1, down, s]);
       for (const [y, lo, hi] of pairs) {
         const ya = (plan.y as Axis).values[y], yb = (plan.y as Axis).values[y + 1];
-        for (let ix = 0; ix < nx; ix++) edges.push({ edge: `v${y * nx + ix}`, axis: plan.y as Axis, a: lo[ix], b: hi[ix], pa: gridPoint(plan, ix, y), pb: gridPoint(plan, ix, y + 1), va: ya, vb: yb, fixed: [plan.x.values[ix]], along: 1 });
+        for (let ix = 0; ix < nx; ix++) if (differ(lo, hi, ix, ix)) edges.push({ edge: `v${y * nx + ix}`, axis: plan.y as Axis, a: lo[ix], b: hi[ix], pa: gridPoint(plan, ix, y), pb: gridPoint(plan, ix, y + 1), va: ya, vb: yb, fixed: [plan.x.values[ix]], along: 1 });
       }
     }
     edgeRows.set(first, rowStates.get(first) as Array<SolveResult | undefined>);
     edgeRows.set(last, rowStates.get(last) as Array<SolveResult | undefined>);
     // in row order only the band's last row meets a later band (memory: one row, not the map's edges)
     if (req.order !== 'spread') for (const k of [...edgeRows.keys()]) if (k !== last) edgeRows.delete(k);
+    // the band's states are written: only the edge rows and the boundary edges' pixels stay
+    ids.clear();
+    rowStates.clear();
+    bandPoints.length = 0;
     const before = solves;
     crossings.push(...await locate(edges, plan, located, solveCold));
     boundarySolves += solves - before;
