@@ -78,13 +78,12 @@ export function coincidentBranches(lines: number[][]): number[][] {
   return groups;
 }
 
-/** A note in the top left corner of the plot area (what the range leaves out). */
-function cornerNote(text: string): Mark {
+/** A note in the top margin, over the plot area's left edge (what the range leaves out). */
+function topNote(text: string): Mark {
   return {
     clip: false,
     render(f: Frame) {
-      return el('text', { class: 'range-note', x: f.inner.x0 + 6, y: f.inner.y0 + 13, 'font-size': 11, fill: '#7a1f1f',
-        stroke: '#ffffff', 'stroke-width': 3, 'paint-order': 'stroke' }, esc(text));
+      return el('text', { class: 'range-note', x: f.inner.x0, y: f.inner.y0 - 6, 'font-size': 10.5, fill: '#7a1f1f' }, esc(text));
     },
   };
 }
@@ -139,10 +138,10 @@ export function branchesFigure(sp: StateSpectrum, width: number, height: number,
   const dotsOut = extra.filter((p) => !inRange(p.y)).length;
   const top = Math.max(...lines.flat().filter(Number.isFinite), ...extra.map((p) => p.y));
   const out: string[] = [];
-  if (above) out.push(`${above} branch${above === 1 ? '' : 'es'} above`);
-  if (partly) out.push(`${partly} partly outside`);
-  if (dotsOut) out.push(`the photon-like mode${dotsOut === 1 ? '' : 's'} outside`);
-  if (out.length) marks.push(cornerNote(`${out.join(', ')} (highest \u03c9 = ${f4(top)} g): choose "all branches" to see them`));
+  if (above) out.push(`${above} branch${above === 1 ? '' : 'es'}`);
+  if (partly) out.push(`${partly} in part`);
+  if (dotsOut) out.push('photon mode');
+  if (out.length) marks.push(topNote(`outside the range: ${out.join(', ')} (up to \u03c9 = ${f4(top)} g)`));
   // runs of path points with complex eigenvalues, shaded (half a step either side)
   const bands: Band[] = [];
   const h = s.length > 1 ? (s[1] - s[0]) / 2 : 0;
@@ -159,12 +158,14 @@ export function branchesFigure(sp: StateSpectrum, width: number, height: number,
   for (const t of sp.ticks) marks.push(ruleX(t.s, { stroke: '#c9cfd9', width: 1 }));
   marks.push(ruleY(0, { stroke: '#7d8798', dash: '2 2' }));
   marks.push(axisX({ label: 'wavevector along the path (1/a)', tickValues: sp.ticks.map((t) => ({ value: t.s, label: cornerLabel(t.label) })) }));
-  marks.push(axisY({ label: 'frequency \u03c9 (g), frame rotating at \u03bc', grid: true }));
   const narrow = width < NARROW;
+  // the axis title fits the plot's height: short on narrow figures
+  marks.push(axisY({ label: narrow ? 'frequency \u03c9 (g)' : 'frequency \u03c9 (g), frame rotating at \u03bc', grid: true }));
   marks.push(legend(entries, narrow ? { below: true } : { title: 'Branches' }));
   const below = narrow ? legendBelowHeight(entries.length, width) : 0;
   const { svg, frame } = renderFigure({
-    id: 'branches', width, height: height + below, margin: narrow ? { right: 14, left: 62, bottom: 46 + below } : { right: 200, left: 62 },
+    id: 'branches', width, height: height + below,
+    margin: narrow ? { top: 22, right: 14, left: 62, bottom: 46 + below } : { top: 22, right: 200, left: 62 },
     x: [s[0], s[s.length - 1]], y, marks, title,
   });
   return { svg, frame, name: 'branches', title };
@@ -188,7 +189,7 @@ export function marginFigure(sp: StateSpectrum, width: number, height: number): 
   for (const t of sp.ticks) marks.push(ruleX(t.s, { stroke: '#c9cfd9' }));
   marks.push(axisX({ label: 'wavevector along the path (1/a)', tickValues: sp.ticks.map((t) => ({ value: t.s, label: cornerLabel(t.label) })) }));
   const narrow = width < NARROW;
-  marks.push(axisY({ label: 'stability margin (dimensionless)', grid: true }), legend(entries, narrow ? { below: true } : { title: 'Static stability' }));
+  marks.push(axisY({ label: narrow ? 'stability margin' : 'stability margin (dimensionless)', grid: true }), legend(entries, narrow ? { below: true } : { title: 'Static stability' }));
   const below = narrow ? legendBelowHeight(entries.length, width) : 0;
   const ys = [...sp.margins, 0, sp.softMode.margin].filter(Number.isFinite);
   const lo = Math.min(...ys), hi = Math.max(...ys), pad = (hi - lo) * 0.08 || 0.1;

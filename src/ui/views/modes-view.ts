@@ -14,6 +14,7 @@ import type { EngineClient } from '../engine/engine-client.ts';
 import { EngineTask } from '../controllers/engine-task.ts';
 import { type BranchRange, branchesFigure, marginFigure } from '../figures/spectrum-figure.ts';
 import { kText } from '../model/pi-multiple.ts';
+import { phaseWords } from '../model/phase-words.ts';
 import { inPageWords } from '../model/page-words.ts';
 import { term, termStyles } from '../app/term-tip.ts';
 import { sharedStyles } from '../app/shared-styles.ts';
@@ -109,6 +110,7 @@ export class ModesView extends LitElement {
     const w = Math.max(300, Math.min(this.size.width, 1000));
     const h = Math.round(Math.min(420, Math.max(260, w * 0.42)));
     const st = sp?.state;
+    const maxCell = this.model.params?.maxCell ?? st?.cellSize ?? 12;
     const stale = !sp ? '' : !this.model.params || this.inputError ? 'out of date: an entry is invalid'
       : !this.task.stale ? '' : this.task.status === 'pending' ? 'out of date, recomputing\u2026' : 'out of date (not recomputed)';
     const zoomed = this.zoom === 'custom' ? parseZoom(this.zoomText) : null;
@@ -136,7 +138,7 @@ export class ModesView extends LitElement {
       ${this.task.error ? html`<p class="err" role="alert">${inPageWords(this.task.error)}</p>` : nothing}
       ${!this.model.params ? html`<p class="err">The model has an invalid entry: showing the last good spectrum.</p>` : nothing}
       ${sp && st ? html`
-        <p class="summary ${stale ? 'stale-text' : ''}" role="status">${stale ? html`<strong class="err">${stale}:</strong> ` : nothing}State: <strong>${st.phase === 'supersolid' ? term('supersolid', PHASE_NAMES[st.phase]) : PHASE_NAMES[st.phase]}${st.fraction ? ' ' + st.fraction : ''}</strong> (M = ${st.cellSize}).
+        <p class="summary ${stale ? 'stale-text' : ''}" role="status">${stale ? html`<strong class="err">${stale}:</strong> ` : nothing}State: <strong>${st.phase === 'supersolid' ? term('supersolid', phaseWords(st, maxCell)) : phaseWords(st, maxCell)}</strong> (M = ${st.cellSize}).
           Softest mode at <strong class="kstar">k* = ${kText(sp.softMode.k)}</strong> (${sp.softMode.kind}), ${term('margin')}
           <strong class="margin">${f(sp.softMode.margin)}</strong>: ${sp.softMode.stable ? 'thermodynamically stable' : 'UNSTABLE (a lower state exists in the cell of k*)'};
           ${sp.dynamicallyStable ? 'dynamically stable (real frequencies).' : html`<span class="err">dynamically unstable, growth rate ${f(sp.growth)} g.</span>`}</p>
