@@ -14,6 +14,9 @@ import type { EngineClient } from '../engine/engine-client.ts';
 import { EngineTask } from '../controllers/engine-task.ts';
 import { type BranchRange, branchesFigure, marginFigure } from '../figures/spectrum-figure.ts';
 import { kText } from '../model/pi-multiple.ts';
+import { type LabPoint, labPointText, modelAtLabPoint } from '../state/lab-point.ts';
+import { withLabNote } from '../figures/lab-point-mark.ts';
+import type { RenderedFigure } from '../app/figure-panel.ts';
 import { phaseWords } from '../model/phase-words.ts';
 import { inPageWords } from '../model/page-words.ts';
 import { term, termStyles } from '../app/term-tip.ts';
@@ -53,8 +56,10 @@ export function spectrumTable(sp: StateSpectrum): Table {
 export class ModesView extends LitElement {
   static override properties = {
     section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false },
-    zoom: { state: true }, zoomText: { state: true },
+    zoom: { state: true }, zoomText: { state: true }, labPoint: { attribute: false },
   };
+  /** The lab's operating point: the figure says whether this spectrum is at it (null: none). */
+  declare labPoint: LabPoint | null;
   /** Frequency range of the branch figure (view-local: it changes the look, never a result). */
   declare zoom: 'low' | 'all' | 'custom';
   declare zoomText: string;
@@ -103,6 +108,13 @@ export class ModesView extends LitElement {
   override updated() {
     this.dataset.status = this.task.status;
     this.dataset.stale = this.task.stale ? 'yes' : 'no';
+    this.dataset.lab = this.labPoint ? (modelAtLabPoint(this.labPoint, this.model.params) ? 'at' : 'away') : '';
+  }
+
+  /** The branches figure with the lab point named on it, and whether the model's point lies in its box. */
+  private labNote(fig: RenderedFigure): RenderedFigure {
+    const lab = this.labPoint;
+    return lab ? withLabNote(fig, labPointText(lab), modelAtLabPoint(lab, this.model.params)) : fig;
   }
 
   override render() {
@@ -142,7 +154,9 @@ export class ModesView extends LitElement {
           Softest mode at <strong class="kstar">k* = ${kText(sp.softMode.k)}</strong> (${sp.softMode.kind}), ${term('margin')}
           <strong class="margin">${f(sp.softMode.margin)}</strong>: ${sp.softMode.stable ? 'thermodynamically stable' : 'UNSTABLE (a lower state exists in the cell of k*)'};
           ${sp.dynamicallyStable ? 'dynamically stable (real frequencies).' : html`<span class="err">dynamically unstable, growth rate ${f(sp.growth)} g.</span>`}</p>
-        <figure-panel class="branches" stale=${stale} .figure=${branchesFigure(sp, w, h, `Fluctuation branches of the ${PHASE_NAMES[st.phase]} state`, range)}></figure-panel>
+        ${this.labPoint ? html`<p class="lab-note">${modelAtLabPoint(this.labPoint, this.model.params) ? 'This spectrum is at the lab point' : 'This spectrum is NOT at the lab point'}
+          (${labPointText(this.labPoint)}, ±1σ box).</p>` : nothing}
+        <figure-panel class="branches" stale=${stale} .figure=${this.labNote(branchesFigure(sp, w, h, `Fluctuation branches of the ${PHASE_NAMES[st.phase]} state`, range))}></figure-panel>
         <figure-panel class="margin" stale=${stale} .figure=${marginFigure(sp, w, Math.round(h * 0.8))}></figure-panel>
         <p class="muted">At k = 0 (${term('photon weight')} in brackets): ${sp.zoneCentre.omega.map((o, i) => `${f(o)} g (${f(sp.zoneCentre.photonWeight[i])})`).join(', ')}.
           ${term('margin', 'Margin')}: lowest eigenvalue of the static stability matrix, 1 for free emitters, 0 on a soft-mode line.</p>
