@@ -2,7 +2,10 @@
  * A user's own finite array of emitters (a planned tweezer pattern) with open boundaries.
  *
  * CSV text, one site per line as `x,y`; blank lines and lines starting with `#` are skipped,
- * and a first line `x,y` is taken as a header. Coordinates are in units of the lattice
+ * and a first line `x,y` is taken as a header. The two numbers may also be separated by
+ * spaces or tabs (`x y`), or by a semicolon (`x;y`, as spreadsheets write CSV where the
+ * decimal mark is a comma: in such a file a comma inside a number is its decimal mark).
+ * The first line that is not blank or a comment fixes the separator for the whole file. Coordinates are in units of the lattice
  * spacing a, or in micrometres when a spacing (um) is given: r = (x, y) / spacing.
  *
  *   V_ij = V(|r_i - r_j|) (with the range cut), d_ij = |r_i - r_j|, no periodic images.
@@ -30,6 +33,20 @@ export const MIN_SEPARATION = 0.05;
 /** Largest box of unit spacing around the array (sites of its momentum grid): 1e6. */
 export const MAX_BOX = 1e6;
 
+type Separator = ';' | ',' | ' ';
+
+/** The separator a line uses: a semicolon (commas are then decimal marks), else a comma, else spaces. */
+function separatorOf(line: string): Separator {
+  return line.includes(';') ? ';' : line.includes(',') ? ',' : ' ';
+}
+
+/** The fields of one line split at the file's separator. */
+function splitSiteLine(line: string, sep: Separator): string[] {
+  if (sep === ';') return line.split(';').map((f) => f.trim().replace(',', '.'));
+  if (sep === ',') return line.split(',').map((f) => f.trim());
+  return line.split(/\s+/);
+}
+
 /** Parse CSV text of `x,y` lines into positions [x0, y0, x1, y1, ...] in units of a. */
 export function parseSiteCsv(text: string, spacing?: number): number[] {
   if (spacing !== undefined) {
@@ -40,17 +57,19 @@ export function parseSiteCsv(text: string, spacing?: number): number[] {
   const out: number[] = [];
   const lines = text.split(/\r?\n/);
   let seenData = false;
+  let sep: Separator | undefined;
   for (let n = 0; n < lines.length; n++) {
     const line = lines[n].trim();
     if (line === '' || line.startsWith('#')) continue;
-    const fields = line.split(',').map((f) => f.trim());
+    sep ??= separatorOf(line);
+    const fields = splitSiteLine(line, sep);
     if (!seenData && fields.length === 2 && fields[0].toLowerCase() === 'x' && fields[1].toLowerCase() === 'y') {
       seenData = true;
       continue;
     }
     seenData = true;
     if (fields.length !== 2) {
-      throw new InputError(`sites line ${n + 1}: expected two comma-separated numbers x,y, got "${line}"`, 'sites');
+      throw new InputError(`sites line ${n + 1}: expected two numbers x,y (separated by a comma, a semicolon or spaces), got "${line}"`, 'sites');
     }
     const xy = fields.map((f, a) => {
       const v = f === '' ? NaN : Number(f);

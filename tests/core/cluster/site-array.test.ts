@@ -17,7 +17,7 @@ describe('user arrays from CSV: open boundaries', () => {
       expect(() => parseSiteCsv(t, spacing)).toThrow(InputError);
       expect(() => parseSiteCsv(t, spacing)).toThrow(re);
     };
-    bad('0,0\n1,2,3\n', /line 2: expected two comma-separated numbers/);
+    bad('0,0\n1,2,3\n', /line 2: expected two numbers x,y/);
     bad('0,0\n1;2\n', /line 2/);
     bad('0,0\nfoo,1\n', /line 2: x is not a number: "foo"/);
     bad('0,0\n1,\n', /line 2: y is not a number/);
