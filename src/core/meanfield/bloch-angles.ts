@@ -118,25 +118,58 @@ function energy(p: CellProblem, th: Float64Array, m: Float64Array, sn: Float64Ar
   return e / (2 * M) - (X * X) / (4 * dmu);
 }
 
+/**
+ * Work arrays of solveAngles for one M, reused from call to call (plain scratch: every
+ * entry is written before it is read, so the results are those of fresh arrays). A
+ * re-entrant call (from a trace or abandon callback) gets fresh arrays.
+ */
+interface Work {
+  busy: boolean;
+  m: Float64Array; sn: Float64Array; cs: Float64Array; xi: Float64Array; th: Float64Array;
+  tm: Float64Array; tsn: Float64Array; tcs: Float64Array; txi: Float64Array; tth: Float64Array;
+  grad: Float64Array; d: Float64Array; v: Float64Array; H: Float64Array; L: Float64Array;
+}
+
+const works = new Map<number, Work>();
+
+function newWork(M: number): Work {
+  const f = () => new Float64Array(M);
+  return {
+    busy: false, m: f(), sn: f(), cs: f(), xi: f(), th: f(), tm: f(), tsn: f(), tcs: f(), txi: f(), tth: f(),
+    grad: f(), d: f(), v: f(), H: new Float64Array(M * M), L: new Float64Array(M * M),
+  };
+}
+
 /** Newton minimisation of Phi(theta) from the start m0 (T = 0 only). */
 export function solveAngles(p: CellProblem, m0: ArrayLike<number>, opts: SolveCellOptions = {}): AngleResult {
-  const M = p.M, tol = opts.tol ?? 1e-12, maxIter = opts.maxIter ?? 100, dmu = p.delta - p.mu;
-  const f = () => new Float64Array(M);
-  const xi = f();
+  const M = p.M;
   let integer = true;
   for (let s = 0; s < M; s++) if (m0[s] !== 0 && m0[s] !== 1) integer = false;
   if (integer) {
-    const n = classicalDescent(p, m0);
-    if (classicalStable(p, n, xi)) return { m: n, sx: f(), xi, alpha: 0, converged: true, iterations: 0, step: 0 };
+    const n = classicalDescent(p, m0), xi = new Float64Array(M);
+    if (classicalStable(p, n, xi)) return { m: n, sx: new Float64Array(M), xi, alpha: 0, converged: true, iterations: 0, step: 0 };
     m0 = n;
   }
-  const th = Float64Array.from(m0, (v) => {
-    const t = Math.acos(Math.min(1, Math.max(-1, 1 - 2 * v)));
-    return Math.min(Math.PI - KICK, Math.max(KICK, t));
-  });
-  const m = f(), sn = f(), cs = f(), grad = f(), d = f();
-  const tm = f(), tsn = f(), tcs = f(), txi = f(), tth = f();
-  const H = new Float64Array(M * M), L = new Float64Array(M * M), v = f();
+  let w = works.get(M);
+  if (!w) works.set(M, w = newWork(M));
+  if (w.busy) w = newWork(M);
+  w.busy = true;
+  try {
+    return newton(p, m0, opts, w);
+  } finally {
+    w.busy = false;
+  }
+}
+
+/** The Newton iteration of solveAngles from a start that is not a stable integer pattern. */
+function newton(p: CellProblem, m0: ArrayLike<number>, opts: SolveCellOptions, w: Work): AngleResult {
+  const M = p.M, tol = opts.tol ?? 1e-12, maxIter = opts.maxIter ?? 100, dmu = p.delta - p.mu;
+  let { th, m, sn, cs, xi, tth, tm, tsn, tcs, txi } = w;
+  const { grad, d, H, L, v } = w;
+  for (let s = 0; s < M; s++) {
+    const t = Math.acos(Math.min(1, Math.max(-1, 1 - 2 * m0[s])));
+    th[s] = Math.min(Math.PI - KICK, Math.max(KICK, t));
+  }
   let phi = energy(p, th, m, sn, cs, xi);
   let converged = false, it = 0, step = Infinity;
   for (it = 1; it <= maxIter; it++) {
@@ -176,7 +209,9 @@ export function solveAngles(p: CellProblem, m0: ArrayLike<number>, opts: SolveCe
     // m and <sigma^x> both: near alpha = 0, m ~ theta^2 settles long before sin theta does.
     // And xi: under a strong blockade m ~ 1/V is far below tol while V dm still moves xi.
     for (let s = 0; s < M; s++) step = Math.max(step, Math.abs(tm[s] - m[s]), Math.abs(tsn[s] - sn[s]), Math.abs(txi[s] - xi[s]) / XI_SCALE);
-    th.set(tth); m.set(tm); sn.set(tsn); cs.set(tcs); xi.set(txi); phi = tphi;
+    // the trial point becomes the current one (the buffers swap; the old ones are the next trial's)
+    [th, tth] = [tth, th]; [m, tm] = [tm, m]; [sn, tsn] = [tsn, sn]; [cs, tcs] = [tcs, cs]; [xi, txi] = [txi, xi];
+    phi = tphi;
     opts.trace?.(m, alpha, phi, lambda);
     if (step < tol && lambda === 1) { converged = true; break; }
     if (opts.abandon?.(m, it)) break;
@@ -185,6 +220,6 @@ export function solveAngles(p: CellProblem, m0: ArrayLike<number>, opts: SolveCe
   for (let s = 0; s < M; s++) X += sn[s];
   const alphaSigned = X / M / (2 * dmu);
   const sign = alphaSigned < 0 ? -1 : 1;
-  const sx = Float64Array.from(sn, (v) => -sign * v);
-  return { m, sx, xi, alpha: Math.abs(alphaSigned), converged, iterations: Math.min(it, maxIter), step };
+  const sx = Float64Array.from(sn, (x) => -sign * x);
+  return { m: m.slice(), sx, xi: xi.slice(), alpha: Math.abs(alphaSigned), converged, iterations: Math.min(it, maxIter), step };
 }
