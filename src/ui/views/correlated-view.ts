@@ -32,6 +32,9 @@ import { PHASE_NAMES } from '../plot/phase-palette.ts';
 import '../app/figure-panel.ts';
 import '../app/data-export.ts';
 import '../app/limits-note.ts';
+import { type LabPoint, labPointText, modelAtLabPoint } from '../state/lab-point.ts';
+import { withLabNote } from '../figures/lab-point-mark.ts';
+import type { RenderedFigure } from '../app/figure-panel.ts';
 import type { QmcRequest, QmcResult } from '../../core/qmc/quantum-monte-carlo.ts';
 import type { Estimate } from '../../core/vmc/binning.ts';
 import { QmcTask, qmcProgressText } from '../controllers/qmc-task.ts';
@@ -75,7 +78,10 @@ function sitesFromState(s: string): number[] {
 export class CorrelatedView extends LitElement {
   static override properties = {
     section: { attribute: false }, model: { attribute: false }, inputs: { attribute: false }, engine: { attribute: false },
+    labPoint: { attribute: false },
   };
+  /** The lab's operating point: the cluster figure says whether this check is at it (null: none). */
+  declare labPoint: LabPoint | null;
   declare section: Section;
   declare model: ParsedModel;
   declare inputs: ModelInputs;
@@ -194,10 +200,17 @@ export class CorrelatedView extends LitElement {
     this.meanField.run(JSON.stringify(mf), (signal) => this.engine.call((r) => r.meanfield.solve(mf), signal));
   }
 
+  /** The cluster figure with the lab point named on it, and whether the model's point lies in its box. */
+  private labNote(fig: RenderedFigure): RenderedFigure {
+    const lab = this.labPoint;
+    return lab ? withLabNote(fig, labPointText(lab), modelAtLabPoint(lab, this.model.params)) : fig;
+  }
+
   override updated() {
     const qmc = this.job?.method === 'qmc';
     this.dataset.status = qmc ? this.qmc.status : this.task.status;
     this.dataset.method = qmc ? (this.qmc.value ? 'qmc' : '') : this.task.value?.kind ?? '';
+    this.dataset.lab = this.labPoint ? (modelAtLabPoint(this.labPoint, this.model.params) ? 'at' : 'away') : '';
     const v = this.task.value;
     if (v?.kind === 'ed' && this.job?.method === 'ed' && this.task.status === 'complete') this.lastEd = { key: physicsKey(this.job), r: v.r };
     const q = this.qmc.value;
@@ -297,13 +310,15 @@ export class CorrelatedView extends LitElement {
       <p class="muted trust">Which to trust: quantum Monte Carlo (stochastic series expansion) samples the cluster without bias at any T;
         its error bars are statistical only, so it is the reference. ED is exact but limited to 20 sites at T = 0; VMC is a variational
         bound, as good as its ansatz and its optimisation, and is checked against the others below.</p>
+      ${this.labPoint ? html`<p class="lab-note">${modelAtLabPoint(this.labPoint, this.model.params) ? 'This check is at the lab point' : 'This check is NOT at the lab point'}
+        (${labPointText(this.labPoint)}, \u00b11\u03c3 box; the cluster is at the model's \u03bc and \u03b4).</p>` : nothing}
       ${error ? html`<p class="err" role="alert">${error}</p>` : nothing}
       ${this.uploadError ? html`<p class="err" role="alert">${this.uploadError}</p>` : nothing}
       ${runError ? html`<p class="err" role="alert">${runError}</p>` : nothing}
       ${v?.kind === 'vmc' && this.task.status === 'complete' ? this.vmcVerdict(v.r, mf) : nothing}
       ${v?.kind === 'qmc' && v.r.notes.length ? html`<ul class="caution qmc-notes" aria-label="QMC notes">${v.r.notes.map((n) => html`<li>${n}</li>`)}</ul>` : nothing}
       <div class="grid">
-        ${positions ? html`<figure-panel class="cluster" .figure=${clusterFigure(positions, dens, job!.cluster.kind === 'periodic', w, this.model.params?.lattice === 'chain' && job!.cluster.kind === 'periodic' ? 170 : 300)}></figure-panel>` : nothing}
+        ${positions ? html`<figure-panel class="cluster" .figure=${this.labNote(clusterFigure(positions, dens, job!.cluster.kind === 'periodic', w, this.model.params?.lattice === 'chain' && job!.cluster.kind === 'periodic' ? 170 : 300))}></figure-panel>` : nothing}
         <div>${this.comparison(v, mf)}</div>
         ${trace.length ? this.traceFigure(trace, mf, w) : nothing}
         ${v ? this.correlationFigures(v, w) : nothing}
