@@ -6,7 +6,8 @@
  * where it lies outside them.
  */
 import type { OperatingPoint } from '../../core/lab/operating-point.ts';
-import { type AxisName, parseAxis, parseRange } from '../../core/scan/axes.ts';
+import type { ModelParams } from '../../core/model.ts';
+import { type AxisName, formatRange, parseAxis, parseRange } from '../../core/scan/axes.ts';
 import { type AppState, type ModelKey, cloneState, emptyLab } from './app-state.ts';
 
 /** A value and its one-sigma half-width on one axis (sigma 0: known exactly). */
@@ -70,11 +71,17 @@ export function insideBox(p: LabPoint, m: { rb?: number; v1?: number; delta: num
   return strength && near(m.delta, p.detuning) && near(m.mu, p.mu) && near(m.T, p.temperature);
 }
 
+/** Whether the model's parameters are the lab point's within its box (a van der Waals model, as the planner sets it). */
+export function modelAtLabPoint(p: LabPoint, m: ModelParams | null): boolean {
+  if (!m || m.interaction.shape !== 'vdw' || m.interaction.rmax !== undefined) return false;
+  return insideBox(p, { rb: m.interaction.Rb, v1: m.interaction.Rb === undefined ? m.interaction.V1 : undefined, delta: m.delta, mu: m.mu, T: m.T });
+}
+
 /** Domain of an axis quantity for the re-centred range: a lower bound (exclusive or not) and an upper one. */
 interface Domain { lo?: number; loOpen?: boolean; hi?: number }
 
 /**
- * A range `start:stop:count` re-centred on `a` when the box a.value +- a.sigma is not
+ * A range `start..stop xN` re-centred on `a` when the box a.value +- a.sigma is not
  * inside it: the same span centred on the value (widened to 1.25 times the box where the
  * box is wider than the span), then shifted to stay inside the quantity's domain (the gap
  * kept from an open bound is 2% of the span). The count and the direction are kept;
@@ -89,7 +96,7 @@ export function recentredRange(range: { start: number; stop: number; count: numb
   if (d.hi !== undefined && hi >= d.hi) { hi = d.hi - gap; lo = hi - 2 * half; }
   if (d.lo !== undefined && (d.loOpen ? lo <= d.lo : lo < d.lo)) { lo = d.lo + (d.loOpen ? gap : 0); hi = Math.max(hi, lo + 2 * half); }
   const [s, e] = range.start <= range.stop ? [lo, hi] : [hi, lo];
-  return `${short(s)}:${short(e)}:${range.count}`;
+  return formatRange({ start: Number(short(s)), stop: Number(short(e)), count: range.count }, true);
 }
 
 /** The domain of each axis quantity given the point (mu below the detuning and the other way round). */
