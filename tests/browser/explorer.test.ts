@@ -88,12 +88,12 @@ describe('phase atlas', () => {
 
   it('the map saves as SVG and as PNG', async () => {
     const svg = await download(page, () => page.locator('figure-panel.map button', { hasText: 'SVG' }).click());
-    expect(svg.name).toBe('phase-map.svg');
+    expect(svg.name).toMatch(/^atlas-phase-map_chain_vdw_[A-Za-z0-9._-]*\.svg$/); // view, figure and key inputs (tests/ui/export/file-name.test.ts)
     expect(svg.text).toContain('<svg xmlns="http://www.w3.org/2000/svg"');
     expect(svg.text).toContain('chemical potential \u03bc (g)');
     expect(svg.text).toContain('class="legend"');
     const [d] = await Promise.all([page.waitForEvent('download'), page.locator('figure-panel.map button', { hasText: 'PNG' }).click()]);
-    expect(d.suggestedFilename()).toBe('phase-map.png');
+    expect(d.suggestedFilename()).toMatch(/^atlas-phase-map_chain_vdw_[A-Za-z0-9._-]*\.png$/);
     const bytes = await readFile(await d.path());
     // the PNG signature (ISO/IEC 15948, 5.2): 89 50 4E 47 0D 0A 1A 0A
     expect([...bytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
@@ -156,8 +156,9 @@ describe('phase atlas', () => {
     await open('?view=atlas&atlas.x=mu%3D-1%3A2.9%3A12&atlas.y=rb%3D0.9%3A2.1%3A7');
     await waitForScan(page, 'done');
     const { name, text } = await download(page, () => page.locator('phase-atlas-view data-export.map-export button', { hasText: 'CSV' }).click());
-    expect(name).toBe('phase-map.csv');
-    const lines = text.trimEnd().split('\n');
+    expect(name).toMatch(/^atlas-phase-map_chain_vdw_[A-Za-z0-9._-]*\.csv$/);
+    // the page's CSV starts with a '#' header of its inputs (tests/browser/exports.test.ts); the table follows
+    const lines = text.trimEnd().split('\n').filter((l) => !l.startsWith('#'));
     const command = await page.locator('phase-atlas-view data-export.map-export code.command').textContent();
     const cli = (await runCliLine(command ?? '')).trimEnd().split('\n');
     expect(lines[0]).toBe(cli[0]);

@@ -28,7 +28,9 @@ import { seriesFigure } from '../figures/series-figure.ts';
 import { correlatedTable, comparisonRows } from './correlated-numbers.ts';
 import { cliLine, modelFlags } from '../export/cli-command.ts';
 import { downloadText } from '../export/download.ts';
+import { pageCsvHeader } from '../export/page-state.ts';
 import { PHASE_NAMES } from '../plot/phase-palette.ts';
+import { inPageWords } from '../model/page-words.ts';
 import '../app/figure-panel.ts';
 import '../app/data-export.ts';
 import '../app/limits-note.ts';
@@ -297,7 +299,7 @@ export class CorrelatedView extends LitElement {
             <option value="periodic" ?selected=${s.cluster !== 'array'}>periodic cluster of the lattice</option>
             <option value="array" ?selected=${s.cluster === 'array'}>my array (CSV)</option></select></div>
         ${s.cluster === 'array'
-          ? html`<div><label for="cr-file">Array CSV (x,y per line)</label><input id="cr-file" type="file" accept=".csv,text/csv,text/plain" style="width:220px" @change=${this.upload}></div>
+          ? html`<div><label for="cr-file">Array file (x and y per line: comma, semicolon or space)</label><input id="cr-file" type="file" accept=".csv,text/csv,text/plain" style="width:220px" @change=${this.upload}></div>
               <div><label for="cr-spacing">coordinates in \u00b5m: spacing a</label><input id="cr-spacing" name="correlated-spacing" placeholder="units of a"></div>`
           : this.field('size', 'Cluster size L (ring) or Lx x Ly (e.g. 4x4)')}
         ${this.field('alpha', '\u03b1 fixed (empty: self-consistent)', 150)}
@@ -312,9 +314,9 @@ export class CorrelatedView extends LitElement {
         bound, as good as its ansatz and its optimisation, and is checked against the others below.</p>
       ${this.labPoint ? html`<p class="lab-note">${modelAtLabPoint(this.labPoint, this.model.params) ? 'This check is at the lab point' : 'This check is NOT at the lab point'}
         (${labPointText(this.labPoint)}, \u00b11\u03c3 box; the cluster is at the model's \u03bc and \u03b4).</p>` : nothing}
-      ${error ? html`<p class="err" role="alert">${error}</p>` : nothing}
-      ${this.uploadError ? html`<p class="err" role="alert">${this.uploadError}</p>` : nothing}
-      ${runError ? html`<p class="err" role="alert">${runError}</p>` : nothing}
+      ${error ? html`<p class="err" role="alert">${inPageWords(error)}</p>` : nothing}
+      ${this.uploadError ? html`<p class="err" role="alert">${inPageWords(this.uploadError)}</p>` : nothing}
+      ${runError ? html`<p class="err" role="alert">${inPageWords(runError)}</p>` : nothing}
       ${v?.kind === 'vmc' && this.task.status === 'complete' ? this.vmcVerdict(v.r, mf) : nothing}
       ${v?.kind === 'qmc' && v.r.notes.length ? html`<ul class="caution qmc-notes" aria-label="QMC notes">${v.r.notes.map((n) => html`<li>${n}</li>`)}</ul>` : nothing}
       <div class="grid">
@@ -326,7 +328,7 @@ export class CorrelatedView extends LitElement {
       </div>
       <limits-note lattice=${this.model.params?.lattice ?? this.inputs.lattice} temperature=${isQmc ? job?.qmc?.temperature ?? 0 : 0}></limits-note>
       ${v && job ? html`<data-export class="correlated-export" .table=${v.kind === 'qmc' ? qmcTable(v.r) : correlatedTable(v)} .json=${v.r} name=${v.kind} .command=${this.command(job)}></data-export>
-        ${job.cluster.kind === 'array' ? html`<button @click=${() => downloadText('x,y\n' + s.sites.split(';').join('\n') + '\n', 'sites.csv', 'text/csv')}>Save sites.csv for the command</button>` : nothing}` : nothing}`;
+        ${job.cluster.kind === 'array' ? html`<button @click=${() => downloadText(pageCsvHeader('sites of the uploaded array, in lattice spacings') + 'x,y\n' + s.sites.split(';').join('\n') + '\n', 'sites.csv', 'text/csv')}>Save sites.csv for the command</button>` : nothing}` : nothing}`;
   }
 
   /** The optimisation trace; the first quarter of the steps (far above) is left out of the y range. */
@@ -393,7 +395,7 @@ export class CorrelatedView extends LitElement {
     return html`
       <figure-panel class="sk" .figure=${seriesFigure({
         id: 'sk', name: 'structure-factor', title: 'Connected structure factor S(k) = (\u27e8|n_k|\u00b2\u27e9 \u2212 |\u27e8n_k\u27e9|\u00b2)/N on the cluster momenta', width: w, height: 280,
-        series: [{ label: `S(k) connected, ${v.kind.toUpperCase()}`, x: order.map((i) => kx[i]), y: order.map((i) => sk[i].value), err: order.map((i) => sk[i].error), stroke: '#5a2ca0', points: true, noLine: !oneD }],
+        series: [{ label: `S(k) connected, ${v.kind.toUpperCase()}`, x: order.map((i) => kx[i]), y: order.map((i) => sk[i].value), err: order.map((i) => sk[i].error), stroke: '#5a2ca0', points: true, noLine: true }],
         x: { label: oneD ? 'k (1/a)' : '|k| (1/a)' }, y: { label: 'S(k) (per site)' },
       })}></figure-panel>
       <figure-panel class="cr" .figure=${seriesFigure({
