@@ -6,7 +6,7 @@
  * spectrum is computed about that state, never solving it again.
  *
  * It opens below the map: each newly opened point is scrolled into view (when its top is
- * not already on screen), and Escape closes it from anywhere on the page.
+ * not in the upper half of the window), and Escape closes it from anywhere on the page.
  */
 import { LitElement, html, css, nothing } from 'lit';
 import type { ModelParams } from '../../core/model.ts';
@@ -74,9 +74,12 @@ export class PointDetail extends LitElement {
   override updated() {
     if (this.label === this.shownLabel) return;
     this.shownLabel = this.label;
-    const r = this.getBoundingClientRect();
-    // its top below the lower fifth of the window (or above it): bring the header into view
-    if (r.top > innerHeight * 0.8 || r.top < 0) this.scrollIntoView({ block: 'start', behavior: 'smooth' });
+    // once laid out: a top in the lower half of the window (or above it) means most of the
+    // point is out of sight, so bring its header to the top
+    requestAnimationFrame(() => {
+      const r = this.getBoundingClientRect();
+      if (r.top > innerHeight * 0.5 || r.top < 0) this.scrollIntoView({ block: 'start', behavior: 'smooth' });
+    });
   }
 
   static override styles = [sharedStyles, termStyles, css`
