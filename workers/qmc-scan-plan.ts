@@ -7,11 +7,11 @@
  *
  * Axes: mu, temperature (T), detuning (delta: alpha self-consistent), alpha (fixed photon
  * amplitude), rb (V(Rb) = 2: vdw, dipolar) and v1 (the strength at r = a), each written
- * name=start:stop:count with evenly spaced values (src/core/scan/axes.ts).
+ * name=START..STOPxN (or the old name=start:stop:count) with evenly spaced values (src/core/scan/axes.ts).
  */
 import { InputError } from '../src/core/input-error.ts';
 import { lattice } from '../src/core/lattice/geometry.ts';
-import { parseRange, rangeValues } from '../src/core/scan/axes.ts';
+import { CLI_AXIS_FORM, parseRange, rangeValues } from '../src/core/scan/axes.ts';
 import { pointSeed } from '../src/core/scan/grid.ts';
 import type { QmcRequest } from '../src/core/qmc/quantum-monte-carlo.ts';
 import { MAX_TORUS_SITES } from '../src/core/qmc/torus.ts';
@@ -22,12 +22,12 @@ export const QMC_AXES: readonly QmcAxisName[] = ['mu', 'temperature', 'detuning'
 /** Most points one qmc-scan may hold (sizes x axis values). */
 export const MAX_QMC_SCAN_POINTS = 10_000;
 
-/** Parse `name=start:stop:count` with a QMC axis name. */
+/** Parse `name=START..STOPxN` with a QMC axis name. */
 export function parseQmcAxis(text: string): QmcScanRequest['axis'] {
   const eq = text.indexOf('=');
   const name = (eq < 0 ? '' : text.slice(0, eq).trim().toLowerCase()) as QmcAxisName;
   if (!QMC_AXES.includes(name)) {
-    throw new InputError(`--x must be name=start:stop:count with name one of ${QMC_AXES.join(', ')}, got '${text}'`, 'x');
+    throw new InputError(`--x must be ${CLI_AXIS_FORM} with name one of ${QMC_AXES.join(', ')}, got '${text}'`, 'x');
   }
   return { name, values: rangeValues(parseRange(text.slice(eq + 1), `--x ${name}`)) };
 }

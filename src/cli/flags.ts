@@ -42,6 +42,9 @@ export function parseArgs(argv: readonly string[], specs: readonly FlagSpec[], c
         rest.push(...argv.slice(i + 1));
         break;
       }
+      if (!positional && /^[x\u00d7]\d+$/i.test(arg)) {
+        throw new InputError(`unexpected argument '${arg}' for ${command}: a range is one argument, write it without the space (mu=-1..3.9x200) or quote it`);
+      }
       if (!positional) throw new InputError(`unexpected argument '${arg}' for ${command} (flags start with --; see ${command} --help)`);
       rest.push(arg);
       continue;

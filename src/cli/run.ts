@@ -10,6 +10,7 @@ import { InputError } from '../core/input-error.ts';
 import { commandHelp, PROGRAM, type Command } from './command.ts';
 import { COMMANDS } from './commands/index.ts';
 import { parseArgs, str } from './flags.ts';
+import { CLI_RANGE_FORM, rangeNote } from '../core/scan/axes.ts';
 import type { CliIo } from './io.ts';
 
 /** The top-level --help. */
@@ -45,6 +46,12 @@ export async function runCli(argv: readonly string[], io: CliIo, commands: reado
     if (args.flags.has('help')) {
       io.stdout(commandHelp(command));
       return 0;
+    }
+    // a range in the old start:stop:count form is read, with a note on stderr (axes.ts)
+    for (const f of command.flags) {
+      const value = f.value?.includes(CLI_RANGE_FORM) ? str(args, f.name) : undefined;
+      const note = value ? rangeNote(value) : null;
+      if (note) io.stderr(`atlas: note: --${f.name} ${note}\n`);
     }
     // A bad --out (or any other file a command writes) is refused now, not after the
     // computation that would fill it.

@@ -64,13 +64,13 @@ describe('jobs under control', () => {
     await waitForScan(page, 'done', 60_000);
     await page.locator('phase-atlas-view select[name="axis-x"]').selectOption('temperature');
     // T from 0 (not the mu range -1:2.9), the count kept
-    await expect.poll(() => page.locator('phase-atlas-view input[name="range-x"]').inputValue()).toBe('0:0.5:12');
+    await expect.poll(() => page.locator('phase-atlas-view input[name="range-x"]').inputValue()).toBe('0..0.5 x12');
     await waitForScan(page, 'done', 60_000);
     expect(await scanNumber(page, 'points')).toBe(12 * 6);
     expect(await page.locator('phase-atlas-view #ax-x-msg').textContent()).toBe('');
     // back to mu, then a detuning of 2 puts the mu axis (-1..1.9 by default, typed up to 2.9) past delta
     await page.locator('phase-atlas-view select[name="axis-x"]').selectOption('mu');
-    await expect.poll(() => page.locator('phase-atlas-view input[name="range-x"]').inputValue()).toBe('-1:2.9:12');
+    await expect.poll(() => page.locator('phase-atlas-view input[name="range-x"]').inputValue()).toBe('-1..2.9 x12');
     await waitForScan(page, 'done', 60_000);
     const started = await scanNumber(page, 'started');
     await page.locator('model-form input[name="detuning"]').fill('2');
@@ -98,7 +98,7 @@ describe('jobs under control', () => {
     await expect.poll(() => page.locator('phase-atlas-view #ax-y-msg').textContent()).toContain('the rb axis needs the vdw or dipolar interaction');
     expect(await worstDelay()).toBeLessThan(500);
     await page.locator('phase-atlas-view select[name="axis-y"]').selectOption('detuning');
-    await expect.poll(() => page.locator('phase-atlas-view input[name="range-y"]').inputValue()).toBe('3:8:6');
+    await expect.poll(() => page.locator('phase-atlas-view input[name="range-y"]').inputValue()).toBe('3..8 x6');
     await waitForScan(page, 'done', 60_000);
     // the ticked box now names the soft-core cut, and its lines are traced for the soft-core model
     expect(await page.locator('phase-atlas-view fieldset.lines label').filter({ has: page.locator('input[name="line-vdw:2"]') }).textContent())

@@ -51,7 +51,7 @@ describe('solve', () => {
 });
 
 describe('map', () => {
-  const mapArgs = ['map', '--x', 'mu=-1:2.5:9', '--y', 'rb=1:1.4:2', '--detuning', '3', '--max-cell', '6', '--workers', '2'];
+  const mapArgs = ['map', '--x', 'mu=-1..2.5x9', '--y', 'rb=1..1.4x2', '--detuning', '3', '--max-cell', '6', '--workers', '2'];
 
   it('writes CSV: a header naming every column, one row a point', async () => {
     const r = await cli(mapArgs);
@@ -121,13 +121,13 @@ describe('bad input: one line on stderr, exit code 2', () => {
     [['solve', ...MODEL, '--mu', '0', '--temperature', '-0.1'], /temperature must be >= 0/],
     [['solve', ...MODEL, '--mu', '3'], /mu = 3 must be below the detuning 3/],
     [['solve', '--rb', '1.3', '--detuning', '3', '--mu', '0', '--max-cell', '99'], /max-cell must be an integer 1\.\.32/],
-    [['map', ...MODEL.slice(2), '--x', 'mu=0:1:0', '--y', 'rb=1:2:2'], /empty range \(count 0\)/],
-    [['map', ...MODEL, '--x', 'mu=0:1:3', '--shard', '2of4'], /--shard must be k\/n/],
-    [['map', ...MODEL, '--x', 'mu=0:1:3', '--shard', '5/4'], /part 5 is outside 1\.\.4/],
-    [['map', ...MODEL, '--x', 'mu=0:4:3'], /mu = 4 must be below the detuning 3/],
-    [['map', ...MODEL, '--x', 'mu=0:1:3', '--y', 'density=0:1:3'], /both set the pump/],
+    [['map', ...MODEL.slice(2), '--x', 'mu=0..1x0', '--y', 'rb=1..2x2'], /empty range \(count 0\)/],
+    [['map', ...MODEL, '--x', 'mu=0..1x3', '--shard', '2of4'], /--shard must be k\/n/],
+    [['map', ...MODEL, '--x', 'mu=0..1x3', '--shard', '5/4'], /part 5 is outside 1\.\.4/],
+    [['map', ...MODEL, '--x', 'mu=0..4x3'], /mu = 4 must be below the detuning 3/],
+    [['map', ...MODEL, '--x', 'mu=0..1x3', '--y', 'density=0..1x3'], /both set the pump/],
     [['map', ...MODEL], /map needs --x/],
-    [['map', ...MODEL, '--mu', '0', '--x', 'mu=0:1:3'], /--mu conflicts with the mu axis/],
+    [['map', ...MODEL, '--mu', '0', '--x', 'mu=0..1x3'], /--mu conflicts with the mu axis/],
     [['merge'], /merge needs the shard files/],
     [['solver'], /unknown command 'solver'/],
     [[], /no command given/],

@@ -27,7 +27,7 @@ describe('CSV', () => {
 
   it('a failed map point is a row with empty state fields and its reason', () => {
     const plan = { base: { lattice: 'chain' as const, interaction: { shape: 'vdw' as const, Rb: 1.5 }, delta: 3, T: 0, maxCell: 4 },
-      x: parseAxis('mu=2:3:2', 'x'), seed: 1 };
+      x: parseAxis('mu=2..3x2', 'x'), seed: 1 };
     const text = mapCsv(mapHeader(plan), [{ index: 1, ix: 1, iy: 0, error: 'mu = 3 must be below the detuning, a, b' }]);
     const [head, row] = text.trimEnd().split('\n');
     const names = head.split(',');

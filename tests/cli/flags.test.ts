@@ -14,11 +14,11 @@ const specs: FlagSpec[] = [
 
 describe('parseArgs', () => {
   it('accepts --flag value and --flag=value, negative values and switches', () => {
-    const a = parseArgs(['--mu', '-0.5', '--max-cell=6', '--json', '--x', 'mu=-1:1:3'], specs, 'solve');
+    const a = parseArgs(['--mu', '-0.5', '--max-cell=6', '--json', '--x', 'mu=-1..1x3'], specs, 'solve');
     expect(num(a, 'mu')).toBe(-0.5);
     expect(int(a, 'max-cell')).toBe(6);
     expect(bool(a, 'json')).toBe(true);
-    expect(str(a, 'x')).toBe('mu=-1:1:3');
+    expect(str(a, 'x')).toBe('mu=-1..1x3');
     expect(parseArgs(['--mu=1e-3'], specs, 'solve').flags.get('mu')).toBe('1e-3');
     expect(bool(parseArgs(['-h'], specs, 'solve'), 'help')).toBe(true);
   });

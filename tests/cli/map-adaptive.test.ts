@@ -9,7 +9,7 @@ import { parseCsvLine } from '../../src/core/scan/csv.ts';
 import { cli } from './test-io.ts';
 
 /** 24 x 18 points of the 1D vdw map at Mmax 6: several crystals and exact lines between them. */
-const MAP = ['map', '--x', 'mu=-1:3.9:24', '--y', 'rb=1:2:18', '--detuning', '4', '--max-cell', '6', '--workers', '2'];
+const MAP = ['map', '--x', 'mu=-1..3.9x24', '--y', 'rb=1..2x18', '--detuning', '4', '--max-cell', '6', '--workers', '2'];
 const PIXELS = 24 * 18;
 
 interface Doc {
@@ -77,7 +77,7 @@ describe('map: adaptive by default, --dense, solves, boundaries', () => {
   }, 300_000);
 
   it('says why a map is not adaptive (T > 0, a shard), on stderr and in the JSON; refuses --boundaries there', async () => {
-    const line = ['map', '--x', 'mu=-1:3.9:12', '--rb', '1.5', '--detuning', '4', '--max-cell', '4', '--workers', '2'];
+    const line = ['map', '--x', 'mu=-1..3.9x12', '--rb', '1.5', '--detuning', '4', '--max-cell', '4', '--workers', '2'];
     const hot = await cli([...line, '--temperature', '0.1', '--json']);
     expect(hot.code).toBe(0);
     expect(hot.err).toMatch(/map: note: at T > 0/);

@@ -15,7 +15,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const MODEL = ['--rb', '1.3', '--detuning', '3'];
 /** 80000 points: minutes of work, so every run below is stopped long before the end. */
-const BIG_MAP = ['map', '--x', 'mu=-1:2.5:400', '--y', 'rb=1:1.6:200', '--detuning', '3', '--workers', '2'];
+const BIG_MAP = ['map', '--x', 'mu=-1..2.5x400', '--y', 'rb=1..1.6x200', '--detuning', '3', '--workers', '2'];
 let tmp = '';
 
 interface Run { code: number | null; out: string; err: string }
@@ -100,7 +100,7 @@ describe('atlas as a process (the built CLI)', () => {
     execFileSync('mkdir', ['-p', alone]);
     for (const f of ['atlas.mjs', 'engine-worker-node.mjs']) copyFileSync(join(root, 'dist', 'cli', f), join(alone, f));
     // 40 points are 3 segments of at most 16: two workers both start
-    const r = await atlas(['map', ...MODEL, '--x', 'mu=-1:0.5:40', '--workers', '2', '--max-cell', '4'], { dir: alone, cwd: alone });
+    const r = await atlas(['map', ...MODEL, '--x', 'mu=-1..0.5x40', '--workers', '2', '--max-cell', '4'], { dir: alone, cwd: alone });
     expect(r.err).toMatch(/map: 40 of 40 points .* on 2 workers/);
     expect(r.code).toBe(0);
     const rows = r.out.trimEnd().split('\n');
@@ -136,7 +136,7 @@ describe('atlas as a process (the built CLI)', () => {
 
   it('a closed output pipe ends the process quietly with 141 (128 + SIGPIPE), no stack trace', async () => {
     // ~2000 rows of ~90 bytes: far more than a pipe holds, so writing meets the closed end
-    const r = await atlas(['map', ...MODEL, '--x', 'mu=-1:2.5:2000', '--cell', '1', '--workers', '2'], {
+    const r = await atlas(['map', ...MODEL, '--x', 'mu=-1..2.5x2000', '--cell', '1', '--workers', '2'], {
       onOut: (_out, child) => child.stdout?.destroy(),
     });
     expect(r.code).toBe(141);

@@ -91,7 +91,7 @@ describe('qmc against exact diagonalisation', () => {
 });
 
 describe('qmc-scan', () => {
-  const SCAN = ['qmc-scan', '--x', 'alpha=0.2:0.6:3', '--sizes', '4,6', '--interaction', 'nn', '--v1', '1', '--mu', '1', '--temperature', '0.5', '--sweeps', '200', '--bins', '8', '--workers', '2'];
+  const SCAN = ['qmc-scan', '--x', 'alpha=0.2..0.6x3', '--sizes', '4,6', '--interaction', 'nn', '--v1', '1', '--mu', '1', '--temperature', '0.5', '--sweeps', '200', '--bins', '8', '--workers', '2'];
 
   it('CSV: one row per size and axis value, every observable with its error; crossings on stderr', async () => {
     const r = await cli(SCAN);

@@ -15,7 +15,7 @@ import { cli } from './test-io.ts';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 /** 1800 points at --max-cell 4: a few seconds on two workers, long enough to stop midway. */
-const MAP = ['map', '--x', 'mu=-1:2:60', '--y', 'rb=1:1.5:30', '--detuning', '3', '--max-cell', '4', '--workers', '2'];
+const MAP = ['map', '--x', 'mu=-1..2x60', '--y', 'rb=1..1.5x30', '--detuning', '3', '--max-cell', '4', '--workers', '2'];
 const POINTS = 60 * 30;
 let tmp = '';
 
@@ -111,7 +111,7 @@ describe('a map stopped midway and resumed is the uninterrupted run, byte for by
 
   it('a part of another scan is refused, naming the line, and left as it was', async () => {
     writeFileSync(file('other.csv'), whole.split('\n').slice(0, 40).join('\n') + '\n');
-    const r = await atlas([...MAP.map((a) => (a === 'mu=-1:2:60' ? 'mu=-1:2.5:60' : a)), '--out', 'other.csv', '--resume']);
+    const r = await atlas([...MAP.map((a) => (a === 'mu=-1..2x60' ? 'mu=-1..2.5x60' : a)), '--out', 'other.csv', '--resume']);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/other\.csv line 3 does not continue this scan \(axis values/);
     expect(lines('other.csv')).toBe(40);
@@ -142,7 +142,7 @@ describe('a shard stopped by SIGKILL and resumed, in CSV and JSON', () => {
 });
 
 describe('merge checks every value of every part', () => {
-  const small = ['map', '--x', 'mu=-1:2:20', '--y', 'rb=1:1.5:3', '--detuning', '3', '--max-cell', '3', '--workers', '2'];
+  const small = ['map', '--x', 'mu=-1..2x20', '--y', 'rb=1..1.5x3', '--detuning', '3', '--max-cell', '3', '--workers', '2'];
   let parts = new Map<string, string>();
   beforeAll(async () => {
     for (const k of [1, 2]) {

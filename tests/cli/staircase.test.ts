@@ -15,7 +15,7 @@ import { cli } from './test-io.ts';
 import { SOURCES } from '../references.ts';
 
 const delta = 50;
-const args = ['staircase', '--mu=-0.5:3:36', '--interaction', 'nn', '--v1', '1', '--detuning', String(delta), '--max-cell', '4'];
+const args = ['staircase', '--mu=-0.5..3x36', '--interaction', 'nn', '--v1', '1', '--detuning', String(delta), '--max-cell', '4'];
 
 describe('staircase', () => {
   let doc: any, code = -1;
@@ -68,12 +68,12 @@ describe('staircase', () => {
   });
 
   it('refuses --density and a missing range', async () => {
-    const a = await cli(['staircase', '--rb', '1', '--detuning', '3', '--density', '0.3', '--mu=0:1:3']);
+    const a = await cli(['staircase', '--rb', '1', '--detuning', '3', '--density', '0.3', '--mu=0..1x3']);
     expect(a.code).toBe(2);
     expect(a.err).toMatch(/unknown flag --density for staircase/);
     const b = await cli(['staircase', '--rb', '1', '--detuning', '3']);
-    expect(b.err).toMatch(/staircase needs --mu=start:stop:count/);
-    const c = await cli(['staircase', '--rb', '1', '--detuning', '3', '--mu=0:1:0']);
+    expect(b.err).toMatch(/staircase needs --mu=START\.\.STOPxN/);
+    const c = await cli(['staircase', '--rb', '1', '--detuning', '3', '--mu=0..1x0']);
     expect(c.err.trim()).toBe('atlas: --mu is an empty range (count 0)');
   });
 });

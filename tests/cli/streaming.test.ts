@@ -39,7 +39,7 @@ describe('the reorder buffer', () => {
   });
 });
 
-const SOFT = ['softlines', '--x', 'mu=-1:0.9:5', '--y', 'rb=0.8:1.5:5', '--detuning', '1', '--ranges', 'nn,vdw:2', '--phases', 'condensate,normal', '--workers', '2'];
+const SOFT = ['softlines', '--x', 'mu=-1..0.9x5', '--y', 'rb=0.8..1.5x5', '--detuning', '1', '--ranges', 'nn,vdw:2', '--phases', 'condensate,normal', '--workers', '2'];
 
 describe('softlines streams its lines in task order', () => {
   it('CSV: the bytes of the whole-output writer for the same tasks; JSON: the same results', async () => {
@@ -63,7 +63,7 @@ describe('softlines streams its lines in task order', () => {
   }, 120_000);
 });
 
-const QMC = ['qmc-scan', '--x', 'alpha=0.2:0.6:3', '--sizes', '4,6', '--interaction', 'nn', '--v1', '1', '--mu', '1', '--temperature', '0.5', '--sweeps', '200', '--bins', '8', '--workers', '2'];
+const QMC = ['qmc-scan', '--x', 'alpha=0.2..0.6x3', '--sizes', '4,6', '--interaction', 'nn', '--v1', '1', '--mu', '1', '--temperature', '0.5', '--sweeps', '200', '--bins', '8', '--workers', '2'];
 const qmcReq = (shard?: { k: number; n: number }) => ({
   base: {
     cluster: { kind: 'periodic' as const, lattice: 'chain' as const, size: [2], interaction: { shape: 'nn' as const, V1: 1 } }, mu: 1, alpha: undefined as number | undefined,
@@ -105,7 +105,7 @@ describe('qmc-scan streams its runs in index order and resumes', () => {
   }, 120_000);
 });
 
-const STAIR = ['staircase', '--mu=-0.5:3:36', '--interaction', 'nn', '--v1', '1', '--detuning', '50', '--max-cell', '4', '--workers', '2'];
+const STAIR = ['staircase', '--mu=-0.5..3x36', '--interaction', 'nn', '--v1', '1', '--detuning', '50', '--max-cell', '4', '--workers', '2'];
 
 describe('staircase streams its points, plateaus at the end', () => {
   it('JSON: one point a line in mu order, then the plateaus of the scan run directly; text: the table', async () => {
@@ -128,7 +128,7 @@ describe('staircase streams its points, plateaus at the end', () => {
 describe('backpressure: a stdout that does not drain pauses the map', () => {
   it('one window (16 segments) is written, no more, until stdout drains; then the whole map', async () => {
     // 100 x 20 at T > 0 (a dense map): rows of 7 segments (15, 15, 14, 14, 14, 14, 14 points)
-    const MAP = ['map', '--x', 'mu=-1:2:100', '--y', 'rb=1:1.5:20', '--detuning', '3', '--temperature', '0.05', '--max-cell', '2', '--workers', '2'];
+    const MAP = ['map', '--x', 'mu=-1..2x100', '--y', 'rb=1..1.5x20', '--detuning', '3', '--temperature', '0.05', '--max-cell', '2', '--workers', '2'];
     const free = await cli(MAP);
     expect(free.code).toBe(0);
     let out = '', calls = 0, release = () => undefined as void;

@@ -5,7 +5,7 @@
  * joins them. Ctrl-C writes the finished points and exits 130.
  */
 import { InputError } from '../../core/input-error.ts';
-import { parseAxis, type AxisName } from '../../core/scan/axes.ts';
+import { CLI_AXIS_FORM, parseAxis, type AxisName } from '../../core/scan/axes.ts';
 import { checkAxes, gridShape, type ScanPlan } from '../../core/scan/grid.ts';
 import { parseShard, scanFingerprint } from '../../core/scan/shards.ts';
 import { HELP_FLAG, type Command } from '../command.ts';
@@ -21,8 +21,8 @@ import { mapMode } from '../map-adaptive.ts';
 const AXIS_HELP = 'rb, v1, mu, density, detuning or temperature';
 
 const MAP_FLAGS: readonly FlagSpec[] = [
-  { name: 'x', kind: 'string', value: 'name=start:stop:count', help: `first axis (${AXIS_HELP}); continuation runs along it` },
-  { name: 'y', kind: 'string', value: 'name=start:stop:count', help: 'second axis (optional: one row)' },
+  { name: 'x', kind: 'string', value: CLI_AXIS_FORM, help: `first axis (${AXIS_HELP}): N points from START to STOP, both ends included (mu=-1..3.9x200; the old start:stop:count is still read, with a note); continuation runs along it` },
+  { name: 'y', kind: 'string', value: CLI_AXIS_FORM, help: 'second axis (optional: one row)' },
   { name: 'shard', kind: 'string', value: 'k/n', help: 'compute only the k-th of n interleaved parts (join them with merge); a shard is solved densely' },
   { name: 'dense', kind: 'bool', help: 'solve every pixel (the check of the adaptive map: same pixels, more solves, no boundary lines)' },
   { name: 'boundaries', kind: 'string', value: 'file', help: 'write the boundary lines as CSV (one row a vertex: line, vertex, phase_a, phase_b, firstOrder, densityJump, axis values)', writes: true },
@@ -36,7 +36,7 @@ export const MAX_MAP_POINTS = 4_000_000;
 export const mapCommand: Command = {
   name: 'map',
   summary: 'phases over a grid of one or two parameters (CSV or JSON), shardable',
-  usage: 'map --x name=start:stop:count [--y name=start:stop:count] [model flags] [--shard k/n] [--out file]',
+  usage: 'map --x name=START..STOPxN [--y name=START..STOPxN] [model flags] [--shard k/n] [--out file]',
   description:
     'Solves the mean-field ground state at every point of a grid over one or two parameters\n' +
     `(${AXIS_HELP}; evenly spaced, start and stop included)\n` +
@@ -56,15 +56,15 @@ export const mapCommand: Command = {
     'lines {phases, points, firstOrder, densityJump}; --boundaries file writes the lines as CSV.',
   flags: [...MAP_FLAGS, ...MODEL_FLAGS, ...SCAN_FLAGS, ...OUTPUT_FLAGS, HELP_FLAG],
   examples: [
-    'map --x mu=-1:2.5:200 --y rb=1:2:100 --detuning 3 --out map.csv',
-    'map --x mu=-1:3.9:200 --y rb=1:2.5:200 --detuning 4 --json --boundaries lines.csv --out map.json',
-    'map --x mu=-1:2.5:200 --y temperature=0:0.5:50 --interaction nn --v1 2 --detuning 3 --json',
-    'map --x mu=-1:2.5:400 --y rb=1:2:400 --detuning 3 --shard 3/16 --out part-3.csv',
-    'map --x mu=-1:2.5:400 --y rb=1:2:400 --detuning 3 --shard 3/16 --out part-3.csv --resume',
+    'map --x mu=-1..2.5x200 --y rb=1..2x100 --detuning 3 --out map.csv',
+    'map --x mu=-1..3.9x200 --y rb=1..2.5x200 --detuning 4 --json --boundaries lines.csv --out map.json',
+    'map --x mu=-1..2.5x200 --y temperature=0..0.5x50 --interaction nn --v1 2 --detuning 3 --json',
+    'map --x mu=-1..2.5x400 --y rb=1..2x400 --detuning 3 --shard 3/16 --out part-3.csv',
+    'map --x mu=-1..2.5x400 --y rb=1..2x400 --detuning 3 --shard 3/16 --out part-3.csv --resume',
   ],
   async run(args, io) {
     const xs = str(args, 'x');
-    if (!xs) throw new InputError('map needs --x name=start:stop:count', 'x');
+    if (!xs) throw new InputError('map needs --x name=START..STOPxN', 'x');
     const x = parseAxis(xs, 'x');
     const ys = str(args, 'y');
     const y = ys ? parseAxis(ys, 'y') : undefined;

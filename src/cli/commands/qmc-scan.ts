@@ -9,7 +9,7 @@
 import { InputError } from '../../core/input-error.ts';
 import { LATTICE_NAMES, type LatticeName } from '../../core/lattice/geometry.ts';
 import { parseShard } from '../../core/scan/shards.ts';
-import type { AxisName } from '../../core/scan/axes.ts';
+import { CLI_AXIS_FORM, type AxisName } from '../../core/scan/axes.ts';
 import { parseQmcAxis, parseSizes, qmcScanTasks } from '../../../workers/qmc-scan-plan.ts';
 import type { QmcScanRequest } from '../../../workers/protocol.ts';
 import { HELP_FLAG, type Command } from '../command.ts';
@@ -21,7 +21,7 @@ import { streamQmcScan } from '../qmc-scan-stream.ts';
 import { OUT_FLAG, RESUME_FLAG, streamOutput } from './output.ts';
 
 const SCAN_FLAGS: readonly FlagSpec[] = [
-  { name: 'x', kind: 'string', value: 'name=start:stop:count', help: 'the axis: mu, temperature, detuning, alpha, rb or v1' },
+  { name: 'x', kind: 'string', value: CLI_AXIS_FORM, help: 'the axis: mu, temperature, detuning, alpha, rb or v1' },
   { name: 'sizes', kind: 'string', value: 'L1,L2,...', help: 'cluster sizes: rings of L sites, or L x L tori on square and triangular lattices' },
   { name: 'shard', kind: 'string', value: 'k/n', help: 'only the points with index mod n = k - 1 (a job array\'s part k of n)' },
   { name: 'json', kind: 'bool', help: 'print JSON (points and crossings) instead of CSV' },
@@ -35,7 +35,7 @@ const AXIS_FLAG: Record<string, string> = { mu: 'mu', temperature: 'temperature'
 export const qmcScanCommand: Command = {
   name: 'qmc-scan',
   summary: 'QMC line scan over several cluster sizes with Binder crossings (CSV or JSON), shardable',
-  usage: 'qmc-scan --x name=start:stop:count --sizes L1,L2,... --mu mu (--alpha a | --detuning delta) (--temperature T | --ground) [flags]',
+  usage: 'qmc-scan --x name=START..STOPxN --sizes L1,L2,... --mu mu (--alpha a | --detuning delta) (--temperature T | --ground) [flags]',
   description:
     'One quantum Monte Carlo run (as qmc) for each cluster size and each axis value, all independent and run\n' +
     'at once on the worker threads (--chains chains each, default 1). Prints CSV, one row a run: index, size,\n' +
@@ -46,13 +46,13 @@ export const qmcScanCommand: Command = {
     'concatenate the parts\' rows (see the README). Ctrl-C writes the finished runs.',
   flags: [...SCAN_FLAGS, ...CLUSTER_FLAGS.filter((f) => !['size', 'sites', 'spacing'].includes(f.name)), ...QMC_FLAGS.filter((f) => f.name !== 'order'), HELP_FLAG],
   examples: [
-    'qmc-scan --x alpha=0.1:0.4:7 --sizes 8,16,32 --interaction nn --v1 1 --mu 1 --temperature 0.05',
-    'qmc-scan --x temperature=0.2:0.4:9 --sizes 8,16 --lattice square --interaction nn --v1 1 --mu 2 --alpha 0 --json',
-    'qmc-scan --x mu=0:2:21 --sizes 16,32,64 --rb 1.5 --detuning 3 --ground --shard 2/8 --out part-2.csv',
+    'qmc-scan --x alpha=0.1..0.4x7 --sizes 8,16,32 --interaction nn --v1 1 --mu 1 --temperature 0.05',
+    'qmc-scan --x temperature=0.2..0.4x9 --sizes 8,16 --lattice square --interaction nn --v1 1 --mu 2 --alpha 0 --json',
+    'qmc-scan --x mu=0..2x21 --sizes 16,32,64 --rb 1.5 --detuning 3 --ground --shard 2/8 --out part-2.csv',
   ],
   async run(args, io) {
     const xs = str(args, 'x'), ss = str(args, 'sizes');
-    if (!xs) throw new InputError('qmc-scan needs --x name=start:stop:count', 'x');
+    if (!xs) throw new InputError('qmc-scan needs --x name=START..STOPxN', 'x');
     if (!ss) throw new InputError('qmc-scan needs --sizes L1,L2,... (cluster sizes)', 'sizes');
     const axis = parseQmcAxis(xs);
     if (has(args, AXIS_FLAG[axis.name])) throw new InputError(`--${AXIS_FLAG[axis.name]} is set by the axis --x ${axis.name}: leave it out`, AXIS_FLAG[axis.name]);

@@ -6,7 +6,7 @@
  * in task order (softlines-stream.ts).
  */
 import { InputError } from '../../core/input-error.ts';
-import { parseAxis } from '../../core/scan/axes.ts';
+import { CLI_AXIS_FORM, parseAxis } from '../../core/scan/axes.ts';
 import { checkPlane, planePoint, type PlaneAxis, type PlaneAxisName } from '../../core/softmode/plane.ts';
 import type { FollowedPhase } from '../../core/softmode/own-solution.ts';
 import type { SoftLineRequest } from '../../core/softmode/soft-lines.ts';
@@ -23,8 +23,8 @@ export { softlinesCsv } from '../softlines-stream.ts';
 export const DEFAULT_RANGES = 'nn,vdw:1,vdw:2,vdw:3,vdw:inf,dipolar';
 
 const FLAGS: readonly FlagSpec[] = [
-  { name: 'x', kind: 'string', value: 'name=start:stop:count', help: 'first axis: mu, detuning, temperature, rb or v1; count = seed-grid nodes' },
-  { name: 'y', kind: 'string', value: 'name=start:stop:count', help: 'second axis (as --x)' },
+  { name: 'x', kind: 'string', value: CLI_AXIS_FORM, help: 'first axis: mu, detuning, temperature, rb or v1; N = seed-grid nodes' },
+  { name: 'y', kind: 'string', value: CLI_AXIS_FORM, help: 'second axis (as --x)' },
   { name: 'ranges', kind: 'string', value: 'list', def: DEFAULT_RANGES, help: 'interactions to compare: nn, vdw[:rmax], dipolar[:rmax], softcore[:rmax]; rmax a number or inf' },
   { name: 'phases', kind: 'string', value: 'list', def: 'condensate,normal', help: 'phases followed: condensate (uniform), normal (uniform, no photon), crystal:1,0,... (1D pattern)' },
   { name: 'tol', kind: 'number', value: 'tol', def: '1e-3', help: 'accuracy of the lines as a fraction of each axis span' },
@@ -34,7 +34,7 @@ const FLAGS: readonly FlagSpec[] = [
 export const softlinesCommand: Command = {
   name: 'softlines',
   summary: 'soft-mode lines over a plane of two parameters, several interaction ranges at once',
-  usage: 'softlines --x name=start:stop:count --y name=start:stop:count [--ranges list] [--phases list] [model flags]',
+  usage: 'softlines --x name=START..STOPxN --y name=START..STOPxN [--ranges list] [--phases list] [model flags]',
   description:
     'For each interaction range and followed phase, the lines in the (x, y) plane where that\n' +
     "phase's own mean-field solution first becomes unstable: the uniform condensate going soft\n" +
@@ -47,8 +47,8 @@ export const softlinesCommand: Command = {
     'written as soon as it and those before it are traced.',
   flags: [...FLAGS, ...MODEL_FLAGS, ...SCAN_FLAGS.filter((f) => f.name !== 'cold'), ...OUTPUT_FLAGS, HELP_FLAG],
   examples: [
-    'softlines --x mu=-1:0.9:9 --y rb=0.8:1.5:9 --detuning 1 --ranges nn,vdw:2,vdw:inf,dipolar --phases condensate',
-    'softlines --x mu=-1.5:0.5:9 --y temperature=0:1:9 --rb 1 --detuning 1 --phases normal --json',
+    'softlines --x mu=-1..0.9x9 --y rb=0.8..1.5x9 --detuning 1 --ranges nn,vdw:2,vdw:inf,dipolar --phases condensate',
+    'softlines --x mu=-1.5..0.5x9 --y temperature=0..1x9 --rb 1 --detuning 1 --phases normal --json',
   ],
   async run(args, io) {
     const [x, y] = (['x', 'y'] as const).map((k) => planeAxis(args, k));
@@ -73,7 +73,7 @@ export const softlinesCommand: Command = {
 
 function planeAxis(args: ParsedArgs, flag: 'x' | 'y'): PlaneAxis {
   const s = str(args, flag);
-  if (!s) throw new InputError(`softlines needs --${flag} name=start:stop:count`, flag);
+  if (!s) throw new InputError(`softlines needs --${flag} name=START..STOPxN`, flag);
   const a = parseAxis(s, flag);
   return { name: a.name as PlaneAxisName, start: a.start, stop: a.stop, count: a.count };
 }

@@ -5,7 +5,7 @@
  * the edges are then bisected to 1e-9 (one worker task a plateau) unless --grid-edges.
  */
 import { InputError } from '../../core/input-error.ts';
-import { parseRange, rangeValues } from '../../core/scan/axes.ts';
+import { CLI_RANGE_FORM, parseRange, rangeValues } from '../../core/scan/axes.ts';
 import type { ScanPlan } from '../../core/scan/grid.ts';
 import { EDGE_TOL } from '../../../workers/scans/staircase-scan.ts';
 import { HELP_FLAG, type Command } from '../command.ts';
@@ -18,7 +18,7 @@ import { OUT_FLAG, streamOutput } from './output.ts';
 
 const STAIRCASE_FLAGS: readonly FlagSpec[] = [
   ...MODEL_FLAGS.filter((f) => f.name !== 'mu' && f.name !== 'density'),
-  { name: 'mu', kind: 'string', value: 'start:stop:count', help: 'the chemical potentials scanned (required)' },
+  { name: 'mu', kind: 'string', value: CLI_RANGE_FORM, help: 'the chemical potentials scanned (required): N points from START to STOP, both ends included (-0.5..2.5x400; the old start:stop:count is still read, with a note)' },
   { name: 'grid-edges', kind: 'bool', help: 'report plateau edges at the grid points (skip the bisection)' },
   OUT_FLAG, ...SCAN_FLAGS, ...OUTPUT_FLAGS, HELP_FLAG,
 ];
@@ -26,7 +26,7 @@ const STAIRCASE_FLAGS: readonly FlagSpec[] = [
 export const staircaseCommand: Command = {
   name: 'staircase',
   summary: 'a mu scan and its density plateaus (fraction, muLow, muHigh, width)',
-  usage: 'staircase --mu=start:stop:count --detuning delta [--rb Rb | --v1 V1 ...] [flags]',
+  usage: 'staircase --mu=START..STOPxN --detuning delta [--rb Rb | --v1 V1 ...] [flags]',
   description:
     'Scans the chemical potential at fixed interaction, detuning and temperature and finds the\n' +
     'plateaus of the emitter filling: intervals where the state is incompressible (no condensate,\n' +
@@ -37,12 +37,12 @@ export const staircaseCommand: Command = {
     'point as { mu, error }), streamed one point a line in mu order as the scan finishes them.',
   flags: STAIRCASE_FLAGS,
   examples: [
-    'staircase --mu=-0.5:2.5:400 --rb 1.6 --detuning 20',
-    'staircase --mu=0:3:300 --interaction dipolar --rb 1.2 --detuning 10 --json',
+    'staircase --mu=-0.5..2.5x400 --rb 1.6 --detuning 20',
+    'staircase --mu=0..3x300 --interaction dipolar --rb 1.2 --detuning 10 --json',
   ],
   async run(args, io) {
     const muText = str(args, 'mu');
-    if (!muText) throw new InputError('staircase needs --mu=start:stop:count', 'mu');
+    if (!muText) throw new InputError('staircase needs --mu=START..STOPxN', 'mu');
     const range = parseRange(muText, '--mu');
     const rest: ParsedArgs = { ...args, flags: new Map([...args.flags].filter(([k]) => k !== 'mu')) };
     const base = modelFromArgs(rest, ['mu']);

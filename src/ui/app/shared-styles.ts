@@ -20,6 +20,7 @@ export const sharedStyles = css`
   input, select, textarea { background: var(--panel); border: 1px solid #7d8798; border-radius: 4px; padding: 3px 6px; }
   input[aria-invalid='true'] { border-color: var(--warn); background: var(--warn-bg); }
   .err { color: var(--warn); font-size: 12.5px; }
+  .range-note { font-size: 12.5px; max-width: 34em; }
   .muted { color: var(--muted); }
   .row { display: flex; gap: 8px; align-items: center; flex-wrap: wrap; }
   .note { border-left: 4px solid #b9893a; background: #fbf5e8; padding: 6px 10px; margin: 8px 0; font-size: 13px; }

@@ -9,7 +9,7 @@
 import { InputError } from '../../core/input-error.ts';
 import { validateModel, type ModelParams } from '../../core/model.ts';
 import { gridPoint } from '../../core/scan/grid.ts';
-import type { Axis, AxisName } from '../../core/scan/axes.ts';
+import { type Axis, type AxisName, formatRange } from '../../core/scan/axes.ts';
 import { parseEntryNumber } from '../../core/scan/model-entries.ts';
 import type { ModelInputs } from '../state/app-state.ts';
 
@@ -59,7 +59,7 @@ const r4 = (v: number) => Number(v.toPrecision(4));
 /**
  * A range that makes sense for an axis just chosen: inside the model's domain for the
  * other entries (mu below the detuning, the detuning above mu, T and rho from 0), with the
- * count the axis had. `other` is the other axis (its values bound mu or delta too).
+ * count the axis had, written `start..stop xN`. `other` is the other axis (its values bound mu or delta too).
  */
 export function defaultRange(name: AxisName, m: ModelInputs, count: number, other: Axis | null): string {
   const delta = other?.name === 'detuning' ? Math.min(other.start, other.stop) : parseEntryNumber(m.detuning);
@@ -81,5 +81,5 @@ export function defaultRange(name: AxisName, m: ModelInputs, count: number, othe
     case 'rb': lo = 0.8; hi = 2.4; break;
     case 'v1': lo = 0; hi = 4; break;
   }
-  return `${r4(lo)}:${r4(hi)}:${count}`;
+  return formatRange({ start: r4(lo), stop: r4(hi), count }, true);
 }

@@ -7,6 +7,7 @@
  * (parseQmcAxis), so page and command agree value for value.
  */
 import { InputError } from '../../core/input-error.ts';
+import { formatRange } from '../../core/scan/axes.ts';
 import type { QmcScanRequest } from '../../../workers/protocol.ts';
 import { applyQmcAxis, parseQmcAxis, parseSizes } from '../../../workers/qmc-scan-plan.ts';
 import type { ModelInputs } from '../state/app-state.ts';
@@ -33,7 +34,7 @@ function qmcTemperature(line: CheckLine, e: CheckEntries): number | null {
 
 /** `line` axis text for parseQmcAxis / the CLI's --x. */
 export function axisText(line: CheckLine, count: number): string {
-  return `${line.qmcName}=${line.start}:${line.stop}:${count}`;
+  return `${line.qmcName}=${formatRange({ start: line.start, stop: line.stop, count })}`;
 }
 
 /** The scan request; InputError names the entry at fault. */

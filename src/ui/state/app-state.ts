@@ -63,10 +63,10 @@ export function demoState(): AppState {
       range: '', detuning: '3', pump: 'mu', mu: '1', density: '0.3', temperature: '0', 'max-cell': '12',
     },
     atlas: {
-      x: 'mu=-1:2.9:64', y: 'rb=0.8:2.4:40', lines: 'vdw:inf', shade: 'phase', point: '', crange: '', clog: '',
+      x: 'mu=-1..2.9 x64', y: 'rb=0.8..2.4 x40', lines: 'vdw:inf', shade: 'phase', point: '', crange: '', clog: '',
       check: '', sizes: '8,12,16', cpoints: '9', csweeps: '200', ctemp: '0.05', cground: '',
     },
-    staircase: { mu: '-1:2.9:400', compare: '1' },
+    staircase: { mu: '-1..2.9 x400', compare: '1' },
     modes: { points: '96', cell: '' },
     correlated: {
       method: 'ed', cluster: 'periodic', size: '12', alpha: '', seed: '7', steps: '60', samples: '4000', sites: '',

@@ -8,7 +8,7 @@ import { HostWidthController } from '../controllers/host-width.ts';
 import { LitElement, html, css, nothing } from 'lit';
 import { scanBase, type ParsedModel } from '../model/model-inputs.ts';
 import type { AppState, ModelInputs } from '../state/app-state.ts';
-import { AXIS_NAMES, type AxisName, parseAxis, type Axis } from '../../core/scan/axes.ts';
+import { AXIS_NAMES, type AxisName, parseAxis, parseRange, rangeNote, type Axis } from '../../core/scan/axes.ts';
 import { checkAxes } from '../../core/scan/grid.ts';
 import { defaultRange, planProblem, type AxisProblem } from '../model/axis-ranges.ts';
 import { phaseWords } from '../model/phase-words.ts';
@@ -241,17 +241,19 @@ export class PhaseAtlasView extends LitElement {
         <select id="ax-${which}-name" name="axis-${which}" @change=${(e: Event) => this.chooseAxis(which, (e.target as HTMLSelectElement).value as AxisName, range)}>
           ${AXIS_NAMES.map((n) => html`<option value=${n} ?selected=${n === name}>${AXIS_LABELS[n]}</option>`)}
         </select>
-        <input id="ax-${which}-range" name="range-${which}" aria-label="${which} range start:stop:count" .value=${range}
-          aria-invalid=${err ? 'true' : 'false'} aria-describedby="ax-${which}-msg"
+        <input id="ax-${which}-range" name="range-${which}" aria-label="${which} range start..stop xN (N points, both ends included)" .value=${range}
+          aria-invalid=${err ? 'true' : 'false'} aria-describedby="ax-${which}-msg ax-${which}-note"
           @input=${(e: Event) => this.patch({ [which]: `${name}=${(e.target as HTMLInputElement).value}` })}>
       </div>
       <div class="err" id="ax-${which}-msg" role=${err ? 'alert' : nothing}>${err ?? ''}</div>
+      <div class="muted range-note" id="ax-${which}-note">${err ? '' : rangeNote(range, true) ?? ''}</div>
     </div>`;
   }
 
   /** A new parameter on an axis gets a range of its own, inside the model's domain. */
   private chooseAxis(which: 'x' | 'y', name: AxisName, range: string) {
-    const count = Number(range.split(':')[2]) || (which === 'x' ? 64 : 40);
+    let count = which === 'x' ? 64 : 40;
+    try { count = parseRange(range, which).count; } catch { /* a fresh count */ }
     const otherText = this.section[which === 'x' ? 'y' : 'x'];
     let other: Axis | null = null;
     try { other = parseAxis(otherText, which === 'x' ? 'y' : 'x'); } catch { /* its own error shows */ }

@@ -67,7 +67,7 @@ describe('the scan request', () => {
     const w = splitShell(checkCommand(inputs, l, checkRequest(inputs, l, { ...e, cground: '1' })));
     const flag = (f: string) => w[w.indexOf(f) + 1];
     expect(w.slice(0, 6)).toEqual(['npm', 'run', '-s', 'atlas', '--', 'qmc-scan']);
-    expect(flag('--x')).toBe('mu=0.5:1.7:5');
+    expect(flag('--x')).toBe('mu=0.5..1.7x5');
     expect(flag('--sizes')).toBe('8,12');
     expect(flag('--rb')).toBe('1.25');
     expect(flag('--detuning')).toBe('3');

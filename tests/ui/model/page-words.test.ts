@@ -13,7 +13,7 @@ describe('inPageWords', () => {
     expect(msg.startsWith('--x')).toBe(true); // the CLI's words, from the core
     const page = inPageWords(msg);
     expect(page).not.toMatch(/--[a-z]/);
-    expect(page.startsWith('the horizontal axis must be name=start:stop:count')).toBe(true);
+    expect(page.startsWith('the horizontal axis must be name=start..stop xN')).toBe(true);
     expect(inPageWords('the softcore range needs --v0 and --rc')).toBe('the soft core range needs the plateau height V0 and the core radius Rc');
     expect(inPageWords('the rb axis needs the vdw or dipolar interaction, not softcore'))
       .toBe('the blockade-radius (Rb) axis needs the van der Waals or dipolar interaction, not soft core');
