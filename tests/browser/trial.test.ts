@@ -52,6 +52,12 @@ describe('planner: collective splitting and losses (items 13, 14)', () => {
     const verdict = page.locator('array-planner-view .verdict');
     await expect.poll(async () => (await verdict.textContent()) ?? '', { timeout: 30_000 }).toMatch(/from the nearest phase boundary/);
     const before = await text('array-planner-view .verdict');
+    // the regime counts neighbours: on the chain, the sites 0 < |n| < Rb/a, 2 floor(Rb/a) of them;
+    // demo Rb = (C6 / 2g)^(1/6) with C6 = 140 GHz um^6, g = 0.5 sqrt(200) MHz, a = 4 um: Rb/a = 1.159
+    const rbA = Math.pow(140e3 / (2 * 0.5 * Math.sqrt(200)), 1 / 6) / 4;
+    expect(await num('array-planner-view .blockaded')).toBe(2 * Math.floor(rbA));
+    expect(await text('array-planner-view .regime')).toContain('neighbours inside one blockade disc');
+    expect(await text('array-planner-view label[for="lab-mu"]')).toContain('measured from the emitter line');
     const g = await num('array-planner-view .g-mhz');
     await page.locator('array-planner-view select[name="lab-coupling"]').selectOption('collective');
     // collective coupling g = g0 sqrt(N) (Tavis and Cummings, Phys. Rev. 170, 379 (1968)): demo g0 = 0.5 MHz, N = 200

@@ -38,8 +38,8 @@ const LAB_FIELDS: FieldSpec[] = [
   { key: 'emitters', label: 'Emitters N coupled to the mode', unit: '' },
   { key: 'splitting', label: 'Collective splitting 2g / 2\u03c0', unit: 'MHz' },
   { key: 'detuning', label: 'Detuning \u0394 / 2\u03c0 (cavity \u2212 emitter)', unit: 'MHz' },
-  { key: 'mu', label: 'Pump: chemical potential \u03bc / h from the line', unit: 'MHz' },
-  { key: 'temperature', label: 'Temperature of the excitations', unit: '' },
+  { key: 'mu', label: 'Pump: chemical potential \u03bc / h, measured from the emitter line (the bare emitter transition)', unit: 'MHz' },
+  { key: 'temperature', label: 'Temperature of the excitations (their quasi-equilibrium, not the atoms\u2019 motion or the cryostat)', unit: '' },
 ];
 
 /** Standard uncertainties (one sigma) of the entries the tolerance box is made of. */
@@ -271,11 +271,12 @@ export class ArrayPlannerView extends LitElement {
             <tr><th class="l">Rb / a</th><td class="rb-a">${fmt(model.rbOverA)}</td><td class="l"></td></tr>
             <tr><th class="l">V(a) = V1 = 2 (Rb/a)\u2076</th><td>${fmt(model.V1)}</td><td class="l">g</td></tr>
             <tr><th class="l">detuning \u03b4</th><td>${fmt(model.delta)}</td><td class="l">g</td></tr>
-            <tr><th class="l">chemical potential \u03bc</th><td>${fmt(model.mu)}</td><td class="l">g</td></tr>
-            <tr><th class="l">temperature T</th><td>${fmt(model.T)}</td><td class="l">g</td></tr>
+            <tr><th class="l">chemical potential \u03bc, from the emitter line</th><td>${fmt(model.mu)}</td><td class="l">g</td></tr>
+            <tr><th class="l">temperature T of the excitations</th><td>${fmt(model.T)}</td><td class="l">g</td></tr>
           </tbody></table>
-          <p>Regime on the ${lat}: ${sitesInsideBlockade(lat, model.rbOverA)} sites inside one blockade disc
-            (${shellsInsideBlockade(lat, model.rbOverA).length} neighbour shell${shellsInsideBlockade(lat, model.rbOverA).length === 1 ? '' : 's'} with V &gt; 2g).
+          <p class="regime">Regime on the ${lat}: <span class="blockaded">${sitesInsideBlockade(lat, model.rbOverA)}</span> neighbours inside one blockade disc
+            (the sites closer than Rb to an excited emitter, itself not counted: each costs V &gt; 2g to excite beside it;
+            ${shellsInsideBlockade(lat, model.rbOverA).length} neighbour shell${shellsInsideBlockade(lat, model.rbOverA).length === 1 ? '' : 's'}).
             ${model.rbOverA < 1 ? 'Below nearest-neighbour blockade: neighbours cost less than the Rabi splitting.' : ''}</p>
           ${this.verdictText(model)}
           ${this.toleranceBox(tol ?? {})}
