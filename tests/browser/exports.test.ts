@@ -105,6 +105,25 @@ describe('exports of the phase map', () => {
     await panel.locator('select[name="export-size"]').selectOption('screen');
   });
 
+  it('every figure of the modes and staircase views saves as a PDF', async () => {
+    const views = [
+      { view: 'modes', query: '?view=modes', ready: 'modes-view[data-status="complete"]', figures: 2 },
+      { view: 'staircase', query: '?view=staircase&staircase.mu=-1%3A2.9%3A120', ready: 'staircase-view[data-scan="done"]', figures: 1 },
+    ];
+    for (const v of views) {
+      await page.goto(server.url + v.query);
+      await page.locator(v.ready).waitFor({ state: 'attached', timeout: 90_000 });
+      const buttons = page.locator(`${v.view}-view figure-panel button`, { hasText: 'PDF' });
+      expect(await buttons.count()).toBeGreaterThanOrEqual(v.figures);
+      for (let i = 0; i < await buttons.count(); i++) {
+        const { name, bytes } = await downloadBytes(() => buttons.nth(i).click());
+        expect(name.startsWith(v.view)).toBe(true);
+        expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+        expect(bytes.toString('latin1')).toMatch(/ Tj /);
+      }
+    }
+  });
+
   it('no console errors', () => {
     expect(browser.errors).toEqual([]);
   });

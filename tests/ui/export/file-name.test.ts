@@ -23,6 +23,9 @@ describe('export file names', () => {
     expect(exportBaseName(s, 'atlas')).toBe('atlas_chain_vdw_Rb1.5_delta4_mu-1..3.9_T0..0.5');
     // the demo map: the Rb axis replaces the fixed Rb = 1.5, the mu axis the fixed mu = 1
     expect(exportBaseName(demoState(), 'phase-map')).toBe('atlas-phase-map_chain_vdw_Rb0.8..2.4_delta3_mu-1..2.9_T0');
+    // the range read by the scan's own parser, in the page's form start..stop xN as in the old start:stop:count
+    const both = ['mu=-1..2.9 x64', 'mu=-1:2.9:64'].map((x) => exportBaseName(state((s) => { s.atlas.x = x; s.atlas.y = 'rb=0.8..2.4 x40'; }), 'phase-map'));
+    expect(both).toEqual(['atlas-phase-map_chain_vdw_Rb0.8..2.4_delta3_mu-1..2.9_T0', 'atlas-phase-map_chain_vdw_Rb0.8..2.4_delta3_mu-1..2.9_T0']);
   });
 
   it('name other interactions by their own strengths, and the density pump by rho', () => {
