@@ -81,22 +81,32 @@ export function modelAtLabPoint(p: LabPoint, m: ModelParams | null): boolean {
 interface Domain { lo?: number; loOpen?: boolean; hi?: number }
 
 /**
- * A range `start..stop xN` re-centred on `a` when the box a.value +- a.sigma is not
- * inside it: the same span centred on the value (widened to 1.25 times the box where the
- * box is wider than the span), then shifted to stay inside the quantity's domain (the gap
- * kept from an open bound is 2% of the span). The count and the direction are kept;
- * null when the box already lies inside.
+ * A range `start..stop xN` re-centred on `a` where it must move: an end outside the
+ * quantity's domain is first pulled inside (2% of the span from an open bound); if the box
+ * a.value +- a.sigma then lies inside, that is the range; else the range gets the same
+ * span centred on the value (widened to 1.25 times the box where the box is wider than the
+ * span), shifted to stay inside the domain. The count and the direction are kept; null
+ * when nothing moves.
  */
 export function recentredRange(range: { start: number; stop: number; count: number }, a: AxisValue, d: Domain = {}): string | null {
   const lo0 = Math.min(range.start, range.stop), hi0 = Math.max(range.start, range.stop);
-  if (a.value - a.sigma >= lo0 && a.value + a.sigma <= hi0) return null;
+  const out = (lo: number, hi: number) => {
+    const [s, e] = range.start <= range.stop ? [lo, hi] : [hi, lo];
+    return formatRange({ start: Number(short(s)), stop: Number(short(e)), count: range.count }, true);
+  };
+  const below = (x: number) => d.lo !== undefined && (d.loOpen ? x <= d.lo : x < d.lo);
+  const above = (x: number) => d.hi !== undefined && x >= d.hi;
+  let lo = lo0, hi = hi0;
+  if (above(hi)) hi = d.hi! - 0.02 * (hi0 - lo0);
+  if (below(lo)) lo = d.lo! + (d.loOpen ? 0.02 * (hi0 - lo0) : 0);
+  const holds = a.value - a.sigma >= lo && a.value + a.sigma <= hi;
+  if (lo < hi && holds) return lo === lo0 && hi === hi0 ? null : out(lo, hi);
   const half = Math.max((hi0 - lo0) / 2, 1.25 * a.sigma, 1e-6 * Math.max(1, Math.abs(a.value)));
-  let lo = a.value - half, hi = a.value + half;
+  lo = a.value - half; hi = a.value + half;
   const gap = 0.02 * (hi - lo);
-  if (d.hi !== undefined && hi >= d.hi) { hi = d.hi - gap; lo = hi - 2 * half; }
-  if (d.lo !== undefined && (d.loOpen ? lo <= d.lo : lo < d.lo)) { lo = d.lo + (d.loOpen ? gap : 0); hi = Math.max(hi, lo + 2 * half); }
-  const [s, e] = range.start <= range.stop ? [lo, hi] : [hi, lo];
-  return formatRange({ start: Number(short(s)), stop: Number(short(e)), count: range.count }, true);
+  if (above(hi)) { hi = d.hi! - gap; lo = hi - 2 * half; }
+  if (below(lo)) { lo = d.lo! + (d.loOpen ? gap : 0); hi = Math.max(hi, lo + 2 * half); }
+  return out(lo, hi);
 }
 
 /** The domain of each axis quantity given the point (mu below the detuning and the other way round). */
