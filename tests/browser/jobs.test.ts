@@ -77,7 +77,9 @@ describe('jobs under control', () => {
     // the CLI's message (validateModel through the same grid points), beside the range field
     // (the first point past delta in the CLI's order is ix = 9: -1 + 3.9 * 9 / 11)
     const refusal = 'mu = 2.190909090909091 must be below the detuning 2: for mu >= delta the photon number is unbounded';
-    await expect.poll(() => page.locator('phase-atlas-view #ax-x-msg').textContent()).toBe(refusal);
+    // the same refusal in the page's words (symbols for mu and delta, the number unchanged)
+    await expect.poll(() => page.locator('phase-atlas-view #ax-x-msg').textContent())
+      .toBe('\u03bc = 2.190909090909091 must be below the detuning 2: for \u03bc >= \u03b4 the photon number is unbounded');
     const cli = await run(join(ROOT, 'node_modules', '.bin', 'tsx'),
       [join(ROOT, 'src', 'cli', 'main.ts'), 'map', '--x', 'mu=-1:2.9:12', '--y', 'rb=0.8:2.4:6', '--detuning', '2'], { cwd: ROOT }).catch((e: { stderr: string }) => e);
     expect((cli as { stderr: string }).stderr).toContain(refusal);
@@ -95,7 +97,7 @@ describe('jobs under control', () => {
     await waitForScan(page, 'done', 60_000);
     await page.locator('model-form select[name="interaction"]').selectOption('softcore');
     // the rb axis does not apply to soft core: said beside it, nothing runs
-    await expect.poll(() => page.locator('phase-atlas-view #ax-y-msg').textContent()).toContain('the rb axis needs the vdw or dipolar interaction');
+    await expect.poll(() => page.locator('phase-atlas-view #ax-y-msg').textContent()).toContain('the blockade-radius (Rb) axis needs the van der Waals or dipolar interaction');
     expect(await worstDelay()).toBeLessThan(500);
     await page.locator('phase-atlas-view select[name="axis-y"]').selectOption('detuning');
     await expect.poll(() => page.locator('phase-atlas-view input[name="range-y"]').inputValue()).toBe('3..8 x6');

@@ -12,10 +12,14 @@ import { AXIS_NAMES, type AxisName, parseAxis, parseRange, rangeNote, type Axis 
 import { checkAxes } from '../../core/scan/grid.ts';
 import { defaultRange, planProblem, type AxisProblem } from '../model/axis-ranges.ts';
 import { phaseWords } from '../model/phase-words.ts';
+import { inPageWords } from '../model/page-words.ts';
+import { term, termStyles } from '../app/term-tip.ts';
 import { parseColourRange } from '../figures/colour-scale.ts';
 import { InputError } from '../../core/input-error.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
 import { MapScanController, type MapGrid } from '../controllers/map-scan.ts';
+import { DragZoomController, type ZoomBox } from '../controllers/drag-zoom.ts';
+import { zoomAxis } from '../model/zoom-axes.ts';
 import { mapExportJson, mapExportTable } from '../export/map-export.ts';
 import { phaseMapFigure, type MapShade } from '../figures/phase-map-figure.ts';
 import { AXIS_LABELS, AXIS_SYMBOLS } from '../model/axis-labels.ts';
@@ -61,6 +65,14 @@ export class PhaseAtlasView extends LitElement {
   private checkPick = 0;
   private checkOverlay: CheckOverlay | null = null;
   private scan = new MapScanController(this, () => this.engine);
+  /** Drag a box on the map to zoom into it (a new map of that box); Escape or Back returns. */
+  private zoomStack: Array<{ x: string; y: string }> = [];
+  private zoom = new DragZoomController(this, {
+    panel: () => this.renderRoot.querySelector<HTMLElement>('figure-panel.map'),
+    frame: () => this.fig?.frame,
+    onZoom: (box) => this.zoomTo(box),
+    onBack: () => this.zoomBack(false),
+  });
   private soft = new SoftLinesController(this, () => this.engine);
   private axisErrors: { x?: string; y?: string } = {};
   private fig: RenderedFigure | null = null;
@@ -72,7 +84,7 @@ export class PhaseAtlasView extends LitElement {
     this.hover = null;
   }
 
-  static override styles = [sharedStyles, css`
+  static override styles = [sharedStyles, termStyles, css`
     :host { display: block; }
     .controls { display: flex; flex-wrap: wrap; gap: 10px 18px; align-items: flex-end; margin-bottom: 8px; }
     .axis { display: flex; flex-direction: column; gap: 2px; }
@@ -196,7 +208,7 @@ export class PhaseAtlasView extends LitElement {
         ${phaseWords(b, maxCell)} (\u03c1 = ${fmt(b.excitationDensity)}, share ${fmt(xb)}):
         \u03c1 = ${fmt(xa * a.excitationDensity + xb * b.excitationDensity)}${own ? '' : ' (coarse preview)'}`;
     }
-    return html`${where}: <strong class="readout-phase">${phaseWords(s, maxCell)}</strong>,
+    return html`${where}: <strong class="readout-phase">${s.phase === 'supersolid' ? term('supersolid', phaseWords(s, maxCell)) : phaseWords(s, maxCell)}</strong>,
       \u03c1 = ${fmt(s.excitationDensity)}, \u03b1\u00b2 = ${fmt(s.photonDensity)}, M = ${s.cellSize}${limit}${own ? '' : ' (coarse preview)'}`;
   }
 
@@ -234,7 +246,8 @@ export class PhaseAtlasView extends LitElement {
     const text = this.section[which];
     const eq = text.indexOf('=');
     const name = eq >= 0 ? text.slice(0, eq) : 'mu', range = eq >= 0 ? text.slice(eq + 1) : text;
-    const err = this.axisErrors[which] ?? (this.planError?.axis === which ? this.planError.message : undefined);
+    const raw = this.axisErrors[which] ?? (this.planError?.axis === which ? this.planError.message : undefined);
+    const err = raw === undefined ? undefined : inPageWords(raw);
     return html`<div class="axis">
       <label for="ax-${which}-name">${which === 'x' ? 'Horizontal' : 'Vertical'} axis</label>
       <div class="pair">
@@ -258,6 +271,24 @@ export class PhaseAtlasView extends LitElement {
     let other: Axis | null = null;
     try { other = parseAxis(otherText, which === 'x' ? 'y' : 'x'); } catch { /* its own error shows */ }
     this.patch({ [which]: `${name}=${defaultRange(name, this.inputs, count, other)}` });
+  }
+
+/** The map of the dragged box: axes snapped to the shown map's grid, refined so its points are reused (zoom-axes.ts). */
+  private zoomTo(box: ZoomBox) {
+    const g = this.scan.shown;
+    if (!g) return;
+    const x = zoomAxis(g.plan.x, box.x[0], box.x[1]), y = zoomAxis(g.plan.y, box.y[0], box.y[1]);
+    if (!x || !y) return;
+    this.zoomStack = [...this.zoomStack, { x: this.section.x, y: this.section.y }];
+    this.patch({ x, y, point: '' });
+  }
+
+  /** Back one zoom (all the way with full). */
+  private zoomBack(full: boolean) {
+    const to = full ? this.zoomStack[0] : this.zoomStack[this.zoomStack.length - 1];
+    if (!to) return;
+    this.zoomStack = full ? [] : this.zoomStack.slice(0, -1);
+    this.patch({ x: to.x, y: to.y, point: '' });
   }
 
   private toggleLine(r: string, on: boolean) {
@@ -326,6 +357,8 @@ export class PhaseAtlasView extends LitElement {
         ${g ? html`<button class="pin-map" ?disabled=${!g.complete || !!this.staleText()} title="Keep this map's boundaries drawn (dashed) over the maps of other parameters"
           @click=${() => this.pinMap(g)}>Pin this map</button>` : nothing}
         ${pins.map ? html`<button class="unpin-map" @click=${() => pins.pinMap(null)}>Unpin</button>` : nothing}
+        ${this.zoomStack.length ? html`<button class="zoom-back" title="The map before the last zoom (Escape)" @click=${() => this.zoomBack(false)}>Back</button>
+          <button class="zoom-full" @click=${() => this.zoomBack(true)}>Full map</button>` : html`<span class="muted zoom-hint">Drag a box on the map to zoom into it.</span>`}
       </div>
       ${g && g.solves !== null ? html`<p class="muted map-notes">${g.solves} of ${g.nx * g.ny} points solved in full${g.notes.length
         ? html`; ${g.notes.map((n) => n.replace(/\s*\(--dense[^)]*\)/g, '')).join('; ')}` : ''}.</p>` : nothing}
