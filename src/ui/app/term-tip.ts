@@ -1,7 +1,7 @@
 /**
- * Term tooltips: a word of the trade on the page, dotted underlined, with its meaning on
- * hover and on keyboard focus (title, and aria-describedby-free: the definition is the
- * element's accessible description through title). Definitions in the conventions of
+ * Term tooltips: a word of the trade on the page, dotted underlined, with its meaning in
+ * its title (shown on hover, and read as its description by screen readers; the word is
+ * focusable so keyboard users reach it). Definitions in our words, in the conventions of
  * DESIGN.md (energies in g, lengths in a).
  */
 import { html, css, type TemplateResult } from 'lit';
