@@ -27,7 +27,8 @@ export class SessionMenu extends LitElement {
 
   static override styles = [sharedStyles, css`
     :host { position: relative; display: inline-block; }
-    .sessions-toggle { background: transparent; color: inherit; border-color: #8f9bb0; }
+    .sessions-toggle { background: transparent; color: #fff; border-color: #8f9bb0; }
+    .sessions-toggle:hover { background: #2e3848; }
     .panel { position: absolute; right: 0; top: calc(100% + 6px); z-index: 20; width: 340px; max-width: 90vw; background: #fff; color: #1d2430;
       border: 1px solid var(--line); border-radius: 6px; padding: 10px; box-shadow: 0 6px 18px rgba(0,0,0,0.18); }
     .row { display: flex; gap: 6px; align-items: center; }
