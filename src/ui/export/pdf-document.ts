@@ -30,7 +30,6 @@ export function assemblePdf(bodies: string[], root: number, info = 0): string {
     offsets.push(out.length);
     out += `${i + 1} 0 obj\n${b}\nendobj\n`;
   });
-  // eslint-disable-next-line no-control-regex
   if (/[^\x00-\x7f]/.test(out)) throw new Error('PDF: a non-ASCII character in the file body');
   const xref = out.length;
   out += `xref\n0 ${bodies.length + 1}\n0000000000 65535 f\r\n`;

@@ -3,7 +3,7 @@
  * with the SVG's colours (8.5), every label a text object in a standard font (9.4, 9.6;
  * see pdf-fonts.ts), textures as tiling patterns (8.7.3.1), opacities as graphics-state
  * parameters /ca and /CA (8.4.5), the plot area's clip as a clipping path (8.5.4). Nothing
- * is rasterised. The page is the figure's viewBox scaled to `widthPt` points (default:
+ * is rasterised; a linear gradient becomes an axial shading (8.7.4.5.3, svg-gradient.ts). The page is the figure's viewBox scaled to `widthPt` points (default:
  * 1 CSS px = 0.75 pt, the figure's size on a 96 dpi screen); the SVG's y axis runs down,
  * so the page transform flips it once and text is set with a flipped text matrix.
  */
@@ -12,6 +12,7 @@ import { assemblePdf, pdfTextString, streamObject } from './pdf-document.ts';
 import { PDF_FONTS, pdfString, runsWidth, textRuns } from './pdf-fonts.ts';
 import { IDENTITY, type Matrix, compose, num, parseTransform, shapePath } from './svg-geometry.ts';
 import { INITIAL_PAINT, type Paint, cascade, paintServer, parseColour, properties } from './svg-paint.ts';
+import { axialShading, gradientStops, onBoundingBox, shapeBox } from './svg-gradient.ts';
 
 /** CSS pixels to PDF points: 72 pt per inch over 96 px per inch. */
 export const PT_PER_PX = 72 / 96;
@@ -24,6 +25,7 @@ class Context {
   readonly defs = new Map<string, SvgNode>();
   readonly alphas = new Map<string, string>();
   readonly patterns = new Map<string, { name: string; obj: number }>();
+  readonly shadings = new Map<string, { name: string; obj: number }>();
   readonly objects: string[] = [];
   constructor(readonly root: SvgNode, readonly rootPaint: Paint, readonly page: Matrix, readonly resourcesObj: number, readonly firstFree: number) {
     const walk = (n: SvgNode) => { if (n.attrs.id) this.defs.set(n.attrs.id, n); for (const c of n.children) if (typeof c !== 'string') walk(c); };
@@ -35,6 +37,20 @@ class Context {
     const key = `${num(fill)} ${num(stroke)}`;
     let name = this.alphas.get(key);
     if (!name) { name = `GS${this.alphas.size}`; this.alphas.set(key, name); }
+    return name;
+  }
+
+  /** Shading name of <linearGradient id>, or null when there is no such gradient. */
+  shading(id: string): string | null {
+    const have = this.shadings.get(id);
+    if (have) return have.name;
+    const node = this.defs.get(id);
+    const dict = node && node.tag === 'linearGradient' ? axialShading(node) : null;
+    if (!dict) return null;
+    const name = `Sh${this.shadings.size}`;
+    const obj = this.firstFree + this.objects.length;
+    this.objects.push(dict);
+    this.shadings.set(id, { name, obj });
     return name;
   }
 
@@ -86,9 +102,38 @@ function setPaint(ctx: Context, value: string, stroke: boolean, ctm: Matrix, ops
   return c.alpha;
 }
 
+/**
+ * Fill a shape with a linear gradient: clip to the path, map the gradient's space (the
+ * shape's box or user space) and paint the shading; true when done. A gradient on a
+ * shape whose box is unknown is painted in its middle stop's colour by the caller.
+ */
+function paintGradient(ctx: Context, p: Paint, n: SvgNode, path: string, ops: string[]): boolean {
+  const server = paintServer(p.fill);
+  const g = server ? ctx.defs.get(server.id) : undefined;
+  if (!g || g.tag !== 'linearGradient') return false;
+  const box = onBoundingBox(g) ? shapeBox(n) : null;
+  const name = (!onBoundingBox(g) || box) ? ctx.shading(server!.id) : null;
+  if (!name) return false;
+  const alpha = p.fillOpacity * p.opacity;
+  ops.push('q', ...(alpha < 1 ? [`/${ctx.alpha(alpha, 1)} gs`] : []), path, 'W n', ...(box ? [`${num(box[2])} 0 0 ${num(box[3])} ${num(box[0])} ${num(box[1])} cm`] : []), `/${name} sh`, 'Q');
+  return true;
+}
+
+/** A gradient's middle stop as a colour, for shapes a shading cannot be fitted to. */
+function gradientFallback(ctx: Context, fill: string): string {
+  const server = paintServer(fill);
+  const g = server ? ctx.defs.get(server.id) : undefined;
+  if (!g || g.tag !== 'linearGradient') return fill;
+  const stops = gradientStops(g);
+  const mid = stops[Math.floor(stops.length / 2)];
+  return mid ? `rgb(${mid.rgb.map((v) => Math.round(v * 255)).join(',')})` : server!.fallback;
+}
+
 /** Paint a path: fill and/or stroke with their opacities. */
-function paintPath(ctx: Context, p: Paint, path: string, ctm: Matrix, ops: string[]): void {
+function paintPath(ctx: Context, p: Paint, path: string, ctm: Matrix, ops: string[], n?: SvgNode): void {
   if (!path) return;
+  if (n && paintGradient(ctx, p, n, path, ops)) p = { ...p, fill: 'none' };
+  else p = { ...p, fill: gradientFallback(ctx, p.fill) };
   const set: string[] = [];
   const fa = setPaint(ctx, p.fill, false, ctm, set);
   const sa = p.strokeWidth > 0 ? setPaint(ctx, p.stroke, true, ctm, set) : null;
@@ -160,7 +205,7 @@ function draw(ctx: Context, n: SvgNode, up: Paint, ctm: Matrix, ops: string[]): 
     for (const c of n.children) if (typeof c !== 'string') draw(ctx, c, p, m, inner);
   } else if (p.visibility !== 'hidden' && p.visibility !== 'collapse') {
     if (n.tag === 'text') paintText(ctx, p, n, m, inner);
-    else paintPath(ctx, p, shapePath(n), m, inner);
+    else paintPath(ctx, p, shapePath(n), m, inner, n);
   }
   if (inner.length > drawn) ops.push('q', ...inner, 'Q');
 }
@@ -181,7 +226,7 @@ export function svgToPdf(svg: string, opts: PdfOptions = {}): string {
   const cssWidth = Number.parseFloat(root.attrs.width ?? '') || vw;
   const W = opts.widthPt ?? cssWidth * PT_PER_PX;
   const k = W / vw, H = vh * k;
-  // objects: 1 catalogue, 2 pages, 3 page, 4 content, 5 resources, 6 info, 7-9 fonts, 10.. patterns
+  // objects: 1 catalogue, 2 pages, 3 page, 4 content, 5 resources, 6 info, 7-9 fonts, 10.. patterns and shadings
   const page: Matrix = [k, 0, 0, -k, -k * vx, H + k * vy];
   const rootPaint = cascade(INITIAL_PAINT, { tag: 'g', attrs: { ...root.attrs, transform: '' }, children: [] });
   const ctx = new Context(root, rootPaint, page, 5, 10);
@@ -190,12 +235,13 @@ export function svgToPdf(svg: string, opts: PdfOptions = {}): string {
   const fonts = Object.keys(PDF_FONTS).map((f, i) => `/${f} ${7 + i} 0 R`).join(' ');
   const alphas = [...ctx.alphas].map(([key, name]) => { const [f, s] = key.split(' '); return `/${name} << /Type /ExtGState /ca ${f} /CA ${s} >>`; }).join(' ');
   const patterns = [...ctx.patterns.values()].map((v) => `/${v.name} ${v.obj} 0 R`).join(' ');
+  const shadings = [...ctx.shadings.values()].map((v) => `/${v.name} ${v.obj} 0 R`).join(' ');
   const bodies = [
     '<< /Type /Catalog /Pages 2 0 R >>',
     '<< /Type /Pages /Kids [3 0 R] /Count 1 >>',
     `<< /Type /Page /Parent 2 0 R /MediaBox [0 0 ${num(W)} ${num(H)}] /Resources 5 0 R /Contents 4 0 R >>`,
     streamObject('', ops.join('\n')),
-    `<< /ProcSet [/PDF /Text] /Font << ${fonts} >> /ExtGState << ${alphas} >> /Pattern << ${patterns} >> >>`,
+    `<< /ProcSet [/PDF /Text] /Font << ${fonts} >> /ExtGState << ${alphas} >> /Pattern << ${patterns} >> /Shading << ${shadings} >> >>`,
     `<< /Title ${pdfTextString(opts.title ?? textOf(root.children.find((c): c is SvgNode => typeof c !== 'string' && c.tag === 'title') ?? { tag: 'title', attrs: {}, children: [] }).trim())} /Producer (blockade-atlas) >>`,
     ...Object.values(PDF_FONTS).map((f) => `<< /Type /Font /Subtype /Type1 /BaseFont /${f}${f === 'Symbol' ? '' : ' /Encoding /WinAnsiEncoding'} >>`),
     ...ctx.objects,

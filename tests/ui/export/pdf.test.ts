@@ -25,9 +25,11 @@ function figure(): string {
       mark(() => '<path d="M10 10L100 100" stroke="hsl(120 100% 25%)" stroke-dasharray="4 2"/>'
         + '<text x="100" y="50" text-anchor="middle" font-size="10">ABC</text>'
         + '<text x="20" y="200" transform="rotate(-90 20 200)">chemical potential \u03bc \u2212 \u0394</text>'
-        + '<text x="5" y="5" font-weight="bold" stroke="#ffffff" stroke-width="3" paint-order="stroke">1/2</text>'),
+        + '<text x="5" y="5" font-weight="bold" stroke="#ffffff" stroke-width="3" paint-order="stroke">1/2</text>'
+        + '<rect x="300" y="10" width="60" height="10" fill="url(#t-grad)"/>'),
     ],
-    defs: () => '<pattern id="t-hatch" width="7" height="7" patternUnits="userSpaceOnUse" patternTransform="rotate(45)"><line x1="0" y1="0" x2="0" y2="7" stroke="#000" stroke-opacity="0.5"/></pattern>',
+    defs: () => '<pattern id="t-hatch" width="7" height="7" patternUnits="userSpaceOnUse" patternTransform="rotate(45)"><line x1="0" y1="0" x2="0" y2="7" stroke="#000" stroke-opacity="0.5"/></pattern>'
+      + '<linearGradient id="t-grad" x1="0" x2="1" y1="0" y2="0"><stop offset="0%" stop-color="#000"/><stop offset="50%" stop-color="#fff"/><stop offset="100%" stop-color="#f00"/></linearGradient>',
   } as Parameters<typeof renderFigure>[0]).svg;
 }
 
@@ -105,6 +107,18 @@ describe('vector PDF of a figure', () => {
     expect(pdf).toContain('[4 2] 0 d');
     // hsl(120 100% 25%) is rgb(0, 127.5, 0) (CSS Color 3, 4.2.4)
     expect(pdf).toContain('0 0.5 0 RG');
+  });
+});
+
+describe('a linear gradient as an axial shading', () => {
+  it('shades the shape\'s box from the first stop to the last (ISO 32000-1, 8.7.4.5.3; SVG 1.1, 13.2.2)', () => {
+    const pdf = svgToPdf(figure());
+    // two linear pieces (black to white, white to red) stitched at the middle stop
+    expect(pdf).toContain('/ShadingType 2 /ColorSpace /DeviceRGB /Coords [0 0 1 0] /Domain [0 1] /Function << /FunctionType 3 /Domain [0 1] '
+      + '/Functions [<< /FunctionType 2 /Domain [0 1] /C0 [0 0 0] /C1 [1 1 1] /N 1 >> << /FunctionType 2 /Domain [0 1] /C0 [1 1 1] /C1 [1 0 0] /N 1 >>] /Bounds [0.5]');
+    // clipped to the rect, the unit square mapped onto its box (x 300, y 10, 60 x 10)
+    expect(pdf).toContain('300 10 60 10 re\nW n\n60 0 0 10 300 10 cm\n/Sh0 sh');
+    expect(pdf).toMatch(/\/Shading << \/Sh0 \d+ 0 R >>/);
   });
 });
 
