@@ -56,7 +56,7 @@ export function withPinnedStaircase(fig: RenderedFigure, p: PinnedStaircase, slo
     drawn += line(s.mu, s.filling, { stroke: PINNED_STROKE, width: 1.2, dash: '1 3' }).render(f);
   }
   const ranges = p.series.map((s) => s.label).join(' and ');
-  const lines = ['pinned staircase (\u03c1 dashed,', `\u27e8n\u27e9 dotted; ${ranges}):`, ...wrapText(p.label, lineChars(f))];
+  const lines = ['pinned staircase:', ...wrapText(`\u03c1 dashed, \u27e8n\u27e9 dotted; ${ranges}; ${p.label}`, lineChars(f))];
   const legend = `<g class="pinned-legend">${overlayLegend(f, [{ swatch: 'dashed', stroke: PINNED_STROKE, lines }], slot)}</g>`;
   return { fig: appendToFigure(fig, `pin-st|${idOf(p)}|${slot}`, `<g class="pinned-staircase">${drawn}</g>`, legend), rows: lines.length };
 }

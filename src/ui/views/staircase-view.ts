@@ -212,12 +212,10 @@ export class StaircaseView extends LitElement {
     return out;
   }
 
-  /** Pin the curves on show, named by the model's entries (mu is the scan's). */
+  /** Pin the model's own curve (not the comparison cut), named by the model's entries (mu is the scan's). */
   private pinStaircase(series: StaircaseSeries[]) {
-    pins.pinStaircase({
-      label: pinLabel(this.inputs, ['mu']),
-      series: series.map((s) => ({ label: s.label, mu: [...s.mu], rho: [...s.rho], filling: [...s.filling] })),
-    });
+    const s = series[0];
+    pins.pinStaircase({ label: pinLabel(this.inputs, ['mu']), series: [{ label: s.label, mu: [...s.mu], rho: [...s.rho], filling: [...s.filling] }] });
   }
 
   private cursorAt(s: { result: { points: { state?: SolveResult }[] } } | undefined, fig: unknown): [number, number] | null {
