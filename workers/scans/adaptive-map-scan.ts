@@ -33,6 +33,8 @@ import type { WorkerPool } from '../pool.ts';
 import type { ColdOutcome, MapScanRequest, MapScanResult, ScanOptions } from '../protocol.ts';
 import { DEFAULT_POINT_BUDGET_MS, runMapScan } from './map-scan.ts';
 import { shardSegments } from '../../src/core/scan/shards.ts';
+import { lowest, rectPolygon, region, tied } from '../../src/core/scan/tie-rects.ts';
+import type { Rect } from '../../src/core/scan/refinement.ts';
 
 /** Cold points per worker task (small: the refinement levels are short). */
 const COLD_TASK = 4;
@@ -122,6 +124,7 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
     return res.flat();
   };
   const at = (ix: number, iy: number) => `(${plan.x.name} = ${plan.x.values[ix]}${plan.y ? `, ${plan.y.name} = ${plan.y.values[iy]}` : ''})`;
+  const ties = mode === 'certify' && located ? new TieCertifier(plan, located, solveCold) : null;
 
   for (const band of bands) {
     // refinement: every pixel of the band certified or solved cold
@@ -143,6 +146,7 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
         rects = lvl.children;
         continue;
       }
+      if (ties) rects = await ties.certify(rects, (x, y) => crystalOf(stateAt(x, y)), certified);
       const lvl = refineLevel(rects, stateAt);
       for (const { rect, crystal } of lvl.certified) {
         for (let y = rect.y0; y <= rect.y1; y++) for (let x = rect.x0; x <= rect.x1; x++) certified.set(y * nx + x, crystal);
@@ -395,4 +399,151 @@ async function locate(
   }
   for (const j of jobs) put(j.e, (j.va + j.vb) / 2, phaseName(j.a), phaseName(j.b), false);
   return out;
+}
+
+type SolveCold = (pts: Array<{ p: ModelParams; seed: number; what: string }>) => Promise<ColdOutcome[]>;
+
+/** Rounds of confirming solves per refinement level (each solves at most two points a tie line). */
+const TIE_PASSES = 6;
+
+/** Relative Omega difference within which crystals count as tied at a polygon vertex (rounding of the vertex). */
+const VERTEX_TOL = 1e-11;
+
+/** 32-bit FNV-1a of a string (a confirming solve's seed from its point). */
+function hash32(text: string): number {
+  let h = 0x811c9dc5;
+  for (let i = 0; i < text.length; i++) h = Math.imul(h ^ text.charCodeAt(i), 0x01000193) >>> 0;
+  return h;
+}
+
+/**
+ * Refinement rectangles whose corners are two or more crystals, certified polygon by
+ * polygon of the crystals' lower envelope (tie-rects.ts) once every vertex of every polygon
+ * is confirmed: a corner (solved) carrying that polygon's crystal, or a tie point where a
+ * solve's winner is one of the tied crystals, or a point inside a confirmed interval of one
+ * of their tie lines (two confirmed points confirm the segment between them,
+ * boundary-lines.ts). A winner below the tie that is a crystal joins the envelope (the
+ * polygons are recomputed with it); any other refutes the rectangle, which is split as
+ * before. A confirmation here also confirms the crossing for the boundary lines (a winner
+ * among the tied crystals lies within their tolerance).
+ */
+class TieCertifier {
+  private readonly strict: BoundaryLines;
+  private readonly sx: number[];
+  private readonly sy: number[];
+  private readonly ux: [number, number];
+  private readonly uy: [number, number];
+  /** Crystals met at refuted tie points: they join every rectangle's envelope. */
+  private readonly lower = new Map<string, Crystal>();
+
+  constructor(private readonly plan: ScanPlan, private readonly st: LocateState, private readonly solveCold: SolveCold) {
+    this.strict = new BoundaryLines(st.models);
+    const frame = st.models.frame;
+    const y0 = plan.y ? [plan.y.values[0]] : [];
+    this.sx = plan.x.values.map((v) => frame.coords([v, ...y0])[0]);
+    this.sy = plan.y ? plan.y.values.map((v) => frame.coords([plan.x.values[0], v])[1]) : [0];
+    const range = (a?: Axis): [number, number] => (a
+      ? [affineCoordinate(a.name, a.values[0], plan.base) as number, affineCoordinate(a.name, a.values[a.values.length - 1], plan.base) as number]
+      : [0, 0]);
+    this.ux = range(plan.x);
+    this.uy = range(plan.y);
+  }
+
+  private sAt = (ix: number, iy: number): number[] => (this.plan.y ? [this.sx[ix], this.sy[iy]] : [this.sx[ix]]);
+
+  /** The parameters at normalised coordinates s. */
+  private paramsAt(s: number[]): ModelParams {
+    const { plan } = this;
+    let p = applyAxis(plan.base, plan.x.name, axisValue(plan.x.name, this.ux[0] + s[0] * (this.ux[1] - this.ux[0]), plan.base));
+    if (plan.y) p = applyAxis(p, plan.y.name, axisValue(plan.y.name, this.uy[0] + s[1] * (this.uy[1] - this.uy[0]), plan.base));
+    return p;
+  }
+
+  /** Certify what it can of rects into certified (pixel index -> crystal); returns the rest. */
+  async certify(rects: Rect[], crystalAt: (ix: number, iy: number) => Crystal | null, certified: Map<number, Crystal>): Promise<Rect[]> {
+    const { plan } = this;
+    const { nx } = gridShape(plan);
+    const models = this.st.models;
+    interface Job { rect: Rect; corners: Crystal[]; failed: boolean }
+    interface Need { s: number[]; tied: Crystal[]; line: string; t: number; jobs: Job[] }
+    const jobs: Job[] = [];
+    const rest: Rect[] = [];
+    for (const r of rects) {
+      const cs = r.x1 - r.x0 > 1 || r.y1 - r.y0 > 1 ? corners(r).map(([x, y]) => crystalAt(x, y)) : [];
+      const keys = new Set(cs.map((c) => c?.key));
+      if (!cs.length || cs.some((c) => !c) || keys.size < 2) { rest.push(r); continue; }
+      jobs.push({ rect: r, corners: cs as Crystal[], failed: false });
+    }
+    const envelope = (job: Job): Crystal[] => {
+      const byKey = new Map<string, Crystal>();
+      for (const c of [...job.corners, ...this.lower.values()]) byKey.set(c.key, c);
+      return [...byKey.values()];
+    };
+    // the unconfirmed vertices of a job's polygons (null: refuted)
+    const open = (job: Job, K: Crystal[]): Need[] | null => {
+      const ms = K.map((c) => models.model(c));
+      const poly = rectPolygon(job.rect, this.sAt);
+      const out: Need[] = [];
+      for (let k = 0; k < K.length; k++) {
+        for (const v of region(poly, ms, k)) {
+          if (v.corner) {
+            if (crystalAt(v.corner[0], v.corner[1])?.key !== K[k].key) return null;
+            continue;
+          }
+          const T = tied(ms, v.s, VERTEX_TOL);
+          if (T.length < 2 || !T.includes(k)) return null;
+          const pairs: Array<[Crystal, Crystal]> = [];
+          for (const i of T) for (const j of T) if (i < j) pairs.push([K[i], K[j]]);
+          if (pairs.some(([a, b]) => this.strict.covers(lineKey(a, b), this.strict.param(a, b, v.s)))) continue;
+          const other = K[T.find((i) => i !== k) as number];
+          out.push({ s: v.s, tied: T.map((i) => K[i]), line: lineKey(K[k], other), t: this.strict.param(K[k], other, v.s), jobs: [job] });
+        }
+      }
+      return out;
+    };
+    for (let pass = 0; pass < TIE_PASSES; pass++) {
+      const byLine = new Map<string, Need[]>();
+      for (const job of jobs) {
+        if (job.failed) continue;
+        const needs = open(job, envelope(job));
+        if (!needs) { job.failed = true; continue; }
+        for (const n of needs) byLine.set(n.line, [...(byLine.get(n.line) ?? []), n]);
+      }
+      if (!byLine.size) break;
+      const chosen: Need[] = [];
+      for (const [line, ns] of byLine) for (const i of probes(ns.map((n) => n.t), this.strict.interval(line))) chosen.push(ns[i]);
+      const got = await this.solveCold(chosen.map((n) => ({
+        p: this.paramsAt(n.s), seed: pointSeed(plan.seed ^ 0x7f4a7c15, hash32(n.s.join(','))), what: `tie point at ${n.s.join(', ')}`,
+      })));
+      chosen.forEach((n, i) => {
+        const w = crystalOf(got[i].cold?.state);
+        if (w && n.tied.some((c) => c.key === w.key)) {
+          for (const a of n.tied) for (const b of n.tied) {
+            if (a.key < b.key) {
+              const t = this.strict.param(a, b, n.s);
+              this.strict.confirm(lineKey(a, b), t);
+              this.st.lines.confirm(lineKey(a, b), t);
+            }
+          }
+        } else if (w && !this.lower.has(w.key) && this.lower.size < MAX_KNOWN_CRYSTALS) {
+          this.lower.set(w.key, w);
+        } else {
+          for (const j of n.jobs) j.failed = true;
+        }
+      });
+    }
+    for (const job of jobs) {
+      const K = envelope(job);
+      const needs = job.failed ? null : open(job, K);
+      if (!needs || needs.length) { rest.push(job.rect); continue; }
+      const ms = K.map((c) => models.model(c));
+      for (let y = job.rect.y0; y <= job.rect.y1; y++) {
+        for (let x = job.rect.x0; x <= job.rect.x1; x++) {
+          const k = lowest(ms, this.sAt(x, y));
+          if (k >= 0) certified.set(y * nx + x, K[k]);
+        }
+      }
+    }
+    return rest;
+  }
 }
