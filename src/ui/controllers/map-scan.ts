@@ -24,6 +24,9 @@ export const SCAN_SEED = 1;
 
 export interface MapPlan { base: ModelParams; x: Axis; y: Axis }
 
+/** How far (in cells) a reused point paints its unsolved neighbours while the map fills in. */
+const PREVIEW_RING = 12;
+
 /** One scan's grid of points. */
 export class MapGrid {
   readonly nx: number;
@@ -40,6 +43,8 @@ export class MapGrid {
   boundaries: Boundary[] | null = null;
   solves: number | null = null;
   notes: string[] = [];
+  /** Indices whose point is, for now, a kept map's point at the same grid point (a zoom's parent): a preview until the scan's own arrives. */
+  readonly preview = new Set<number>();
   constructor(readonly plan: MapPlan, readonly key: string) {
     this.nx = plan.x.count;
     this.ny = plan.y.count;
@@ -59,14 +64,32 @@ export class MapGrid {
   own(ix: number, iy: number): SolveResult | undefined {
     return this.points[iy * this.nx + ix]?.state;
   }
-  /** The state that paints cell (ix, iy): its own, or that of the nearest row done. */
+  /**
+   * The state that paints cell (ix, iy): its own, or that of the nearest row done, or (a map
+   * that started from points of another: a preview) of a nearer point known (within
+   * PREVIEW_RING cells), so the preview points paint a coarse picture at once.
+   */
   paint(ix: number, iy: number): SolveResult | undefined {
-    for (let d = 0; d < this.ny; d++) {
-      for (const jy of d === 0 ? [iy] : [iy - d, iy + d]) {
-        if (jy >= 0 && jy < this.ny && this.rowCount[jy] === this.nx) return this.points[jy * this.nx + ix]?.state;
+    const own = this.own(ix, iy);
+    if (own) return own;
+    let row: SolveResult | undefined, d = 1;
+    for (; d < this.ny; d++) {
+      const hit = [iy - d, iy + d].find((jy) => jy >= 0 && jy < this.ny && this.rowCount[jy] === this.nx);
+      if (hit !== undefined) { row = this.points[hit * this.nx + ix]?.state; break; }
+    }
+    if (this.preview.size > 0) {
+      for (let r = 1; r < Math.min(d, PREVIEW_RING + 1); r++) {
+        for (let jy = iy - r; jy <= iy + r; jy++) {
+          if (jy < 0 || jy >= this.ny) continue;
+          const step = jy === iy - r || jy === iy + r ? 1 : 2 * r;
+          for (let jx = ix - r; jx <= ix + r; jx += step) {
+            const s = jx >= 0 && jx < this.nx ? this.points[jy * this.nx + jx]?.state : undefined;
+            if (s) return s;
+          }
+        }
       }
     }
-    return this.own(ix, iy);
+    return row;
   }
   /** The points computed so far, in index order. */
   done(): ScanPoint[] {
@@ -125,6 +148,17 @@ export class MapScanController implements ReactiveController {
     this.fromCache = false;
     const grid = kept ?? new MapGrid(plan, key);
     if (kept) this.shown = kept;
+    // a new map shows at once the points it shares with kept maps (a zoom into a box of
+    // one): they paint a coarse first picture while the scan runs, and the scan's own
+    // answers replace them as they arrive. The adaptive map solves the whole grid: solving
+    // only the rest densely (the adaptive map takes whole rows only) cost three times the
+    // solves on a demo zoom and broke the located boundary lines at every reused row.
+    const shared = kept ? null : this.cache.shared(plan);
+    if (shared?.size) {
+      for (const p of shared.values()) { grid.points[p.index] = p; grid.preview.add(p.index); }
+      this.shown = grid;
+      this.firstPictureMs = 0;
+    }
     this.current = grid;
     this.status = 'running';
     this.failed = grid.done().filter((p) => p.error !== undefined).length;
@@ -135,7 +169,8 @@ export class MapScanController implements ReactiveController {
     const ctrl = new AbortController();
     this.ctrl = ctrl;
     const deliver = (pt: ScanPoint) => {
-      if (ctrl.signal.aborted || grid.points[pt.index]) return;
+      if (ctrl.signal.aborted) return;
+      if (!grid.preview.delete(pt.index) && grid.points[pt.index]) return;
       grid.points[pt.index] = pt;
       grid.rowCount[pt.iy]++;
       grid.count++;
@@ -160,6 +195,7 @@ export class MapScanController implements ReactiveController {
       (e: unknown) => {
         if (this.ctrl !== ctrl) return;
         this.ctrl = null;
+        dropPreview(grid);
         this.status = isAbort(e) ? 'cancelled' : 'error';
         this.error = isAbort(e) ? null : e instanceof Error ? e.message : String(e);
         this.flush();
@@ -183,7 +219,7 @@ export class MapScanController implements ReactiveController {
       const c = this.ctrl;
       this.ctrl = null;
       this.cancelled++;
-      if (this.current) this.cache.put(this.current);
+      if (this.current) { dropPreview(this.current); this.cache.put(this.current); }
       c.abort();
       this.status = 'cancelled';
       this.flush();
@@ -230,4 +266,10 @@ export class MapScanController implements ReactiveController {
   hostDisconnected(): void {
     this.cancel();
   }
+}
+
+/** Take a stopped run's preview points off its grid (they are another map's; a later run solves them). */
+function dropPreview(g: MapGrid): void {
+  for (const i of g.preview) g.points[i] = undefined;
+  g.preview.clear();
 }
