@@ -38,6 +38,7 @@ export class SessionMenu extends LitElement {
     li .name { flex: 1; overflow-wrap: anywhere; }
     li .when { font-size: 11.5px; color: #5b6577; }
     .msg { font-size: 12.5px; margin: 6px 0 0; }
+    @media (max-width: 600px) { .panel { position: fixed; left: 8px; right: 8px; top: 8px; width: auto; max-width: none; } }
   `];
 
   private refresh() {

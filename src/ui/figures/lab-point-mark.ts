@@ -131,10 +131,27 @@ export function withLabPoint(fig: RenderedFigure, m: LabMark | null, slot = 0): 
 
 /**
  * A figure whose axes are none of the point's quantities (the spectrum over k, the
- * cluster): the point and whether the model's point lies in its box, as a legend note.
+ * cluster): the point, and whether the model's point lies in its box, as a note in a strip
+ * added under the figure (so it covers neither the data nor the legend, at any size).
  */
-export function withLabNote(fig: RenderedFigure, text: string, inside: boolean, slot = 0): RenderedFigure {
+export function withLabNote(fig: RenderedFigure, text: string, inside: boolean): RenderedFigure {
+  const key = `note|${text}|${inside}`;
+  let m = memo.get(fig);
+  const hit = m?.get(key);
+  if (hit) return hit;
+  if (!m) memo.set(fig, m = new Map());
   const f = fig.frame;
-  const lines = [inside ? 'at the lab point (\u00b11\u03c3):' : 'NOT at the lab point:', ...wrapText(text, lineChars(f))];
-  return appendToFigure(fig, `note|${slot}|${text}|${inside}`, '', `<g class="lab-point-note">${overlayLegend(f, [{ swatch: 'lab', lines }], slot)}</g>`);
+  const lines = wrapText(`${inside ? 'At the lab point' : 'NOT at the lab point'} (\u00b11\u03c3 box): ${text}`, Math.max(30, Math.floor((f.width - 40) / 6.3)));
+  const extra = 14 * lines.length + 10, H = f.height + extra;
+  let note = el('rect', { x: 0, y: f.height, width: f.width, height: extra, fill: HALO })
+    + el('rect', { x: 8, y: f.height + 4, width: 16, height: 10, fill: 'none', stroke: INK, 'stroke-width': 1.4, 'stroke-dasharray': '4 2' })
+    + el('circle', { cx: 16, cy: f.height + 9, r: 3, fill: 'none', stroke: INK, 'stroke-width': 1.4 });
+  lines.forEach((t, i) => { note += el('text', { x: 30, y: f.height + 13 + 14 * i, 'font-size': 11, fill: '#1d2430' }, esc(t)); });
+  // the document grows by the strip: its height and viewBox, then the note before the end
+  const head = fig.svg.replace(/^(<svg[^>]*?) height="[^"]*"/, `$1 height="${H}"`).replace(/^(<svg[^>]*?) viewBox="0 0 ([^ "]+) [^"]*"/, `$1 viewBox="0 0 $2 ${H}"`);
+  const at = head.lastIndexOf('</svg>');
+  const out = { ...fig, svg: `${head.slice(0, at)}<g class="lab-point-note">${note}</g>${head.slice(at)}`, frame: { ...f, height: H } };
+  m.clear();
+  m.set(key, out);
+  return out;
 }

@@ -55,7 +55,7 @@ export function labOnAxis(p: LabPoint, name: AxisName): AxisValue | null {
 
 /** One line naming the point with its tolerances, for legends and notes. */
 export function labPointText(p: LabPoint): string {
-  const pm = (a: AxisValue) => (a.sigma > 0 ? `${short(a.value)} \u00b1 ${short(a.sigma)}` : short(a.value));
+  const pm = (a: AxisValue) => (a.sigma > 0 ? `${short(a.value)} \u00b1 ${Number(a.sigma.toPrecision(3))}` : short(a.value));
   return `Rb/a = ${pm(p.rb)}, \u03b4 = ${pm(p.detuning)} g, \u03bc = ${pm(p.mu)} g, T = ${short(p.temperature.value)} g`;
 }
 
