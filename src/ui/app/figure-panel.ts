@@ -78,6 +78,11 @@ export class FigurePanel extends LitElement {
     this.unlisten = onFigureSizeChange(() => { this.size = loadFigureSize(); });
   }
 
+  override willUpdate(changed: Map<string, unknown>) {
+    // a failed save speaks of the figure it was asked for, not of the next one
+    if (changed.has('figure')) this.failure = '';
+  }
+
   override disconnectedCallback() {
     super.disconnectedCallback();
     this.unlisten?.();
