@@ -239,6 +239,8 @@ export class ArrayPlannerView extends LitElement {
     const rows: Table['rows'] = model ? [
       ['g', model.gMHz, 'MHz'], ['Rb', model.rbUm, 'um'], ['Rb/a', model.rbOverA, ''], ['V1', model.V1, 'g'],
       ['delta', model.delta, 'g'], ['mu', model.mu, 'g'], ['T', model.T, 'g'],
+      ...(tol?.point ? [['sigma Rb/a', tol.point.rbOverA.sigma, ''], ['sigma V1', tol.point.V1.sigma, 'g'], ['sigma delta', tol.point.delta.sigma, 'g'],
+        ['sigma mu', tol.point.mu.sigma, 'g']] as Table['rows'] : []),
       ...(losses?.budget ? lossRows(losses.budget) : []),
     ] : [];
     const p = model ? this.params(model) : null;
