@@ -16,7 +16,7 @@ import { join } from 'node:path';
 import { buildApp, OUTPUT } from './harness/build-app.ts';
 import { serveStatic, type StaticServer } from './harness/static-server.ts';
 import { launchChromium, type Browser } from './harness/launch-chromium.ts';
-import { download, pointAt, waitForScan } from './harness/page-tools.ts';
+import { download, pointAt, runCliLine, waitForScan } from './harness/page-tools.ts';
 
 let server: StaticServer;
 let browser: Browser;
@@ -108,6 +108,15 @@ describe('smaller points (item 19)', () => {
     expect(await page.locator('model-form input[name="rb"]').isDisabled()).toBe(true);
     expect(await text('model-form [data-set-by="rb"]')).toBe('set by the y axis');
     expect(await page.locator('model-form input[name="detuning"]').isDisabled()).toBe(false);
+    // a supersolid point of this grid by the CLI's map of it: the readout there explains the word on hover
+    const csv = (await runCliLine(`npm run -s atlas -- map --lattice chain --interaction vdw --detuning 3 --temperature 0 --max-cell 12 --x mu=-1..2.9x12 --y rb=0.8..2.4x6`))
+      .trim().split('\n').filter((l) => !l.startsWith('#'));
+    const cols = csv[0].split(',');
+    const ss = csv.slice(1).map((l) => l.split(',')).find((r) => r[cols.indexOf('phase')] === 'supersolid');
+    expect(ss, 'the CLI map holds a supersolid point').toBeTruthy();
+    await pointAt(page, 'figure-panel.map', Number(ss![cols.indexOf('mu')]), Number(ss![cols.indexOf('rb')]));
+    await expect.poll(() => page.locator('phase-atlas-view .readout .term[data-term="supersolid"]').count()).toBe(1);
+    expect(await page.locator('phase-atlas-view .readout .term').getAttribute('title')).toMatch(/^Supersolid: both orders at once/);
     await page.locator('phase-atlas-view select[name="axis-y"]').selectOption('detuning');
     await expect.poll(() => page.locator('model-form input[name="detuning"]').isDisabled()).toBe(true);
     expect(await page.locator('model-form input[name="rb"]').isDisabled()).toBe(false);

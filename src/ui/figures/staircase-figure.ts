@@ -13,7 +13,7 @@ import { line } from '../plot/line.ts';
 import { bandsX, type Band } from '../plot/band.ts';
 import { ruleX } from '../plot/rule.ts';
 import { axisX, axisY } from '../plot/axis.ts';
-import { legend } from '../plot/legend.ts';
+import { legend, legendBelowHeight } from '../plot/legend.ts';
 import type { Frame, Mark } from '../plot/frame.ts';
 import { el, esc } from '../plot/svg-markup.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
@@ -101,6 +101,8 @@ export function staircaseFigure(a: StaircaseSeries, b: StaircaseSeries | null, d
   marks.push(plateauLabels(labels(a), false, '#0d3a4f'));
   if (b) marks.push(plateauLabels(labels(b), true, '#6e0b30'));
   marks.push(axisX({ label: 'chemical potential \u03bc (g)' }), axisY({ label: 'density per site', grid: true }));
+  // narrow figures (a phone, a 420 px window) take the legend under the axis and keep the plot's width
+  const narrow = width < 560;
   marks.push(legend([
     { label: `\u03c1, ${a.label}`, swatch: { kind: 'line', stroke: MAIN, width: 2 } },
     { label: `\u27e8n\u27e9, ${a.label}`, swatch: { kind: 'line', stroke: MAIN, width: 1.2, dash: '1 2' } },
@@ -110,8 +112,11 @@ export function staircaseFigure(a: StaircaseSeries, b: StaircaseSeries | null, d
       { label: `\u27e8n\u27e9, ${b.label}`, swatch: { kind: 'line' as const, stroke: SECOND, width: 1.2, dash: '6 3' } },
       { label: `plateau, ${b.label} (strip)`, swatch: { kind: 'fill' as const, fill: 'rgba(179,18,78,0.55)' } },
     ] : []),
-  ], { title: 'Staircase' }));
+  ], narrow ? { below: true } : { title: 'Staircase' }));
   const title = `Staircase \u03c1(\u03bc) and filling, ${all.map((s) => s.label).join(' vs ')}`;
-  const { svg, frame } = renderFigure({ id: 'staircase', width, height, margin: { right: 210 }, x, y, marks, title });
+  const below = narrow ? legendBelowHeight(b ? 6 : 3, width) : 0;
+  const { svg, frame } = renderFigure({
+    id: 'staircase', width, height: height + below, margin: narrow ? { right: 14, bottom: 46 + below } : { right: 210 }, x, y, marks, title,
+  });
   return { svg, frame, name: 'staircase', title };
 }

@@ -26,6 +26,8 @@ const WORDS: [RegExp, string][] = [
   [/\brho\b/g, '\u03c1'],
   [/\bdelta\b/g, '\u03b4'],
   [/\balpha\b/g, '\u03b1'],
+  [/\bkappa\b/g, '\u03ba'],
+  [/\bgamma\b/g, '\u03b3'],
   [/\brmax\b/g, 'the range cut rmax'],
 ];
 

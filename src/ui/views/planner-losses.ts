@@ -6,6 +6,7 @@
 import { html, nothing, type TemplateResult } from 'lit';
 import { type LossBudget, type LossRates, SMALL_LOSS_RATIO } from '../../core/lab/losses.ts';
 import { parseNumber } from '../model/model-inputs.ts';
+import { inPageWords } from '../model/page-words.ts';
 import type { Table } from '../export/table.ts';
 
 export const LOSS_FIELDS = [
@@ -32,7 +33,7 @@ export function lossFields(v: Record<string, string | undefined>, onInput: (key:
       <input id=${id} name=${id} inputmode="decimal" .value=${v[f.key] ?? ''} aria-invalid=${bad ? 'true' : 'false'} aria-describedby="${id}-msg"
         @input=${(e: Event) => onInput(f.key, (e.target as HTMLInputElement).value)}>
       <span class="muted">MHz</span>
-      <div class="msg err" id="${id}-msg" role=${bad ? 'alert' : nothing}>${bad ? err?.message : ''}</div>
+      <div class="msg err" id="${id}-msg" role=${bad ? 'alert' : nothing}>${bad ? inPageWords(err?.message ?? '') : ''}</div>
     </div>`;
   })}`;
 }

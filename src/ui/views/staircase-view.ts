@@ -139,7 +139,7 @@ export class StaircaseView extends LitElement {
         filling: states.map((x) => x.emitterDensity), plateaus: s.result.plateaus,
       };
     }) : [];
-    const w = Math.max(340, Math.min(this.size.width, 1100));
+    const w = Math.max(300, Math.min(this.size.width, 1100));
     const fig = series.length ? staircaseFigure(series[0], series[1] ?? null, v!.series[0].plan.base.delta, w, Math.round(Math.min(480, Math.max(300, w * 0.5)))) : null;
     const pts: Table = {
       columns: ['range', 'mu', 'phase', 'fraction', 'excitationDensity', 'emitterDensity', 'photonDensity', 'cellSize', 'error'],

@@ -22,6 +22,7 @@ describe('inPageWords', () => {
   it('writes symbols for names and leaves numbers and other words alone', () => {
     expect(inPageWords('mu = 2.190909090909091 must be below the detuning 2: for mu >= delta the photon number is unbounded'))
       .toBe('\u03bc = 2.190909090909091 must be below the detuning 2: for \u03bc >= \u03b4 the photon number is unbounded');
+    expect(inPageWords('cavity linewidth kappa must be > 0, got -1')).toBe('cavity linewidth \u03ba must be > 0, got -1');
     // whole words only: "mutual", "summary" and "--unknown-flag" are kept
     expect(inPageWords('mutual summary --unknown-flag')).toBe('mutual summary --unknown-flag');
   });
