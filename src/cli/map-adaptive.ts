@@ -2,9 +2,9 @@
  * How the CLI's `map` is computed: the adaptive map (workers/scans/adaptive-map-scan.ts,
  * docs/certified-maps.md) as one scan over whole rows from the first row not yet written
  * (it delivers a band of rows at a time in point order, so the writer streams it), or the
- * dense scan in windows of segments (map-stream.ts) when asked (--dense), for a shard
- * (shards interleave segments, not bands: a shard is solved densely, same pixels), or for a
- * plan at fixed density. A plan the argument does not certify (T > 0, a temperature axis)
+ * dense scan in windows of segments (map-stream.ts) when asked (--dense) or for a plan at
+ * fixed density. A shard is adaptive too: it refines only the rectangles holding its own
+ * segments and delivers only its pixels (no boundary lines; the scan's note says so). A plan the argument does not certify (T > 0, a temperature axis)
  * is refined without certification (the scan's note says so). The reasons are notes for
  * stderr and the JSON summary (map-summary.ts).
  */
@@ -16,10 +16,9 @@ import type { Engine } from '../../workers/engine.ts';
 import type { WorkerPool } from '../../workers/pool.ts';
 import type { MapScanResult } from '../../workers/protocol.ts';
 import { runScan } from '../../workers/scan-driver.ts';
+import { SHARD_NOTE } from '../../workers/scans/adaptive-map-scan.ts';
 import type { MapSummary } from './map-summary.ts';
 
-/** The note of a sharded map. */
-export const SHARD_NOTE = 'a shard is solved densely (shards interleave row segments, the adaptive map works in bands of 16 rows): same pixels, every pixel solved, no boundary lines; run the map unsharded for those';
 
 /** The note of --dense. */
 export const DENSE_NOTE = 'solved densely on request (--dense): every pixel solved, no boundary lines';
@@ -31,22 +30,25 @@ export interface MapMode {
   notes: string[];
 }
 
-/** The mode of a map: adaptive unless --dense, a shard or a plan that cannot be certified. */
+/** The mode of a map: adaptive unless --dense or at fixed density (a shard too). */
 export function mapMode(plan: ScanPlan, shard: Shard | undefined, dense: boolean): MapMode {
   if (dense) return { adaptive: false, notes: [DENSE_NOTE] };
-  if (shard) return { adaptive: false, notes: [SHARD_NOTE] };
   const blocker = certificationBlocker(plan);
-  if (!blocker) return { adaptive: true, notes: [] };
+  const part = shard ? [SHARD_NOTE] : [];
+  if (!blocker) return { adaptive: true, notes: part };
   // a plan that cannot be certified is refined without certification, unless at fixed density
-  return uniformRefinable(plan) ? { adaptive: true, notes: [uniformNote(blocker)] } : { adaptive: false, notes: [blocker] };
+  return uniformRefinable(plan) ? { adaptive: true, notes: [uniformNote(blocker), ...part] } : { adaptive: false, notes: [blocker] };
 }
 
-/** Run the adaptive map from row fromRow on, points to onItem in point order (keepPoints false). */
+/**
+ * Run the adaptive map (or a shard's pixels of it) from row fromRow on, points to onItem
+ * in point order (keepPoints false).
+ */
 export function runAdaptiveRows(
   pool: WorkerPool<Engine>, plan: ScanPlan, fromRow: number, continuation: boolean,
-  o: { signal: AbortSignal; pointBudgetMs?: number; onItem: (pt: ScanPoint) => void },
+  o: { signal: AbortSignal; pointBudgetMs?: number; onItem: (pt: ScanPoint) => void }, shard?: Shard,
 ): Promise<MapScanResult> {
-  return runScan(pool, { kind: 'map', plan, fromRow, continuation }, { ...o, keepPoints: false });
+  return runScan(pool, { kind: 'map', plan, fromRow, continuation, ...(shard ? { shard } : {}) }, { ...o, keepPoints: false });
 }
 
 /**

@@ -10,7 +10,7 @@
  * computes only the missing points: a segment cut in the middle is computed again from its
  * start (continuation makes a point depend on the points before it in its segment) and its
  * points already written are dropped, so the file is byte for byte the uninterrupted one.
- * The adaptive map (map-adaptive.ts; not a shard, not --dense) is one scan over whole rows
+ * The adaptive map (map-adaptive.ts; not --dense) is one scan over whole rows (a shard's: its own pixels)
  * instead of windows: it hands back a band of 16 rows at a time in point order, and its
  * figures and boundary lines close the JSON (map-summary.ts) and go to --boundaries.
  */
@@ -89,7 +89,7 @@ export async function streamMap(io: CliIo, a: ParsedArgs, job: MapJob, target: O
   // an adaptive map whose summary is written (JSON, --boundaries) is computed again from its
   // first row when resumed, rows already on disk dropped, so its lines and figures are the
   // uninterrupted run's (and the file its bytes); a CSV alone continues from its row
-  const whole = job.mode.adaptive && (layout.format === 'json' || job.boundaries !== undefined);
+  const whole = job.mode.adaptive && !job.shard && (layout.format === 'json' || job.boundaries !== undefined);
   if (whole && resumed > 0) io.stderr(`${job.label}: note: resuming an adaptive map with its boundary lines: the ${resumed} points on disk are computed again (not written again) so that the lines and solves cover the whole map\n`);
   if (cursor.done && !whole) {
     summarise(null, total, 0);
@@ -120,7 +120,7 @@ export async function streamMap(io: CliIo, a: ParsedArgs, job: MapJob, target: O
   const run = await interruptible(io, workers, async (pool, signal) => {
     if (job.mode.adaptive) {
       // one scan over whole rows: it hands back a band of rows at a time in point order
-      adaptive = await runAdaptiveRows(pool, job.plan, fromRow, job.continuation, { signal, pointBudgetMs: budget, onItem: accept });
+      adaptive = await runAdaptiveRows(pool, job.plan, fromRow, job.continuation, { signal, pointBudgetMs: budget, onItem: accept }, job.shard);
       return;
     }
     const stop = new AbortController();

@@ -85,7 +85,7 @@ describe('map: adaptive by default, --dense, solves, boundaries', () => {
     expect(doc.notes[0]).toMatch(/^at T > 0/);
     expect(doc.solves).toEqual({ total: 12, pixels: 12, boundaries: 0 });
     const shard = await cli([...line, '--json', '--shard', '1/2']);
-    expect(shard.err).toMatch(/map 1\/2: note: a shard is solved densely/);
+    expect(shard.err).toMatch(/map 1\/2: note: a shard refines only the rectangles that hold its own segments/);
     // a part keeps the bare closing line that merge reads
     expect(shard.out.trimEnd().split('\n').slice(-1)[0]).toBe('],"complete":true}');
     expect(shard.out).not.toMatch(/"solves"/);

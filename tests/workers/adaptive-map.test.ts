@@ -86,6 +86,20 @@ describe('adaptive map = dense map, pixel for pixel', () => {
     expect(adaptive.notes?.[0]).toMatch(/not certified \(at T > 0/);
   }, 300_000);
 
+  it('shards: each adaptive (fewer solves than its pixels), merged they equal the dense map pixel for pixel', async () => {
+    const dense = await runScan(pool, { kind: 'map', plan: vdw, dense: true });
+    const parts = [];
+    for (let k = 1; k <= 2; k++) {
+      const part = await runScan(pool, { kind: 'map', plan: vdw, shard: { k, n: 2 } });
+      expect(part.points.length).toBe(400);
+      expect(part.solves as number).toBeLessThan(part.points.length);
+      parts.push(...part.points);
+    }
+    parts.sort((a, b) => a.index - b.index);
+    const h = mapHeader(vdw);
+    expect(mapCsv(h, parts)).toBe(mapCsv(h, dense.points));
+  }, 300_000);
+
   it('random off-grid points inside certified regions carry the certified crystal', async () => {
     const { adaptive } = await both({ ...vdw, x: parseAxis('mu=-1:3.9:24', 'x'), y: parseAxis('rb=1:2:12', 'y') });
     // neighbouring pixels with one crystal: the cell between them is certified by the argument

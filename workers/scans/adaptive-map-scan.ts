@@ -50,9 +50,12 @@ export async function runMap(pool: WorkerPool<Engine>, req: MapScanRequest, o: S
     return { ...r, solves: solved, ...(note ? { notes: [note] } : {}) };
   };
   if (req.dense) return dense();
-  if (req.shard) return dense('an adaptive map is not sharded yet: this part was solved densely (same pixels)');
   let rows: number[] | undefined;
-  if (req.segments) {
+  if (req.shard) {
+    // a shard: the rows holding its segments (from fromRow on); only its own pixels are refined and filled
+    const from = req.fromRow ?? 0;
+    rows = [...new Set(shardSegments(nx, ny, req.shard).filter((s) => s.iy >= from).map((s) => s.iy))].sort((a, b) => a - b);
+  } else if (req.segments) {
     const count = new Map<number, number>();
     for (const s of req.segments) count.set(s.iy, (count.get(s.iy) ?? 0) + s.length);
     if ([...count.values()].some((c) => c !== nx)) return dense('the segments asked for are not whole rows: solved densely (same pixels)');
@@ -66,7 +69,7 @@ export async function runMap(pool: WorkerPool<Engine>, req: MapScanRequest, o: S
   if (blocker) {
     if (!uniformRefinable(req.plan)) return dense(blocker);
     const r = await runAdaptive(pool, req, o, all, 'uniform');
-    return { ...r, notes: [uniformNote(blocker)] };
+    return { ...r, notes: [uniformNote(blocker), ...(r.notes ?? [])] };
   }
   return runAdaptive(pool, req, o, all, 'certify');
 }
@@ -85,6 +88,9 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
   const continuation = req.continuation ?? true;
   const pointBudget = o.pointBudgetMs ?? DEFAULT_POINT_BUDGET_MS;
   const want = new Set(wanted);
+  // a shard's own segments by row (undefined: every pixel of the wanted rows is produced)
+  const own = req.shard ? ownSegments(nx, ny, req.shard, want) : undefined;
+  const needed = (r: Rect) => !own || own.hits(r);
   const cols = coarseColumns(nx), crows = coarseRows(ny);
   let bands: Band[] = [];
   for (let j = 0; j < crows.length; j++) {
@@ -104,7 +110,7 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
   const crossings: Crossing[] = [];
   const edgeRows = new Map<number, Array<SolveResult | undefined>>();
   const located = locateState(plan);
-  let solves = 0, cellSolves = 0, boundarySolves = 0, remaining = bands.reduce((a, b) => a + b.rows.length * nx, 0);
+  let solves = 0, cellSolves = 0, boundarySolves = 0, remaining = own ? own.pixels : bands.reduce((a, b) => a + b.rows.length * nx, 0);
   const progress = () => o.onProgress?.(solves, solves + remaining);
 
   const solveCold = async (pts: Array<{ p: ModelParams; seed: number; what: string }>): Promise<ColdOutcome[]> => {
@@ -132,6 +138,7 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
     const uniform = new Map<number, RegionCell>();
     let rects = mode === 'uniform' ? subdivide(bandRects(cols, band.y0, band.y1), UNIFORM_STEP) : bandRects(cols, band.y0, band.y1);
     for (let level = 0; rects.length && level < 64; level++) {
+      rects = rects.filter(needed);
       const need = new Map<number, [number, number]>();
       for (const r of rects) for (const [x, y] of corners(r)) if (!known.has(y * nx + x)) need.set(y * nx + x, [x, y]);
       const list = [...need.values()];
@@ -157,7 +164,10 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
     const segs: Array<{ iy: number; ix0: number; length: number }> = [];
     for (const iy of band.rows) {
       let ix0 = 0;
-      for (const length of rowCuts(nx)) { segs.push({ iy, ix0, length }); ix0 += length; }
+      for (const length of rowCuts(nx)) {
+        if (!own || own.has(iy, ix0)) segs.push({ iy, ix0, length });
+        ix0 += length;
+      }
     }
     const bandPoints: ScanPoint[] = [];
     await pool.run(segs, async (remote, seg) => {
@@ -239,7 +249,8 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
     rowStates.clear();
     bandPoints.length = 0;
     const before = solves;
-    crossings.push(...await locate(edges, plan, located, solveCold));
+    // a shard locates no boundary lines (its rows are cut into other shards' segments)
+    if (!own) crossings.push(...await locate(edges, plan, located, solveCold));
     boundarySolves += solves - before;
     // corners inside the band are done with; in row order so is every corner above its
     // closing row y1, where the next band starts (memory: one coarse row of corners, not
@@ -255,7 +266,34 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
   ];
   const boundaries = chainBoundaries(crossings, nx, ny, centre);
   o.onProgress?.(solves, solves);
-  return { points, solves, boundarySolves, boundaries, ...(mode === 'uniform' ? { cellSolves } : {}) };
+  return {
+    points, solves, boundarySolves, boundaries, ...(mode === 'uniform' ? { cellSolves } : {}),
+    ...(own ? { notes: [SHARD_NOTE] } : {}),
+  };
+}
+
+/** The note of an adaptive shard. */
+export const SHARD_NOTE = 'a shard refines only the rectangles that hold its own segments and locates no boundary lines (same pixels); run the map unsharded for the lines';
+
+/** A shard's own pixels: its segments, by row, among the wanted rows. */
+function ownSegments(nx: number, ny: number, shard: { k: number; n: number }, want: ReadonlySet<number>) {
+  const byRow = new Map<number, Array<[number, number]>>();
+  let pixels = 0;
+  for (const s of shardSegments(nx, ny, shard)) {
+    if (!want.has(s.iy)) continue;
+    byRow.set(s.iy, [...(byRow.get(s.iy) ?? []), [s.ix0, s.ix0 + s.length - 1]]);
+    pixels += s.length;
+  }
+  return {
+    pixels,
+    /** Whether the segment of row iy starting at ix0 is the shard's. */
+    has: (iy: number, ix0: number) => (byRow.get(iy) ?? []).some(([a]) => a === ix0),
+    /** Whether the closed rectangle holds a pixel of the shard. */
+    hits: (r: Rect) => {
+      for (let y = r.y0; y <= r.y1; y++) for (const [a, b] of byRow.get(y) ?? []) if (a <= r.x1 && b >= r.x0) return true;
+      return false;
+    },
+  };
 }
 
 /** An edge between neighbouring pixels, along one axis. */

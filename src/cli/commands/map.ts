@@ -23,7 +23,7 @@ const AXIS_HELP = 'rb, v1, mu, density, detuning or temperature';
 const MAP_FLAGS: readonly FlagSpec[] = [
   { name: 'x', kind: 'string', value: CLI_AXIS_FORM, help: `first axis (${AXIS_HELP}): N points from START to STOP, both ends included (mu=-1..3.9x200; the old start:stop:count is still read, with a note); continuation runs along it` },
   { name: 'y', kind: 'string', value: CLI_AXIS_FORM, help: 'second axis (optional: one row)' },
-  { name: 'shard', kind: 'string', value: 'k/n', help: 'compute only the k-th of n interleaved parts (join them with merge); a shard is solved densely' },
+  { name: 'shard', kind: 'string', value: 'k/n', help: 'compute only the k-th of n interleaved parts (join them with merge); a shard is adaptive over its own segments, without boundary lines' },
   { name: 'dense', kind: 'bool', help: 'solve every pixel (the check of the adaptive map: same pixels, more solves, no boundary lines)' },
   { name: 'boundaries', kind: 'string', value: 'file', help: 'write the boundary lines as CSV (one row a vertex: line, vertex, phase_a, phase_b, firstOrder, densityJump, axis values)', writes: true },
   OUT_FLAG,
@@ -52,7 +52,7 @@ export const mapCommand: Command = {
     'A point that cannot be solved (or runs past --point-budget) is written with its reason in the\n' +
     'error column (empty for solved points) and the other points are still computed.\n' +
     'JSON ends with solves (points really solved: total, pixels, boundaries), notes (why a map\n' +
-    'is not adaptive: --dense, a shard, T > 0, a temperature or density axis) and the boundary\n' +
+    'is not adaptive or not certified: --dense, T > 0, a temperature or density axis; a shard) and the boundary\n' +
     'lines {phases, points, firstOrder, densityJump}; --boundaries file writes the lines as CSV.',
   flags: [...MAP_FLAGS, ...MODEL_FLAGS, ...SCAN_FLAGS, ...OUTPUT_FLAGS, HELP_FLAG],
   examples: [
@@ -81,7 +81,7 @@ export const mapCommand: Command = {
     // rows are written as they finish, in point order; --resume continues a part (map-stream.ts)
     const mode = mapMode(plan, shard, bool(args, 'dense'));
     const boundaries = str(args, 'boundaries');
-    if (boundaries && !mode.adaptive) throw new InputError(`--boundaries: this map locates no boundary lines (${mode.notes[0]})`, 'boundaries');
+    if (boundaries && (!mode.adaptive || shard)) throw new InputError(`--boundaries: this map locates no boundary lines (${shard ? 'a shard locates none: run the map unsharded' : mode.notes[0]})`, 'boundaries');
     const job = {
       plan, shard, header, format: bool(args, 'json') ? 'json' as const : 'csv' as const, continuation: !bool(args, 'cold'),
       label: shard ? `map ${shard.k}/${shard.n}` : 'map', mode, ...(boundaries ? { boundaries } : {}),
