@@ -4,8 +4,8 @@
  * with progress, timing and cancellation. A new run aborts the old one at once; the old
  * map stays on screen until the new run delivers its first points. Points arrive in blocks
  * (an adaptive map's band at a time, from the coordinating worker); host updates are
- * throttled and aligned to animation frames (at most one a frame), so rendering never
- * floods the main thread while results stream in.
+ * throttled (at least throttleMs apart, so at most one a frame), so rendering never floods
+ * the main thread while results stream in.
  * Grids are kept in the page's map cache (map-cache.ts) by request: a finished one comes
  * back without a scan, a part-done one (its view left the page) is completed by a new run
  * that keeps the points it has. Cancel stops; only resume() or new inputs start again.
@@ -240,17 +240,16 @@ export class MapScanController implements ReactiveController {
     this.renderCost = this.renderCost === 0 ? ms : 0.7 * this.renderCost + 0.3 * ms;
   }
 
-  private frame: number | null = null;
-
-  /** A redraw after the throttle delay, in the next animation frame (the first points of a run at once). */
+  /**
+   * A redraw after the throttle delay (the first points of a run at once). Redraws are at
+   * least throttleMs apart, so never more than one a frame; they run in a task of their own,
+   * not in an animation-frame callback, so the browser's layout and paint of the new figure
+   * come in the next frame's task instead of lengthening this one.
+   */
   private schedule() {
-    if (this.timer !== null || this.frame !== null) return;
+    if (this.timer !== null) return;
     const delay = this.painted ? Math.min(1500, Math.max(this.throttleMs, 10 * this.renderCost)) : 0;
-    this.timer = setTimeout(() => {
-      this.timer = null;
-      if (typeof requestAnimationFrame !== 'function') { this.flush(); return; }
-      this.frame = requestAnimationFrame(() => { this.frame = null; this.flush(); });
-    }, delay);
+    this.timer = setTimeout(() => this.flush(), delay);
   }
 
   /** The current run has been drawn once (its first points come without a throttle delay). */
@@ -258,7 +257,6 @@ export class MapScanController implements ReactiveController {
 
   private flush() {
     if (this.timer !== null) { clearTimeout(this.timer); this.timer = null; }
-    if (this.frame !== null) { cancelAnimationFrame(this.frame); this.frame = null; }
     this.painted = true;
     this.host.requestUpdate();
   }
