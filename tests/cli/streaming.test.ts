@@ -150,3 +150,61 @@ describe('backpressure: a stdout that does not drain pauses the map', () => {
     expect(rows()).toBe(2000);
   }, 120_000);
 });
+
+// --resume of staircase and softlines, in this process on parts cut as a killed run leaves
+// them (a torn last line): the uninterrupted run's bytes (common practice, no source:
+// resuming must not change a byte), and a part of another scan refused naming its line.
+describe('staircase and softlines continue a part cut short', () => {
+  const STEP = ['staircase', '--mu=-0.5..3x60', '--interaction', 'nn', '--v1', '1', '--detuning', '50', '--max-cell', '4', '--workers', '2', '--json', '--out', 's.json'];
+  it('staircase JSON: cut inside its 24th point, resumed, the whole document; a table cannot resume', async () => {
+    const whole = await cli(STEP);
+    expect(whole.code).toBe(0);
+    const full = whole.files.get('s.json') as string;
+    const lines = full.split('\n');
+    expect(lines.length).toBe(1 + 60 + 1 + 1);
+    // head, 23 whole points and a torn 24th (it lies in the second segment of the line)
+    const cut = lines.slice(0, 24).join('\n') + '\n' + lines[24].slice(0, 50);
+    const r = await cli([...STEP, '--resume'], new Map([['s.json', cut]]));
+    expect(r.code).toBe(0);
+    expect(r.err).toMatch(/staircase: 60 of 60 points in .*\(23 read back\)/);
+    expect(r.files.get('s.json') === full).toBe(true);
+    // an interrupted part (its closing line says not complete) continues the same way
+    const stopped = lines.slice(0, 31).join('\n') + '\n],"plateaus":null,"complete":false}\n';
+    expect((await cli([...STEP, '--resume'], new Map([['s.json', stopped]]))).files.get('s.json') === full).toBe(true);
+    const other = await cli([...STEP.map((a) => (a === '--mu=-0.5..3x60' ? '--mu=-0.5..3x61' : a)), '--resume'], new Map([['s.json', cut]]));
+    expect(other.code).toBe(2);
+    expect(other.err).toMatch(/s\.json line 3 does not continue this scan \(mu -0\.44\d*, expected -0\.4416/);
+    const table = await cli([...STEP.filter((a) => a !== '--json'), '--resume']);
+    expect(table.code).toBe(2);
+    expect(table.err).toMatch(/staircase --resume needs --json/);
+  }, 120_000);
+
+  const LINES = ['softlines', '--x', 'mu=-1..0.9x5', '--y', 'rb=0.8..1.5x5', '--detuning', '1', '--ranges', 'nn,vdw:1,vdw:2', '--phases', 'condensate,normal', '--workers', '2', '--out', 'l'];
+  it('softlines CSV cut inside a task and JSON cut inside a line, resumed: the whole files; other ranges refused', async () => {
+    const whole = await cli(LINES);
+    expect(whole.code).toBe(0);
+    const full = whole.files.get('l') as string;
+    const rows = full.split('\n');
+    // the rows of the third task (range vdw:1, phase condensate) start where its line 0 point 0 is
+    const third = rows.findIndex((r) => r.startsWith('vdw:1,condensate,0,0,'));
+    expect(third).toBeGreaterThan(2);
+    const cut = rows.slice(0, third + 2).join('\n') + '\n' + rows[third + 2].slice(0, 12);
+    const r = await cli([...LINES, '--resume'], new Map([['l', cut]]));
+    expect(r.code).toBe(0);
+    expect(r.err).toMatch(/softlines: 6 of 6 lines in .*\(2 read back\)/); // the third task may be cut short: traced again
+    expect(r.files.get('l') === full).toBe(true);
+    const bad = await cli([...LINES.map((a) => (a === 'nn,vdw:1,vdw:2' ? 'vdw:1,nn,vdw:2' : a)), '--resume'], new Map([['l', cut]]));
+    expect(bad.code).toBe(2);
+    // a CSV part names no parameters: its rows are checked to follow the tasks in order
+    expect(bad.err).toMatch(/^atlas: l line \d+ does not continue this scan \(range vdw:1, phase condensate, line 0, point 0 does not follow the tasks in order\)/);
+    const map = await cli([...LINES, '--resume'], new Map([['l', 'ix,iy,mu,rb,phase\n0,0,-1,0.8,empty\n']]));
+    expect(map.err).toMatch(/^atlas: l line 1 does not continue this scan \(its header differs from this scan's: 'ix,iy,mu,rb,phase' against 'range,phase,line,point,x,y,k,kind,jump'\)/);
+    const js = await cli([...LINES, '--json']);
+    const doc = js.files.get('l') as string;
+    const jl = doc.split('\n');
+    expect(jl.length).toBe(1 + 6 + 1 + 1);
+    const jr = await cli([...LINES, '--json', '--resume'], new Map([['l', jl.slice(0, 4).join('\n') + '\n' + jl[4].slice(0, 30)]]));
+    expect(jr.err).toMatch(/\(3 read back\)/);
+    expect(jr.files.get('l') === doc).toBe(true);
+  }, 120_000);
+});

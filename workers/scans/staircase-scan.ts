@@ -22,6 +22,15 @@ const SOLVES_PER_PLATEAU = 100;
 /** Run the line, find its plateaus and (unless gridEdges) bisect their edges. */
 export async function runStaircase(pool: WorkerPool<Engine>, req: StaircaseRequest, o: ScanOptions<ScanPoint> = {}): Promise<StaircaseResult> {
   const { points } = await runMapScan(pool, { kind: 'map', plan: req.plan }, o);
+  return staircasePlateaus(pool, req, points, o);
+}
+
+/**
+ * The plateaus of a solved line (its points in mu order) and their bisected edges: the
+ * second half of runStaircase, also run on a line whose points were partly read back
+ * from disk (the CLI's --resume).
+ */
+export async function staircasePlateaus(pool: WorkerPool<Engine>, req: StaircaseRequest, points: ScanPoint[], o: ScanOptions<ScanPoint> = {}): Promise<StaircaseResult> {
   const states = points.map((p) => p.state).filter((s): s is SolveResult => s !== undefined);
   const maxCell = req.plan.base.maxCell;
   const found = findPlateaus(states, maxCell);

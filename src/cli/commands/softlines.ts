@@ -16,7 +16,7 @@ import { MODEL_FLAGS, modelFromArgs } from '../model-flags.ts';
 import { SCAN_FLAGS } from '../scan-run.ts';
 import { streamSoftlines } from '../softlines-stream.ts';
 import { OUTPUT_FLAGS } from './solve.ts';
-import { OUT_FLAG, streamOutput } from './output.ts';
+import { OUT_FLAG, RESUME_FLAG, streamOutput } from './output.ts';
 
 export { softlinesCsv } from '../softlines-stream.ts';
 
@@ -29,6 +29,7 @@ const FLAGS: readonly FlagSpec[] = [
   { name: 'phases', kind: 'string', value: 'list', def: 'condensate,normal', help: 'phases followed: condensate (uniform), normal (uniform, no photon), crystal:1,0,... (1D pattern)' },
   { name: 'tol', kind: 'number', value: 'tol', def: '1e-3', help: 'accuracy of the lines as a fraction of each axis span' },
   OUT_FLAG,
+  RESUME_FLAG,
 ];
 
 export const softlinesCommand: Command = {
@@ -44,7 +45,8 @@ export const softlinesCommand: Command = {
     'lines followed by continuation to --tol. Ranges share the strength of --rb (or --v1): vdw and\n' +
     'dipolar take Rb with V(Rb) = 2, nn takes V1 (or 2 Rb^6, the vdw value at r = 1). Prints CSV\n' +
     'rows range,phase,line,point,x,y,k (kx,ky in 2D),kind,jump or JSON with --json, each range and phase\n' +
-    'written as soon as it and those before it are traced.',
+    'written as soon as it and those before it are traced; --resume continues a part left by Ctrl-C,\n' +
+    'SIGTERM or a killed run, tracing only the ranges and phases not finished.',
   flags: [...FLAGS, ...MODEL_FLAGS, ...SCAN_FLAGS.filter((f) => f.name !== 'cold'), ...OUTPUT_FLAGS, HELP_FLAG],
   examples: [
     'softlines --x mu=-1..0.9x9 --y rb=0.8..1.5x9 --detuning 1 --ranges nn,vdw:2,vdw:inf,dipolar --phases condensate',
@@ -67,7 +69,7 @@ export const softlinesCommand: Command = {
     for (const range of ranges) for (const phase of followed) tasks.push({ base: point, x, y, range, phase, tol });
     // each task's lines are written as it and those before it finish (softlines-stream.ts)
     const job = { tasks, base, x, y, tol, json: bool(args, 'json') };
-    return streamOutput(io, args, (target) => streamSoftlines(io, args, job, target), { resumable: false, unit: 'lines' });
+    return streamOutput(io, args, (target) => streamSoftlines(io, args, job, target), { unit: 'lines' });
   },
 };
 

@@ -14,13 +14,13 @@ import { MODEL_FLAGS, modelFromArgs, seedFromArgs } from '../model-flags.ts';
 import { SCAN_FLAGS, validatePlan } from '../scan-run.ts';
 import { streamStaircase } from '../staircase-stream.ts';
 import { OUTPUT_FLAGS } from './solve.ts';
-import { OUT_FLAG, streamOutput } from './output.ts';
+import { OUT_FLAG, RESUME_FLAG, streamOutput } from './output.ts';
 
 const STAIRCASE_FLAGS: readonly FlagSpec[] = [
   ...MODEL_FLAGS.filter((f) => f.name !== 'mu' && f.name !== 'density'),
   { name: 'mu', kind: 'string', value: CLI_RANGE_FORM, help: 'the chemical potentials scanned (required): N points from START to STOP, both ends included (-0.5..2.5x400; the old start:stop:count is still read, with a note)' },
   { name: 'grid-edges', kind: 'bool', help: 'report plateau edges at the grid points (skip the bisection)' },
-  OUT_FLAG, ...SCAN_FLAGS, ...OUTPUT_FLAGS, HELP_FLAG,
+  OUT_FLAG, RESUME_FLAG, ...SCAN_FLAGS, ...OUTPUT_FLAGS, HELP_FLAG,
 ];
 
 export const staircaseCommand: Command = {
@@ -34,7 +34,8 @@ export const staircaseCommand: Command = {
     `edges muLow, muHigh (bisected to ${EDGE_TOL} unless --grid-edges) and width. Empty and filled\n` +
     'appear as 0/1 and 1/1; "open" marks an edge at the end of the scan. --json prints\n' +
     '{ "params": ..., "points": [...], "plateaus": [...], "complete": true } with every scan state (a failed\n' +
-    'point as { mu, error }), streamed one point a line in mu order as the scan finishes them.',
+    'point as { mu, error }), streamed one point a line in mu order as the scan finishes them;\n' +
+    '--resume continues such a part left by Ctrl-C, SIGTERM or a killed run (--json only).',
   flags: STAIRCASE_FLAGS,
   examples: [
     'staircase --mu=-0.5..2.5x400 --rb 1.6 --detuning 20',
@@ -48,8 +49,10 @@ export const staircaseCommand: Command = {
     const base = modelFromArgs(rest, ['mu']);
     const plan: ScanPlan = { base, x: { name: 'mu', ...range, values: rangeValues(range) }, seed: seedFromArgs(args) };
     validatePlan(plan);
+    // the table is written at the end: only a JSON part has points on disk to continue
+    if (bool(args, 'resume') && !bool(args, 'json')) throw new InputError('staircase --resume needs --json (the plateau table is written only at the end: there is nothing to continue)', 'resume');
     const gridEdges = bool(args, 'grid-edges');
     // points stream in mu order, the plateaus close the output (staircase-stream.ts)
-    return streamOutput(io, args, (target) => streamStaircase(io, args, plan, gridEdges, bool(args, 'json'), target), { resumable: false });
+    return streamOutput(io, args, (target) => streamStaircase(io, args, plan, gridEdges, bool(args, 'json'), target));
   },
 };
