@@ -19,6 +19,11 @@ const FLAGS: Record<string, string> = {
 const WORDS: [RegExp, string][] = [
   [/\bthe rb axis\b/g, 'the blockade-radius (Rb) axis'],
   [/\bthe v1 axis\b/g, 'the V1 axis'],
+  [/\brb\b/g, 'Rb'],
+  [/\bv([012])\b/g, 'V$1'],
+  [/\brc\b/g, 'Rc'],
+  [/\bmax-cell\b/g, 'Mmax'],
+  [/^range must/, 'the range cut must'],
   [/\bvdw\b/g, 'van der Waals'],
   [/\bsoftcore\b/g, 'soft core'],
   [/\bnn\b/g, 'nearest-neighbour'],

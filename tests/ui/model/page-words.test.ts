@@ -23,6 +23,11 @@ describe('inPageWords', () => {
     expect(inPageWords('mu = 2.190909090909091 must be below the detuning 2: for mu >= delta the photon number is unbounded'))
       .toBe('\u03bc = 2.190909090909091 must be below the detuning 2: for \u03bc >= \u03b4 the photon number is unbounded');
     expect(inPageWords('cavity linewidth kappa must be > 0, got -1')).toBe('cavity linewidth \u03ba must be > 0, got -1');
+    // the form's entries by the names the form shows
+    expect(inPageWords("rb must be a finite number, got ''")).toBe("Rb must be a finite number, got ''");
+    expect(inPageWords('max-cell must be an integer 1..32 on the chain lattice, got 0')).toBe('Mmax must be an integer 1..32 on the chain lattice, got 0');
+    expect(inPageWords('range must be > 0 (or inf), got -1')).toBe('the range cut must be > 0 (or inf), got -1');
+    expect(inPageWords("v1 must be a finite number, got 'x'")).toBe("V1 must be a finite number, got 'x'");
     // whole words only: "mutual", "summary" and "--unknown-flag" are kept
     expect(inPageWords('mutual summary --unknown-flag')).toBe('mutual summary --unknown-flag');
   });
