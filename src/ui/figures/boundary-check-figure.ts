@@ -8,9 +8,10 @@ import type { QmcScanPoint } from '../../../workers/protocol.ts';
 import type { BinderCrossing } from '../../core/qmc/binder-crossing.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
 import { seriesFigure, type Reference, type Series } from './series-figure.ts';
+import { SERIES } from '../plot/house-style.ts';
 
-/** Size colours (colour-blind safe sequence). */
-const COLOURS = ['#165a78', '#c46a00', '#5a2ca0', '#0c6e4f', '#b3261e', '#4d5563'];
+/** Size colours: the house series palette (colour-blind safe, tests/ui/plot/palette-vision.test.ts). */
+const COLOURS = SERIES;
 
 export interface BinderFigureInput {
   points: readonly QmcScanPoint[];
@@ -33,7 +34,7 @@ export function binderFigure(o: BinderFigureInput): RenderedFigure {
   });
   const refs: Reference[] = [
     ...o.crossings.map((c) => ({ axis: 'x' as const, value: c.at, label: `QMC L ${c.sizes.join('/')}: ${+c.at.toPrecision(4)}\u00b1${+c.error.toPrecision(2)}`, stroke: '#111111' })),
-    ...o.meanField.map((x) => ({ axis: 'x' as const, value: x, label: `mean field: ${+x.toPrecision(4)}`, stroke: '#b3261e', dash: '2 3' })),
+    ...o.meanField.map((x) => ({ axis: 'x' as const, value: x, label: `mean field: ${+x.toPrecision(4)}`, stroke: SERIES[3], dash: '2 3' })),
   ];
   return seriesFigure({
     id: 'binder', name: 'boundary-check-binder', title: 'Binder cumulant U = 1 \u2212 \u27e8m\u2074\u27e9/3\u27e8m\u00b2\u27e9\u00b2 along the checked line, by cluster size',

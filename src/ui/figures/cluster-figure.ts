@@ -18,8 +18,8 @@ export function clusterFigure(positions: ArrayLike<number>, densities: number[] 
   const y: [number, number] = [Math.min(...ys) - pad, Math.max(...ys) + pad];
   let nearest = Infinity;
   for (let i = 0; i < N; i++) for (let j = i + 1; j < N; j++) nearest = Math.min(nearest, Math.hypot(xs[i] - xs[j], ys[i] - ys[j]));
-  const span = Math.max(x[1] - x[0], (y[1] - y[0]) * ((width - 200) / Math.max(1, height - 62)));
-  const pxPerA = (width - 200) / span;
+  const span = Math.max(x[1] - x[0], (y[1] - y[0]) * ((width - 76) / Math.max(1, height - 100)));
+  const pxPerA = (width - 76) / span;
   const r = Math.max(2.5, Math.min(13, 0.38 * (Number.isFinite(nearest) ? nearest : 1) * pxPerA));
   const list = xs.map((px, i) => ({
     x: px, y: ys[i], r, fill: densities ? densityGrey(densities[i]) : '#ffffff', stroke: '#3b4350', strokeWidth: 1,
@@ -27,7 +27,7 @@ export function clusterFigure(positions: ArrayLike<number>, densities: number[] 
   }));
   const title = `${periodic ? 'Periodic cluster' : 'Array'} of ${N} sites${densities ? ', shaded by <n_i>' : ''}`;
   const { svg, frame } = renderFigure({
-    id: 'cluster', width, height, margin: { right: 190, left: 52 }, x, y, equalAspect: true, title,
+    id: 'cluster', width, height, margin: { right: 24, left: 52 }, x, y, equalAspect: true, title,
     marks: [dots(list), axisX({ label: 'x (a)' }), axisY({ label: 'y (a)' }), legend([
       { label: '\u27e8n\u27e9 = 0', swatch: { kind: 'dot', fill: densityGrey(0) } },
       { label: '\u27e8n\u27e9 = 0.5', swatch: { kind: 'dot', fill: densityGrey(0.5) } },

@@ -14,11 +14,12 @@ import { dots, type Dot } from '../plot/dot.ts';
 import { line } from '../plot/line.ts';
 import { axisX, axisY } from '../plot/axis.ts';
 import { legend } from '../plot/legend.ts';
+import { SERIES } from '../plot/house-style.ts';
 import type { Frame, Mark } from '../plot/frame.ts';
 import { el } from '../plot/svg-markup.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
 
-const COHERENCE = '#c46a00';
+const COHERENCE = SERIES[1];
 
 /** Grey of density m: lightness 100% at m = 0 to 14% at m = 1. */
 export function densityGrey(m: number): string {
@@ -78,7 +79,7 @@ export function patternFigure(name: LatticeName, st: MeanFieldState, width: numb
   const xs = sites.map((p) => p.x), ys = sites.map((p) => p.y);
   const x0 = Math.min(...xs) - 0.7, x1 = Math.max(...xs) + 0.7;
   const y0 = Math.min(...ys) - (l.dim === 1 ? 1.2 : 0.7), y1 = Math.max(...ys) + (l.dim === 1 ? 1.2 : 0.7);
-  const frameW = width - 200, frameH = height - 62;
+  const frameW = width - 76, frameH = height - 100;
   const pxPerA = Math.min(frameW / (x1 - x0), frameH / (y1 - y0));
   const r = Math.max(3, Math.min(14, pxPerA * 0.36));
   const cmax = Math.max(1e-12, ...st.sublatticeCoherences.map(Math.abs));
@@ -99,19 +100,19 @@ export function patternFigure(name: LatticeName, st: MeanFieldState, width: numb
   const cy = l.dim === 1 ? [-0.6, -0.6, 0.6, 0.6, -0.6] : [0, A1[1], A1[1] + A2[1], A2[1], 0].map((v) => v + oy);
   const gradientId = 'pattern-density';
   const marks = [
-    line(cx, cy, { stroke: '#165a78', width: 1.5, dash: '5 3' }),
+    line(cx, cy, { stroke: SERIES[0], width: 1.5, dash: '5 3' }),
     dots(list),
     axisX({ label: 'x (lattice spacings a)' }),
     axisY({ label: 'y (a)' }),
     densityBar(gradientId),
     legend([
       { label: 'coherence |\u27e8\u03c3x\u27e9|', swatch: { kind: 'dot', fill: '#ffffff', stroke: COHERENCE } },
-      { label: `supercell (M = ${st.cellSize})`, swatch: { kind: 'line', stroke: '#165a78', dash: '5 3' } },
+      { label: `supercell (M = ${st.cellSize})`, swatch: { kind: 'line', stroke: SERIES[0], dash: '5 3' } },
     ], { top: BAR_BLOCK }),
   ];
   const title = `Sublattice pattern: ${st.phase}${st.fraction ? ' ' + st.fraction : ''}, M = ${st.cellSize}`;
   const { svg, frame } = renderFigure({
-    id: 'pattern', width, height: Math.max(height, 62 + BAR_BLOCK + 50), margin: { right: 190, left: 52 }, x: [x0, x1], y: [y0, y1], equalAspect: true, marks, title,
+    id: 'pattern', width, height: Math.max(height, 62 + BAR_BLOCK + 50), margin: { right: 24, left: 52 }, x: [x0, x1], y: [y0, y1], equalAspect: true, marks, title,
     defs: () => densityGradient(gradientId),
   });
   return { svg, frame, name: 'sublattice-pattern', title };

@@ -14,10 +14,11 @@ import { line } from '../plot/line.ts';
 import { dots } from '../plot/dot.ts';
 import { textLabels } from '../plot/text-label.ts';
 import type { Mark } from '../plot/frame.ts';
-import { phaseFill, phaseLegend, phaseTexture, textureDefs } from '../plot/phase-palette.ts';
+import { densityWaveColour, fractionValue, phaseFill, phaseLegend, phaseTexture, textureDefs } from '../plot/phase-palette.ts';
+import { INK } from '../plot/house-style.ts';
 import { rampColour } from './sequential-ramp.ts';
 import { colourScale } from './colour-scale.ts';
-import { colourBar, colourBarHeight } from '../plot/colour-bar.ts';
+import { colourBar } from '../plot/colour-bar.ts';
 import { regionLabels } from './region-labels.ts';
 import { regionWord } from '../model/phase-words.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
@@ -78,12 +79,15 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
   const at = (i: number, j: number) => cells[j * g.nx + i];
   const key = (i: number, j: number) => keys[j * g.nx + i];
   const present = new Set<PhaseLabel>();
+  /** Density-wave fillings on the map, by value (for the shade scale). */
+  const fillings = new Map<number, string>();
   let coexistence = false;
   const value = (s: SolveResult) => (o.shade === 'photon' ? s.photonDensity : s.excitationDensity);
   const values: number[] = [];
   for (const s of cells) {
     if (!s) continue;
     present.add(s.phase);
+    if (s.phase === 'density-wave' && s.fraction) fillings.set(fractionValue(s.fraction), s.fraction);
     if (s.coexistence) coexistence = true;
     if (o.shade !== 'phase') values.push(value(s));
   }
@@ -110,7 +114,7 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
   }
   // the scan's vector boundaries when it returned them, else the edges between unequal pixels
   const vector = o.boundaries ? boundaryLines(o.boundaries) : null;
-  marks.push(vector ? vector.mark : categoryContour(g, key, { stroke: '#1d2430', width: 1 }));
+  marks.push(vector ? vector.mark : categoryContour(g, key, { stroke: INK, width: 1 }));
   // fraction labels where there is room for the text (about 9 px from the region's edge)
   const cellPx = Math.min((o.width - (o.width < 640 ? 70 : 250)) / g.nx, (o.height - 70) / g.ny);
   const minDepth = Math.max(1, Math.ceil(9 / Math.max(cellPx, 1)));
@@ -157,10 +161,17 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
     entries.push({ label: `soft: ${l.label}`, swatch: { kind: 'line', stroke: l.stroke, dash: l.dash, width: 2.2 } });
   }
   const narrow = o.width < 640;
-  marks.push(legend(entries, bar ? { top: colourBarHeight({}) } : { below: narrow, title: o.shade === 'phase' ? 'Phase' : barTitle }));
+  // the density-wave shades' scale: fill against filling, a tick at each filling on the map
+  if (o.shade === 'phase' && fillings.size && !narrow) {
+    marks.push(colourBar({
+      title: 'Density-wave filling', colour: densityWaveColour, levels: 44, height: 140,
+      ticks: [0, ...fillings.keys(), 1], label: (t) => fillings.get(t) ?? String(t),
+    }));
+  }
+  marks.push(legend(entries, narrow ? { below: true } : { title: o.shade === 'phase' ? 'Phase' : undefined }));
   const extra = narrow ? legendBelowHeight(entries.length, o.width) : 0;
   const { svg, frame } = renderFigure({
-    id, width: o.width, height: o.height + extra, margin: narrow ? { right: 12, bottom: 46 + extra } : { right: 190 },
+    id, width: o.width, height: o.height + extra, margin: narrow ? { right: 12, bottom: 48 + extra } : { right: 150 },
     x: [g.x[0] - hx, g.x[1] + hx], y: [g.y[0] - hy, g.y[1] + hy],
     marks, defs: textureDefs, title: o.title,
   });

@@ -73,7 +73,7 @@ export function seriesFigure(o: SeriesFigureSpec): RenderedFigure {
   }
   marks.push(axisX(o.x), axisY({ grid: true, ...o.y }), legend(entries));
   const { svg, frame } = renderFigure({
-    id: o.id, width: o.width, height: o.height, margin: { right: 200, left: 66 },
+    id: o.id, width: o.width, height: o.height, margin: { right: 24, left: 66 },
     x: o.xDomain ?? extent(xs, 0.02), y: o.yDomain ?? extent(ys), marks, title: o.title,
   });
   return { svg, frame, name: o.name, title: o.title };

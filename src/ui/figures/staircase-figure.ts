@@ -14,6 +14,7 @@ import { bandsX, type Band } from '../plot/band.ts';
 import { ruleX } from '../plot/rule.ts';
 import { axisX, axisY } from '../plot/axis.ts';
 import { legend, legendBelowHeight } from '../plot/legend.ts';
+import { ALERT_INK, SERIES } from '../plot/house-style.ts';
 import type { Frame, Mark } from '../plot/frame.ts';
 import { el, esc } from '../plot/svg-markup.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
@@ -26,7 +27,8 @@ export interface StaircaseSeries {
   plateaus: Plateau[];
 }
 
-const MAIN = '#165a78', SECOND = '#b3124e';
+/** The model's range in the house indigo, the comparison range in ochre (house-style.ts SERIES). */
+const MAIN = SERIES[0], SECOND = SERIES[1];
 /** Rows of plateau labels (over the full height: at the top; on the strip: above it). */
 export const LABEL_ROWS = 3;
 /** Width (px) a label of n characters takes at 11 px (DejaVu Sans averages ~6.6 px a character). */
@@ -92,31 +94,31 @@ export function staircaseFigure(a: StaircaseSeries, b: StaircaseSeries | null, d
   const marks: Mark[] = [
     bandsX(bands(a, MAIN, false)),
     ...(b ? [bandsX(bands(b, SECOND, true))] : []),
-    ruleX(delta, { stroke: '#8a2b0f', dash: '3 3', label: '\u03bc = \u03b4' }),
+    ruleX(delta, { stroke: ALERT_INK, dash: '3 3', label: '\u03bc = \u03b4' }),
   ];
   for (const [s, colour, dash] of [[a, MAIN, undefined], ...(b ? [[b, SECOND, '6 3']] : [])] as [StaircaseSeries, string, string | undefined][]) {
     marks.push(line(s.mu, s.rho, { stroke: colour, width: 2, dash }));
     marks.push(line(s.mu, s.filling, { stroke: colour, width: 1.2, dash: dash ?? '1 2' }));
   }
-  marks.push(plateauLabels(labels(a), false, '#0d3a4f'));
-  if (b) marks.push(plateauLabels(labels(b), true, '#6e0b30'));
+  marks.push(plateauLabels(labels(a), false, '#262a6e'));
+  if (b) marks.push(plateauLabels(labels(b), true, '#6b4500'));
   marks.push(axisX({ label: 'chemical potential \u03bc (g)' }), axisY({ label: 'density per site', grid: true }));
   // narrow figures (a phone, a 420 px window) take the legend under the axis and keep the plot's width
   const narrow = width < 560;
   marks.push(legend([
     { label: `\u03c1, ${a.label}`, swatch: { kind: 'line', stroke: MAIN, width: 2 } },
     { label: `\u27e8n\u27e9, ${a.label}`, swatch: { kind: 'line', stroke: MAIN, width: 1.2, dash: '1 2' } },
-    { label: `plateaus, ${a.label}`, swatch: { kind: 'fill', fill: 'rgba(22,90,120,0.22)' } },
+    { label: `plateaus, ${a.label}`, swatch: { kind: 'fill', fill: 'rgba(58,63,158,0.22)' } },
     ...(b ? [
       { label: `\u03c1, ${b.label}`, swatch: { kind: 'line' as const, stroke: SECOND, width: 2, dash: '6 3' } },
       { label: `\u27e8n\u27e9, ${b.label}`, swatch: { kind: 'line' as const, stroke: SECOND, width: 1.2, dash: '6 3' } },
-      { label: `plateau, ${b.label} (strip)`, swatch: { kind: 'fill' as const, fill: 'rgba(179,18,78,0.55)' } },
+      { label: `plateau, ${b.label} (strip)`, swatch: { kind: 'fill' as const, fill: 'rgba(181,122,16,0.55)' } },
     ] : []),
   ], narrow ? { below: true } : { title: 'Staircase' }));
   const title = `Staircase \u03c1(\u03bc) and filling, ${all.map((s) => s.label).join(' vs ')}`;
   const below = narrow ? legendBelowHeight(b ? 6 : 3, width) : 0;
   const { svg, frame } = renderFigure({
-    id: 'staircase', width, height: height + below, margin: narrow ? { right: 14, bottom: 46 + below } : { right: 210 }, x, y, marks, title,
+    id: 'staircase', width, height: height + below, margin: narrow ? { right: 14, bottom: 48 + below } : { right: 24 }, x, y, marks, title,
   });
   return { svg, frame, name: 'staircase', title };
 }

@@ -4,6 +4,7 @@
  */
 import type { Frame, Mark } from './frame.ts';
 import { el, esc } from './svg-markup.ts';
+import { INK } from './house-style.ts';
 
 export interface Band {
   x0: number; x1: number; fill: string; label?: string; opacity?: number;
@@ -30,8 +31,8 @@ export function bandsX(bands: Band[]): Mark {
         const upright = W < b.label.length * 7 + 4;
         const y = extent(f, b)[0] + 6;
         out += upright
-          ? `<text x="${cx + 4}" y="${y}" transform="rotate(90 ${cx + 4} ${y})" font-size="11" fill="#1d2430" class="band-label">${esc(b.label)}</text>`
-          : el('text', { x: cx, y: y + 10, 'text-anchor': 'middle', 'font-size': 11, fill: '#1d2430', class: 'band-label' }, esc(b.label));
+          ? `<text x="${cx + 4}" y="${y}" transform="rotate(90 ${cx + 4} ${y})" font-size="11" fill="${INK}" class="band-label">${esc(b.label)}</text>`
+          : el('text', { x: cx, y: y + 10, 'text-anchor': 'middle', 'font-size': 11, fill: INK, class: 'band-label' }, esc(b.label));
       }
       return `<g class="bands">${out}</g>`;
     },

@@ -1,10 +1,14 @@
 /**
  * A figure is a frame plus a list of marks, rendered to one standalone SVG document
  * (inline styles only, so the same string is shown on the page and saved as a file).
- * Clipped marks are drawn inside the plot area; the rest (axes, legend) around it.
+ * Clipped marks are drawn inside the plot area; the rest (axes, key) around it. A mark
+ * that asks for room above the plot (the key) gets it: the figure grows by that much.
  */
-import { type Frame, type FrameSpec, type Mark, makeFrame } from './frame.ts';
+import { DEFAULT_MARGIN, type Frame, type FrameSpec, type Mark, makeFrame } from './frame.ts';
 import { el, esc } from './svg-markup.ts';
+import { FIGURE_FONT, INK, PAPER } from './house-style.ts';
+
+export { FIGURE_FONT } from './house-style.ts';
 
 export interface FigureSpec extends FrameSpec {
   marks: Mark[];
@@ -16,11 +20,11 @@ export interface FigureSpec extends FrameSpec {
   description?: string;
 }
 
-export const FIGURE_FONT = 'DejaVu Sans, Verdana, sans-serif';
-
 /** Render the figure to SVG markup. */
 export function renderFigure(spec: FigureSpec): { svg: string; frame: Frame } {
-  const f = makeFrame(spec);
+  const margin = { ...DEFAULT_MARGIN, ...spec.margin };
+  const extra = spec.marks.reduce((n, m) => Math.max(n, m.reserveTop?.(spec.width, margin) ?? 0), 0);
+  const f = makeFrame(extra > 0 ? { ...spec, height: spec.height + extra, margin: { ...margin, top: margin.top + extra } } : spec);
   const clipId = `${f.id}-clip`;
   const { x0, x1, y0, y1 } = f.inner;
   const clipped: string[] = [], free: string[] = [];
@@ -29,12 +33,12 @@ export function renderFigure(spec: FigureSpec): { svg: string; frame: Frame } {
     + (spec.defs ? spec.defs(f) : '');
   const svg = `<svg xmlns="http://www.w3.org/2000/svg"${[
     ` width="${f.width}" height="${f.height}" viewBox="0 0 ${f.width} ${f.height}"`,
-    ` font-family="${FIGURE_FONT}" font-size="12" role="img" aria-labelledby="${f.id}-title"`,
+    ` font-family="${esc(FIGURE_FONT)}" font-size="12" fill="${INK}" role="img" aria-labelledby="${f.id}-title"`,
   ].join('')}>`
     + `<title id="${f.id}-title">${esc(spec.title)}</title>`
     + (spec.description ? `<desc>${esc(spec.description)}</desc>` : '')
     + `<defs>${defs}</defs>`
-    + el('rect', { x: 0, y: 0, width: f.width, height: f.height, fill: '#ffffff' })
+    + el('rect', { x: 0, y: 0, width: f.width, height: f.height, fill: PAPER })
     + `<g clip-path="url(#${clipId})">${clipped.join('')}</g>`
     + free.join('')
     + '</svg>';

@@ -22,6 +22,11 @@ export interface Frame {
 export interface Mark {
   readonly clip: boolean;
   render(f: Frame): string;
+  /**
+   * Extra top margin (px) the mark needs in a figure `width` wide with these margins (a key
+   * above the plot); the figure grows by it, so the plot area keeps its size.
+   */
+  reserveTop?(width: number, margin: Margins): number;
 }
 
 export interface FrameSpec {
@@ -35,7 +40,7 @@ export interface FrameSpec {
   id?: string;
 }
 
-const DEFAULT_MARGIN: Margins = { top: 16, right: 16, bottom: 46, left: 58 };
+export const DEFAULT_MARGIN: Margins = { top: 16, right: 16, bottom: 48, left: 60 };
 
 /** Build the frame: plot area = size minus margins, scales onto it. */
 export function makeFrame(spec: FrameSpec): Frame {

@@ -4,6 +4,7 @@
  */
 import type { Frame, Mark } from './frame.ts';
 import { el, esc } from './svg-markup.ts';
+import { INK } from './house-style.ts';
 
 export interface TextLabel { x: number; y: number; text: string; size?: number; fill?: string; halo?: string }
 
@@ -14,7 +15,7 @@ export function textLabels(list: TextLabel[], className = 'labels'): Mark {
     render(f: Frame) {
       return `<g class="${className}">${list.map((t) => el('text', {
         x: f.x(t.x), y: f.y(t.y) + (t.size ?? 12) * 0.35, 'text-anchor': 'middle', 'font-size': t.size ?? 12,
-        'font-weight': 'bold', fill: t.fill ?? '#11151c', stroke: t.halo ?? '#ffffff', 'stroke-width': 3,
+        'font-weight': 'bold', fill: t.fill ?? INK, stroke: t.halo ?? '#ffffff', 'stroke-width': 3,
         'paint-order': 'stroke', 'stroke-linejoin': 'round',
       }, esc(t.text))).join('')}</g>`;
     },

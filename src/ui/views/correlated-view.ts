@@ -334,14 +334,14 @@ export class CorrelatedView extends LitElement {
   /** The optimisation trace; the first quarter of the steps (far above) is left out of the y range. */
   private traceFigure(trace: VmcResult['trace'], mf: SolveResult | undefined, w: number) {
     const refs: { axis: 'y'; value: number; label: string; stroke: string; dash?: string }[] = [];
-    if (mf) refs.push({ axis: 'y', value: mf.grandPotential, label: 'mean-field \u03a9', stroke: '#c46a00' });
+    if (mf) refs.push({ axis: 'y', value: mf.grandPotential, label: 'mean-field \u03a9', stroke: '#b57a10' });
     if (this.lastEd && this.job && this.lastEd.key === physicsKey(this.job)) refs.push({ axis: 'y', value: this.lastEd.r.energyPerSite, label: 'ED (exact)', stroke: '#1d2430', dash: '2 2' });
     const tail = trace.slice(Math.floor(trace.length / 4));
     const ys = [...tail.flatMap((t) => [t.energyPerSite - t.error, t.energyPerSite + t.error]), ...refs.map((r) => r.value)];
     const lo = Math.min(...ys), hi = Math.max(...ys), pad = (hi - lo) * 0.08 || 1e-3;
     return html`<figure-panel class="trace" .figure=${seriesFigure({
       id: 'trace', name: 'vmc-trace', title: 'VMC optimisation trace: energy per site against step', width: w, height: 300,
-      series: [{ label: 'VMC e per step', x: trace.map((t) => t.step), y: trace.map((t) => t.energyPerSite), err: trace.map((t) => t.error), stroke: '#165a78', points: true }],
+      series: [{ label: 'VMC e per step', x: trace.map((t) => t.step), y: trace.map((t) => t.energyPerSite), err: trace.map((t) => t.error), stroke: '#3a3f9e', points: true }],
       refs, x: { label: 'stochastic-reconfiguration step' }, y: { label: 'energy per site (g)' },
       xDomain: [0, Math.max(1, trace[trace.length - 1].step)], yDomain: [lo - pad, hi + pad],
     })}></figure-panel>`;
@@ -395,12 +395,12 @@ export class CorrelatedView extends LitElement {
     return html`
       <figure-panel class="sk" .figure=${seriesFigure({
         id: 'sk', name: 'structure-factor', title: 'Connected structure factor S(k) = (\u27e8|n_k|\u00b2\u27e9 \u2212 |\u27e8n_k\u27e9|\u00b2)/N on the cluster momenta', width: w, height: 280,
-        series: [{ label: `S(k) connected, ${v.kind.toUpperCase()}`, x: order.map((i) => kx[i]), y: order.map((i) => sk[i].value), err: order.map((i) => sk[i].error), stroke: '#5a2ca0', points: true, noLine: true }],
+        series: [{ label: `S(k) connected, ${v.kind.toUpperCase()}`, x: order.map((i) => kx[i]), y: order.map((i) => sk[i].value), err: order.map((i) => sk[i].error), stroke: '#8e1f2c', points: true, noLine: true }],
         x: { label: oneD ? 'k (1/a)' : '|k| (1/a)' }, y: { label: 'S(k) (per site)' },
       })}></figure-panel>
       <figure-panel class="cr" .figure=${seriesFigure({
         id: 'cr', name: 'density-correlation', title: 'Density correlation C(r) on the distance shells', width: w, height: 280,
-        series: [{ label: `C(r), ${v.kind.toUpperCase()}`, x: cr.map((p) => p.r), y: cr.map((p) => p.value), err: cr.map((p) => p.error), stroke: '#0c6e4f', points: true }],
+        series: [{ label: `C(r), ${v.kind.toUpperCase()}`, x: cr.map((p) => p.r), y: cr.map((p) => p.value), err: cr.map((p) => p.error), stroke: '#2f7f78', points: true }],
         refs: [{ axis: 'y', value: 0, label: 'uncorrelated', stroke: '#7d8798', dash: '2 2' }],
         x: { label: 'distance r (a)' }, y: { label: 'C(r) = \u27e8n\u1d62n\u2c7c\u27e9 \u2212 \u27e8n\u1d62\u27e9\u27e8n\u2c7c\u27e9' },
       })}></figure-panel>`;

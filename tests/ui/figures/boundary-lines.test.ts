@@ -61,7 +61,9 @@ describe('boundary lines on the phase map', () => {
 
   it('keeps the fraction labels inside their regions', () => {
     const fig = phaseMapFigure(input(lines));
-    const labels = fig.svg.slice(fig.svg.indexOf('fraction-labels'));
+    // the labels' own group (the density-wave scale beside the map also writes fillings)
+    const start = fig.svg.indexOf('fraction-labels');
+    const labels = fig.svg.slice(start, fig.svg.indexOf('</g>', start));
     const xs = (t: string) => [...labels.matchAll(new RegExp(`<text[^>]*x="([\\d.]+)"[^>]*>${t}</text>`, 'g'))].map((m) => Number(m[1]));
     const edge = fig.frame.x(0.5);
     expect(xs('1/2').length).toBeGreaterThan(0);
