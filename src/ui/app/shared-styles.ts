@@ -1,20 +1,21 @@
 /**
  * Styles shared by every element of the page (each element has its own shadow root, so
- * the common look of controls is adopted, not inherited). Ink on paper, one accent; text
- * contrast at least 7:1 on the page background, controls at least 4.5:1.
+ * the common look of controls is adopted, not inherited). Ink on paper, one accent (the
+ * figures' indigo, plot/house-style.ts); text contrast at least 7:1 on the page background,
+ * controls at least 4.5:1 (tests/ui/plot/palette-vision.test.ts).
  */
 import { css } from 'lit';
 
 export const sharedStyles = css`
   :host { --ink: #1d2430; --muted: #4a5363; --paper: #fbfaf7; --panel: #ffffff; --line: #c9cfd9;
-    --accent: #165a78; --accent-ink: #ffffff; --warn: #8a2b0f; --warn-bg: #fdf0ea; --ok: #1f6b3a;
-    color: var(--ink); font-family: 'DejaVu Sans', Verdana, sans-serif; font-size: 14px; }
+    --accent: #3a3f9e; --accent-ink: #ffffff; --warn: #8a2b0f; --warn-bg: #fdf0ea; --ok: #1f6b3a;
+    color: var(--ink); font-family: 'IBM Plex Sans', 'Source Sans 3', 'Segoe UI', 'DejaVu Sans', Verdana, sans-serif; font-size: 14px; }
   *, *::before, *::after { box-sizing: border-box; }
   button, select, input, textarea { font: inherit; color: inherit; }
   button { background: var(--panel); border: 1px solid #7d8798; border-radius: 4px; padding: 4px 10px; cursor: pointer; }
   button:hover { background: #eef2f6; }
   button.primary { background: var(--accent); color: var(--accent-ink); border-color: var(--accent); }
-  button.primary:hover { background: #0f4760; }
+  button.primary:hover { background: #2c3080; }
   button:disabled { opacity: 0.55; cursor: default; }
   :focus-visible { outline: 3px solid #d9a21b; outline-offset: 1px; }
   input, select, textarea { background: var(--panel); border: 1px solid #7d8798; border-radius: 4px; padding: 3px 6px; }
