@@ -17,7 +17,7 @@ export async function traceMainThread(context: BrowserContext, page: Page, load:
   const events: TraceEvent[] = [];
   cdp.on('Tracing.dataCollected', (d) => { events.push(...(d.value as unknown as TraceEvent[])); });
   const complete = new Promise<void>((ok) => cdp.once('Tracing.tracingComplete', () => ok()));
-  await cdp.send('Tracing.start', { categories: 'devtools.timeline,blink.user_timing', transferMode: 'ReportEvents' });
+  await cdp.send('Tracing.start', { categories: 'devtools.timeline,disabled-by-default-devtools.timeline,blink.user_timing', transferMode: 'ReportEvents' });
   try {
     await load();
   } finally {
