@@ -20,12 +20,14 @@ import { bandsX, type Band } from '../plot/band.ts';
 import { ruleX, ruleY } from '../plot/rule.ts';
 import { axisX, axisY } from '../plot/axis.ts';
 import { legend, legendBelowHeight, type LegendEntry } from '../plot/legend.ts';
+import { SERIES } from '../plot/house-style.ts';
 import type { Frame, Mark } from '../plot/frame.ts';
 import { el, esc } from '../plot/svg-markup.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
 import { kText } from '../model/pi-multiple.ts';
 
-const BRANCH = ['#165a78', '#b3124e', '#0c6e4f', '#5a2ca0', '#8a4b00', '#1d2430'];
+/** Branch colours: the house series palette (colour-blind safe, tests/ui/plot/palette-vision.test.ts). */
+const BRANCH = SERIES;
 
 /** A branch joins the low range while its minimum is below GAP_FACTOR x (top so far) + 0.5 g. */
 export const GAP_FACTOR = 3;
@@ -112,7 +114,8 @@ export function branchesFigure(sp: StateSpectrum, width: number, height: number,
     return [lo - pad, hi + pad];
   };
   const y: [number, number] = Array.isArray(range) ? [range[0], range[1]]
-    : span(range === 'all' ? [...lines.flat(), ...extra.map((p) => p.y)] : lowBranches(lines).flat());
+    // (the photon-like modes at k = 0 take part in the low range as one-point branches)
+    : span(range === 'all' ? [...lines.flat(), ...extra.map((p) => p.y)] : lowBranches([...lines, ...extra.map((p) => [p.y])]).flat());
   const inRange = (w: number) => w >= y[0] && w <= y[1];
   const marks: Mark[] = [];
   const entries: LegendEntry[] = [];
@@ -129,8 +132,8 @@ export function branchesFigure(sp: StateSpectrum, width: number, height: number,
   });
   if (groups.length > 8) entries.push({ label: `and ${groups.length - 8} more (${common} in all)`, swatch: { kind: 'line', stroke: '#7d8798' } });
   if (extra.length) {
-    marks.push(dots(extra.map((p) => ({ ...p, r: 4, fill: '#c46a00', stroke: '#1d2430' }))));
-    entries.push({ label: 'photon-like (k = 0)', swatch: { kind: 'dot', fill: '#c46a00' } });
+    marks.push(dots(extra.map((p) => ({ ...p, r: 4, fill: '#ecab13', stroke: '#1f2430' }))));
+    entries.push({ label: 'photon-like (k = 0)', swatch: { kind: 'dot', fill: '#ecab13' } });
   }
   // what the range leaves out, said on the figure
   const above = lines.filter((l) => l.every((w) => !Number.isFinite(w) || w > y[1])).length;
@@ -165,7 +168,7 @@ export function branchesFigure(sp: StateSpectrum, width: number, height: number,
   const below = narrow ? legendBelowHeight(entries.length, width) : 0;
   const { svg, frame } = renderFigure({
     id: 'branches', width, height: height + below,
-    margin: narrow ? { top: 22, right: 14, left: 62, bottom: 46 + below } : { top: 22, right: 200, left: 62 },
+    margin: narrow ? { top: 22, right: 14, left: 62, bottom: 46 + below } : { top: 22, right: 24, left: 62 },
     x: [s[0], s[s.length - 1]], y, marks, title,
   });
   return { svg, frame, name: 'branches', title };
@@ -176,15 +179,15 @@ export function marginFigure(sp: StateSpectrum, width: number, height: number): 
   const kStar = softPathPosition(sp);
   const marks: Mark[] = [
     ruleY(0, { stroke: '#8a2b0f', dash: '4 3', label: 'instability' }),
-    line(s, sp.margins, { stroke: '#165a78', width: 2 }),
+    line(s, sp.margins, { stroke: SERIES[0], width: 2 }),
   ];
   const entries: LegendEntry[] = [
-    { label: 'margin(k)', swatch: { kind: 'line', stroke: '#165a78', width: 2 } },
+    { label: 'margin(k)', swatch: { kind: 'line', stroke: SERIES[0], width: 2 } },
     { label: 'margin 0: soft', swatch: { kind: 'line', stroke: '#8a2b0f', dash: '4 3' } },
   ];
   if (kStar !== null) {
-    marks.push(ruleX(kStar, { stroke: '#c46a00', width: 1.5, label: 'k*' }));
-    entries.push({ label: `k* = ${kText(kStar, 4)} (${sp.softMode.kind})`, swatch: { kind: 'line', stroke: '#c46a00', width: 1.5 } });
+    marks.push(ruleX(kStar, { stroke: SERIES[1], width: 1.5, label: 'k*' }));
+    entries.push({ label: `k* = ${kText(kStar, 4)} (${sp.softMode.kind})`, swatch: { kind: 'line', stroke: SERIES[1], width: 1.5 } });
   }
   for (const t of sp.ticks) marks.push(ruleX(t.s, { stroke: '#c9cfd9' }));
   marks.push(axisX({ label: 'wavevector along the path (1/a)', tickValues: sp.ticks.map((t) => ({ value: t.s, label: cornerLabel(t.label) })) }));
@@ -195,7 +198,7 @@ export function marginFigure(sp: StateSpectrum, width: number, height: number): 
   const lo = Math.min(...ys), hi = Math.max(...ys), pad = (hi - lo) * 0.08 || 0.1;
   const title = `Stability margin against k; softest mode margin ${sp.softMode.margin.toPrecision(4)}`;
   const { svg, frame } = renderFigure({
-    id: 'margin', width, height: height + below, margin: narrow ? { right: 14, left: 62, bottom: 46 + below } : { right: 200, left: 62 },
+    id: 'margin', width, height: height + below, margin: narrow ? { right: 14, left: 62, bottom: 46 + below } : { right: 24, left: 62 },
     x: [s[0], s[s.length - 1]], y: [lo - pad, hi + pad], marks, title,
   });
   return { svg, frame, name: 'stability-margin', title };

@@ -47,6 +47,13 @@ describe('branches figure', () => {
     expect(low.svg).toContain('outside the range: 1 branch (up to \u03c9 = 22 g)');
     // the y domain of the low range ends well below the far branch
     expect(Math.max(...low.frame.y.domain)).toBeLessThan(2);
+    // a photon-like mode at k = 0 near the low branches joins their range
+    const withPhoton = spectrum([flat(0.8), flat(22)]);
+    withPhoton.branches[0].omega.push(1.9);
+    withPhoton.zoneCentre = { omega: [0.8, 1.9, 22], photonWeight: [0, 0.9, 0] };
+    const near = branchesFigure(withPhoton, 900, 400, 'test');
+    expect(Math.max(...near.frame.y.domain)).toBeGreaterThan(1.9);
+    expect(Math.max(...near.frame.y.domain)).toBeLessThan(22);
     const all = branchesFigure(sp, 900, 400, 'test', 'all');
     expect(Math.max(...all.frame.y.domain)).toBeGreaterThan(22);
     expect(all.svg).not.toContain('outside the range');
