@@ -119,6 +119,20 @@ export function parseRange(text: string, field: string): Range {
 }
 
 /**
+ * A range (or `name=range`) as one command-line argument: `start..stopxN`, whichever form
+ * it was typed in (the page's spaced form would need quotes); text that does not parse is
+ * returned as it is (the command line then gives its error).
+ */
+export function cliRange(text: string): string {
+  const eq = text.indexOf('=');
+  try {
+    return (eq >= 0 ? text.slice(0, eq).trim() + '=' : '') + formatRange(parseRange(eq >= 0 ? text.slice(eq + 1) : text, 'range'));
+  } catch {
+    return text;
+  }
+}
+
+/**
  * The note for a range (or `name=range`) written in the old `start:stop:count` form: how
  * it was read, the same range in the current form, and the step reading where the numbers
  * allow one (`spaced`: the range as the page writes it). Null for the current form and for text that does not parse (its error says more).

@@ -8,7 +8,7 @@ import { HostWidthController } from '../controllers/host-width.ts';
 import { LitElement, html, css, nothing } from 'lit';
 import { scanBase, type ParsedModel } from '../model/model-inputs.ts';
 import type { AppState, ModelInputs } from '../state/app-state.ts';
-import { AXIS_NAMES, type AxisName, parseAxis, parseRange, rangeNote, type Axis } from '../../core/scan/axes.ts';
+import { AXIS_NAMES, type AxisName, cliRange, parseAxis, parseRange, rangeNote, type Axis } from '../../core/scan/axes.ts';
 import { checkAxes } from '../../core/scan/grid.ts';
 import { defaultRange, planProblem, type AxisProblem } from '../model/axis-ranges.ts';
 import { phaseWords } from '../model/phase-words.ts';
@@ -322,7 +322,7 @@ export class PhaseAtlasView extends LitElement {
     const base = g && this.fig && this.checkOverlay ? withBoundaryCheck(this.fig, this.checkOverlay) : g ? this.fig : null;
     const fig = g && base ? this.overlays(base, g) : base;
     const cmdAxes = g ? [g.plan.x.name, g.plan.y.name] : [];
-    const command = cliLine('map', [...modelFlags(this.inputs, cmdAxes), '--x', this.section.x, '--y', this.section.y]);
+    const command = cliLine('map', [...modelFlags(this.inputs, cmdAxes), '--x', cliRange(this.section.x), '--y', cliRange(this.section.y)]);
     const selParams = g && sel ? (() => { const [ix, iy] = this.cellAt(g, sel[0], sel[1]); return { p: g.point(ix, iy), seed: g.seed(ix, iy), state: g.own(ix, iy) }; })() : null;
     return html`
       <div class="controls">

@@ -8,7 +8,7 @@ import { HostWidthController } from '../controllers/host-width.ts';
 import { LitElement, html, css, nothing } from 'lit';
 import type { AppState, ModelInputs } from '../state/app-state.ts';
 import type { ParsedModel } from '../model/model-inputs.ts';
-import { parseRange, rangeNote, rangeValues } from '../../core/scan/axes.ts';
+import { cliRange, parseRange, rangeNote, rangeValues } from '../../core/scan/axes.ts';
 import type { Plateau } from '../../core/meanfield/plateaus.ts';
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import type { ModelParams } from '../../core/model.ts';
@@ -149,7 +149,7 @@ export class StaircaseView extends LitElement {
       })) : [],
     };
     const p = this.model.params;
-    const cmds = p ? this.ranges(p).map((rmax) => cliLine('staircase', [...modelFlags({ ...this.inputs, range: rmax === undefined ? '' : String(rmax) }, ['mu']), `--mu=${this.section.mu}`, '--json'])) : [];
+    const cmds = p ? this.ranges(p).map((rmax) => cliLine('staircase', [...modelFlags({ ...this.inputs, range: rmax === undefined ? '' : String(rmax) }, ['mu']), `--mu=${cliRange(this.section.mu)}`, '--json'])) : [];
     return html`
       <div class="controls">
         <div><label for="st-mu">\u03bc scan start..stop xN points (g)</label>

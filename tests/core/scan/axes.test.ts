@@ -2,7 +2,7 @@
 // the evenly spaced values, and how an axis value lands in ModelParams. Checks are exact
 // arithmetic (common practice, no source): linspace endpoints must be the given numbers exactly.
 import { describe, expect, it } from 'vitest';
-import { applyAxis, formatRange, parseAxis, parseRange, rangeNote, rangeValues } from '../../../src/core/scan/axes.ts';
+import { applyAxis, cliRange, formatRange, parseAxis, parseRange, rangeNote, rangeValues } from '../../../src/core/scan/axes.ts';
 import { InputError } from '../../../src/core/input-error.ts';
 import type { ModelParams } from '../../../src/core/model.ts';
 
@@ -40,6 +40,13 @@ describe('ranges', () => {
     expect(formatRange({ start: 0.8, stop: 2.4, count: 40 })).toBe('0.8..2.4x40');
     expect(formatRange({ start: 0.8, stop: 2.4, count: 40 }, true)).toBe('0.8..2.4 x40');
     expect(parseAxis(`rb=${formatRange({ start: 0.8, stop: 2.4, count: 40 }, true)}`, 'y')).toEqual(parseAxis('rb=0.8:2.4:40', 'y'));
+  });
+
+  it('writes a range as one command-line argument whichever form it was typed in', () => {
+    expect(cliRange('mu=-1..2.9 x64')).toBe('mu=-1..2.9x64');
+    expect(cliRange('mu=-1:2.9:64')).toBe('mu=-1..2.9x64');
+    expect(cliRange('-0.5 .. 2.5 x 400')).toBe('-0.5..2.5x400');
+    expect(cliRange('mu=oops')).toBe('mu=oops');
   });
 
   it('notes the old form with the range in the new form, and nothing for the new form', () => {
