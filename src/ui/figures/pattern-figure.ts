@@ -3,8 +3,8 @@
  * of a window of the lattice shaded by its sublattice's density m_s (white = empty, ink =
  * filled), ringed in amber with a width growing with its coherence |<sigma^x>_s| (the
  * emitter's share of the photon condensate), and the supercell outlined. The density
- * legend is a continuous bar (m from 0 to 1, the same grey ramp as the sites), where m is the
- * probability that a site's emitter is excited, <n> of its sublattice.
+ * legend is a continuous bar under the x axis (m from 0 to 1, the same grey ramp as the
+ * sites), where m is the probability that a site's emitter is excited, <n> of its sublattice.
  */
 import type { MeanFieldState } from '../../core/meanfield/state.ts';
 import { type LatticeName, lattice, position } from '../../core/lattice/geometry.ts';
@@ -27,8 +27,8 @@ export function densityGrey(m: number): string {
   return `hsl(215 12% ${Math.round(100 - 86 * x)}%)`;
 }
 
-/** Height (px) the density bar takes at the top of the right margin, title and ticks included. */
-const BAR_BLOCK = 64;
+/** Bottom margin (px) that holds the x axis and, under it, the density bar with its tick labels. */
+const BAR_BOTTOM = 84;
 
 /** The gradient of densityGrey over m in [0, 1] (21 stops: the ramp is linear in lightness, piecewise in RGB). */
 function densityGradient(id: string): string {
@@ -36,18 +36,18 @@ function densityGradient(id: string): string {
   return `<linearGradient id="${id}" x1="0" x2="1" y1="0" y2="0">${stops}</linearGradient>`;
 }
 
-/** A horizontal bar of m from 0 to 1 in the right margin, with ticks at 0, 0.5 and 1. */
+/** A horizontal bar of m from 0 to 1 under the x axis (left-aligned with the plot), with ticks at 0, 0.5 and 1. */
 function densityBar(id: string): Mark {
   return {
     clip: false,
     render(f: Frame) {
-      const x = f.inner.x1 + 14, y = f.inner.y0 + 4, w = 150, h = 12;
-      let out = el('text', { x, y: y + 10, 'font-weight': 'bold', fill: '#1d2430' }, 'm = ⟨n⟩ of the site');
-      out += el('rect', { x, y: y + 18, width: w, height: h, fill: `url(#${id})`, stroke: '#5b6577', 'stroke-width': 0.8 });
+      const y = f.inner.y1 + 48, x = f.inner.x0 + 118, w = 140, h = 11;
+      let out = el('text', { x: f.inner.x0, y: y + 10, 'font-size': 11.5, fill: '#1d2430' }, 'site density m = \u27e8n\u27e9');
+      out += el('rect', { x, y, width: w, height: h, fill: `url(#${id})`, stroke: '#5b6577', 'stroke-width': 0.8 });
       for (const [t, label] of [[0, '0 empty'], [0.5, '0.5'], [1, '1 excited']] as const) {
         const X = x + t * w;
-        out += el('line', { x1: X, x2: X, y1: y + 18 + h, y2: y + 22 + h, stroke: '#1d2430' });
-        out += el('text', { x: X, y: y + 34 + h, 'text-anchor': t === 0 ? 'start' : t === 1 ? 'end' : 'middle', 'font-size': 10.5, fill: '#1d2430' }, label);
+        out += el('line', { x1: X, x2: X, y1: y + h, y2: y + h + 4, stroke: '#1d2430' });
+        out += el('text', { x: X, y: y + h + 15, 'text-anchor': t === 0 ? 'start' : t === 1 ? 'end' : 'middle', 'font-size': 10.5, fill: '#1d2430' }, label);
       }
       return `<g class="density-bar">${out}</g>`;
     },
@@ -108,11 +108,11 @@ export function patternFigure(name: LatticeName, st: MeanFieldState, width: numb
     legend([
       { label: 'coherence |\u27e8\u03c3x\u27e9|', swatch: { kind: 'dot', fill: '#ffffff', stroke: COHERENCE } },
       { label: `supercell (M = ${st.cellSize})`, swatch: { kind: 'line', stroke: SERIES[0], dash: '5 3' } },
-    ], { top: BAR_BLOCK }),
+    ]),
   ];
   const title = `Sublattice pattern: ${st.phase}${st.fraction ? ' ' + st.fraction : ''}, M = ${st.cellSize}`;
   const { svg, frame } = renderFigure({
-    id: 'pattern', width, height: Math.max(height, 62 + BAR_BLOCK + 50), margin: { right: 24, left: 52 }, x: [x0, x1], y: [y0, y1], equalAspect: true, marks, title,
+    id: 'pattern', width, height: height + BAR_BOTTOM - 48, margin: { right: 24, left: 52, bottom: BAR_BOTTOM }, x: [x0, x1], y: [y0, y1], equalAspect: true, marks, title,
     defs: () => densityGradient(gradientId),
   });
   return { svg, frame, name: 'sublattice-pattern', title };
