@@ -31,6 +31,16 @@ export function hexRgb(hex: string): Rgb {
   return [(n >> 16) / 255, ((n >> 8) & 255) / 255, (n & 255) / 255];
 }
 
+/** #rrggbb of a CSS `hsl(h s% l%)` colour (CSS Color Module Level 4, section 7.1, hsl to sRGB). */
+export function hslToHex(css: string): string {
+  const m = /^hsl\((-?[\d.]+)\s+([\d.]+)%\s+([\d.]+)%\)$/.exec(css);
+  if (!m) throw new Error(`not an hsl() colour: ${css}`);
+  const h = Number(m[1]), S = Number(m[2]) / 100, L = Number(m[3]) / 100;
+  const a = S * Math.min(L, 1 - L);
+  const f = (n: number) => { const k = (n + h / 30) % 12; return L - a * Math.max(-1, Math.min(k - 3, 9 - k, 1)); };
+  return '#' + [f(0), f(8), f(4)].map((c) => Math.round(c * 255).toString(16).padStart(2, '0')).join('');
+}
+
 /** sRGB companding undone (IEC 61966-2-1). */
 export function toLinear(c: number): number {
   return c <= 0.04045 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4;

@@ -13,10 +13,11 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import {
-  contrastRatio, deltaE2000, labAs, linearToXyz, MACHADO_2009, VISIONS, xyzToLab, hexRgb, toLinear, type Lab,
+  contrastRatio, deltaE2000, hslToHex, labAs, linearToXyz, MACHADO_2009, VISIONS, xyzToLab, hexRgb, toLinear, type Lab,
 } from './colour-science.ts';
 import { densityWaveColour, PHASE_COLOURS } from '../../../src/ui/plot/phase-palette.ts';
 import { ALERT_INK, INK, INK_SOFT, PAPER, SERIES } from '../../../src/ui/plot/house-style.ts';
+import { rampColour } from '../../../src/ui/figures/sequential-ramp.ts';
 
 const MIN_DE = 10;
 
@@ -54,6 +55,11 @@ describe('colour science against published values', () => {
   it("the deficiency matrices keep white and greys (each row of the paper's matrices sums to 1)", () => {
     for (const M of Object.values(MACHADO_2009)) for (const row of M) expect(Math.abs(row[0] + row[1] + row[2] - 1)).toBeLessThan(2e-6);
     for (const v of VISIONS) expect(Math.abs(labAs('#808080', v)[0] - labAs('#808080')[0])).toBeLessThan(1e-3);
+  });
+
+  it('hsl() to sRGB as CSS Color 4: hsl(120 100% 25%) is rgb(0, 128, 0) rounded, hsl(0 0% 50%) mid grey', () => {
+    expect(hslToHex('hsl(120 100% 25%)')).toBe('#008000');
+    expect(hslToHex('hsl(0 0% 50%)')).toBe('#808080');
   });
 
   it('WCAG 2.1 contrast: black on white is 21:1, a colour on itself 1:1', () => {
@@ -103,6 +109,15 @@ describe('the phase palette', () => {
 
   it('the quiet fills (empty, normal, filled) are light: the boundary ink over them has 4.5:1 or more', () => {
     for (const k of ['empty', 'normal', 'filled'] as const) expect(contrastRatio(INK, PHASE_COLOURS[k])).toBeGreaterThanOrEqual(4.5);
+  });
+});
+
+describe('the continuous ramp (density and photon colourings)', () => {
+  it('darkens monotonically from end to end for every viewer, so values read in order without hue', () => {
+    for (const v of VISIONS) {
+      const L = Array.from({ length: 25 }, (_, i) => labAs(hslToHex(rampColour(i / 24)), v)[0]);
+      for (let i = 1; i < L.length; i++) expect(L[i], `${v} at ${i}/24`).toBeLessThan(L[i - 1]);
+    }
   });
 });
 
