@@ -37,7 +37,7 @@ import { lowest, rectPolygon, region, tied } from '../../src/core/scan/tie-rects
 import type { Rect } from '../../src/core/scan/refinement.ts';
 
 /** Cold points per worker task (small: the refinement levels are short). */
-const COLD_TASK = 4;
+const COLD_TASK = 2;
 
 /** Run a map: adaptive unless req.dense (or a case the adaptive map does not cover; see notes). */
 export async function runMap(pool: WorkerPool<Engine>, req: MapScanRequest, o: ScanOptions<ScanPoint> = {}): Promise<MapScanResult> {
@@ -169,8 +169,59 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
         ix0 += length;
       }
     }
-    const bandPoints: ScanPoint[] = [];
-    await pool.run(segs, async (remote, seg) => {
+    // Points go out as soon as every segment before theirs is done (segs are in point
+    // order), not at the band's end; of their states the band keeps those its boundary
+    // edges need (a pixel beside a different one) and its rows kept whole for the next
+    // bands (the last; in spread order the first too): memory of a band is its
+    // boundaries and one row, not 16 rows of states.
+    const rowStates = new Map<number, Array<SolveResult | undefined>>();
+    const ids = new Map<Array<SolveResult | undefined>, Array<string | undefined>>();
+    const idsOf = (row: Array<SolveResult | undefined>) => {
+      let r = ids.get(row);
+      if (!r) ids.set(row, r = Array.from(row, (st) => (st ? identity(st) : undefined)));
+      return r;
+    };
+    const first = band.rows[0], last = band.rows[band.rows.length - 1];
+    const whole = (iy: number) => iy === last || (req.order === 'spread' && iy === first);
+    const rowOf = (iy: number) => {
+      let r = rowStates.get(iy);
+      if (!r) {
+        rowStates.set(iy, r = new Array(nx));
+        ids.set(r, new Array(nx));
+      }
+      return r;
+    };
+    // below row iy: the band's row iy - 1, or for the first row the last row of the band before
+    const below = (iy: number) => rowStates.get(iy - 1) ?? (iy === first ? edgeRows.get(iy - 1) : undefined);
+    // drop the state of (ix, iy) once every neighbour is known and none differs from it
+    const settle = (ix: number, iy: number) => {
+      const row = rowStates.get(iy);
+      if (!row || whole(iy) || row[ix] === undefined) return;
+      const id = idsOf(row)[ix];
+      const around = [idsOf(row)[ix - 1], idsOf(row)[ix + 1]];
+      if (plan.y) {
+        const up = rowStates.get(iy + 1), down = below(iy);
+        around.push(up ? idsOf(up)[ix] : undefined, down ? idsOf(down)[ix] : undefined);
+      }
+      if (around.every((n) => n === undefined || n === id)) row[ix] = undefined;
+    };
+    const done: Array<ScanPoint[] | undefined> = new Array(segs.length);
+    let next = 0;
+    const deliver = (k: number, pts: ScanPoint[]) => {
+      done[k] = pts;
+      for (; next < segs.length && done[next]; next++) {
+        for (const pt of done[next] as ScanPoint[]) {
+          o.onItem?.(pt);
+          if ((o as { keepPoints?: boolean }).keepPoints !== false) points.push(pt);
+          const row = rowOf(pt.iy);
+          row[pt.ix] = pt.state;
+          (ids.get(row) as Array<string | undefined>)[pt.ix] = pt.state ? identity(pt.state) : undefined;
+          if (rowStates.has(pt.iy - 1)) settle(pt.ix, pt.iy - 1);
+        }
+        done[next] = undefined;
+      }
+    };
+    await pool.run(segs, async (remote, seg, k) => {
       const pixels: AdaptivePixel[] = [];
       for (let i = 0; i < seg.length; i++) {
         const ix = seg.ix0 + i, index = seg.iy * nx + ix;
@@ -181,12 +232,12 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
         });
       }
       const out = await remote.meanfield.fillSegment({ pixels, continuation });
-      out.forEach((r, i) => {
+      deliver(k, out.map((r, i) => {
         solves += r.solves;
         cellSolves += r.cellSolves ?? 0;
         const ix = seg.ix0 + i;
-        bandPoints.push({ index: seg.iy * nx + ix, ix, iy: seg.iy, ...(r.state ? { state: r.state } : {}), ...(r.error !== undefined ? { error: r.error } : {}) });
-      });
+        return { index: seg.iy * nx + ix, ix, iy: seg.iy, ...(r.state ? { state: r.state } : {}), ...(r.error !== undefined ? { error: r.error } : {}) };
+      }));
       remaining -= seg.length;
       progress();
       return out.length;
@@ -194,41 +245,25 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
       signal: o.signal,
       budgetMs: (seg) => seg.length * pointBudget,
       describe: (seg) => `adaptive map points ix ${seg.ix0}..${seg.ix0 + seg.length - 1}, iy ${seg.iy}; first point ${JSON.stringify(gridPoint(plan, seg.ix0, seg.iy))}`,
-      recover: (e, _i, seg) => {
-        for (let i = 0; i < seg.length; i++) {
-          bandPoints.push({ index: seg.iy * nx + seg.ix0 + i, ix: seg.ix0 + i, iy: seg.iy, error: e.message.replace(/\s*\n\s*/g, ' ') });
-        }
+      recover: (e, k, seg) => {
+        const error = e.message.replace(/\s*\n\s*/g, ' ');
+        deliver(k, Array.from({ length: seg.length }, (_, i) => ({ index: seg.iy * nx + seg.ix0 + i, ix: seg.ix0 + i, iy: seg.iy, error })));
         remaining -= seg.length;
         return seg.length;
       },
     });
     certified.clear();
     uniform.clear();
-    bandPoints.sort((a, b) => a.index - b.index);
-    for (const pt of bandPoints) o.onItem?.(pt);
-    if ((o as { keepPoints?: boolean }).keepPoints !== false) points.push(...bandPoints);
     // boundaries of the band's rows, and to the neighbouring bands' rows already done
-    const rowStates = new Map<number, Array<SolveResult | undefined>>();
-    for (const pt of bandPoints) {
-      if (!rowStates.has(pt.iy)) rowStates.set(pt.iy, new Array(nx));
-      (rowStates.get(pt.iy) as Array<SolveResult | undefined>)[pt.ix] = pt.state;
-    }
-    const first = band.rows[0], last = band.rows[band.rows.length - 1];
     const edges: EdgeJob[] = [];
-    // a job only for an edge whose pixels differ (locate skips the others): memory of a
-    // band is its boundary edges, not 2 x 16 x nx jobs with their parameter sets
-    const ids = new Map<Array<SolveResult | undefined>, Array<string | undefined>>();
-    const idsOf = (row: Array<SolveResult | undefined>) => {
-      let r = ids.get(row);
-      if (!r) ids.set(row, r = Array.from(row, (st) => (st ? identity(st) : undefined)));
-      return r;
-    };
+    // a job only for an edge whose pixels differ (locate skips the others)
     const differ = (lo: Array<SolveResult | undefined>, hi: Array<SolveResult | undefined>, i: number, j: number) => {
       const a = idsOf(lo)[i], b = idsOf(hi)[j];
       return a !== undefined && b !== undefined && a !== b;
     };
     for (const iy of band.rows) {
-      const s = rowStates.get(iy) as Array<SolveResult | undefined>;
+      const s = rowStates.get(iy);
+      if (!s) continue; // a shard's row without a segment of its own
       for (let ix = 0; ix + 1 < nx; ix++) if (differ(s, s, ix, ix + 1)) edges.push({ edge: `h${iy * nx + ix}`, axis: plan.x, a: s[ix], b: s[ix + 1], pa: gridPoint(plan, ix, iy), pb: gridPoint(plan, ix + 1, iy), va: plan.x.values[ix], vb: plan.x.values[ix + 1], fixed: plan.y ? [plan.y.values[iy]] : [], along: 0 });
       const up = rowStates.get(iy + 1) ?? (iy === last ? edgeRows.get(iy + 1) : undefined);
       const down = iy === first ? edgeRows.get(iy - 1) : undefined;
@@ -240,14 +275,13 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
         for (let ix = 0; ix < nx; ix++) if (differ(lo, hi, ix, ix)) edges.push({ edge: `v${y * nx + ix}`, axis: plan.y as Axis, a: lo[ix], b: hi[ix], pa: gridPoint(plan, ix, y), pb: gridPoint(plan, ix, y + 1), va: ya, vb: yb, fixed: [plan.x.values[ix]], along: 1 });
       }
     }
-    edgeRows.set(first, rowStates.get(first) as Array<SolveResult | undefined>);
-    edgeRows.set(last, rowStates.get(last) as Array<SolveResult | undefined>);
+    if (rowStates.has(first)) edgeRows.set(first, rowStates.get(first) as Array<SolveResult | undefined>);
+    if (rowStates.has(last)) edgeRows.set(last, rowStates.get(last) as Array<SolveResult | undefined>);
     // in row order only the band's last row meets a later band (memory: one row, not the map's edges)
     if (req.order !== 'spread') for (const k of [...edgeRows.keys()]) if (k !== last) edgeRows.delete(k);
     // the band's states are written: only the edge rows and the boundary edges' pixels stay
     ids.clear();
     rowStates.clear();
-    bandPoints.length = 0;
     const before = solves;
     // a shard locates no boundary lines (its rows are cut into other shards' segments)
     if (!own) crossings.push(...await locate(edges, plan, located, solveCold));
