@@ -1,6 +1,6 @@
 /**
- * The explorer in Chromium (issue 5): time to the first picture (the first whole row
- * delivered: from then on every cell of the map is painted) and to the full demo map, with the pool of
+ * The explorer in Chromium (issue 5): time to the first picture (the scan's first preview
+ * points, or its first whole row: from then on every cell of the map is painted) and to the full demo map, with the pool of
  * navigator.hardwareConcurrency workers against one worker (the ratio over the worker
  * count is the parallel efficiency), and the longest main-thread task while the map
  * streams in (PerformanceObserver 'longtask' entries, which report every task over 50 ms;

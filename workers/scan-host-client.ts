@@ -12,6 +12,9 @@ import { abortError } from './pool.ts';
 import { unpackPoints } from './point-blocks.ts';
 import type { HostMessage, HostPort, HostRequest } from './scan-host.ts';
 
+/** runScan's options, and the host's preview of a map (grid points solved cold before their rows are delivered: scan-host.ts). */
+export type HostScanOptions<Item> = ScanOptions<Item> & { onPreview?: (points: ScanPoint[]) => void };
+
 interface Pending {
   onMessage(m: HostMessage): void;
 }
@@ -47,7 +50,7 @@ export class ScanHostClient {
   }
 
   /** One scan in the host (see runScan in scan-driver.ts). */
-  scan<K extends ScanKind>(req: ScanKinds[K]['request'] & { kind: K }, o: ScanOptions<ScanItem<K>> = {}): Promise<ScanResult<K>> {
+  scan<K extends ScanKind>(req: ScanKinds[K]['request'] & { kind: K }, o: HostScanOptions<ScanItem<K>> = {}): Promise<ScanResult<K>> {
     const signal = o.signal;
     if (signal?.aborted) return Promise.reject(abortError(signal));
     const id = this.next++;
@@ -64,6 +67,7 @@ export class ScanHostClient {
       this.pending.set(id, {
         onMessage: (m) => {
           if (m.type === 'items') {
+            if (m.preview && o.onPreview) o.onPreview(unpackPoints(m.preview));
             if (m.block) {
               const pts = unpackPoints(m.block);
               if (keep) for (const p of pts) got.push(p);

@@ -11,12 +11,20 @@
  * go as a plain array. The result goes without its point list: the page already has every
  * point and rebuilds the list (scan-host-client.ts). The host is environment-agnostic (a
  * Web Worker's scope or a MessagePort), so Node tests run it over a MessageChannel.
+ *
+ * Preview: a map's workers solve grid points cold before the map's rows are delivered (the
+ * adaptive map's refinement corners, coarse grid first). The host watches those calls (it
+ * changes none) and sends each grid point's cold state as a preview block, so the page can
+ * paint a coarse picture at once and sharpen it level by level; the rows' own points
+ * replace the preview as they arrive.
  */
 import type { Engine } from './engine.ts';
 import type { WorkerPool } from './pool.ts';
 import type { ScanKind, ScanPoint, ScanRequest } from './protocol.ts';
 import { runScan } from './scan-driver.ts';
 import { blockBuffers, packPoints, type PointBlock } from './point-blocks.ts';
+import { gridPoint, gridShape, pointSeed, type ScanPlan } from '../src/core/scan/grid.ts';
+import type { ColdOutcome, ColdRunRequest } from './protocol.ts';
 
 /** Collect streamed items this long (ms) before sending them as one block. */
 export const BLOCK_MS = 40;
@@ -32,7 +40,7 @@ export type HostRequest =
 
 /** Host to page. */
 export type HostMessage =
-  | { type: 'items'; id: number; block?: PointBlock; items?: unknown[]; progress?: [number, number] }
+  | { type: 'items'; id: number; block?: PointBlock; items?: unknown[]; progress?: [number, number]; preview?: PointBlock }
   | { type: 'done'; id: number; result: unknown }
   | { type: 'failed'; id: number; name: string; message: string };
 
@@ -58,16 +66,22 @@ export function serveScans(port: HostPort, pool: WorkerPool<Engine>): void {
     runs.set(m.id, ctrl);
     const points = POINT_KINDS.includes(m.req.kind);
     let buffer: unknown[] = [];
+    let preview: ScanPoint[] = [];
     let progress: [number, number] | undefined;
     let timer: ReturnType<typeof setTimeout> | null = null;
     const flush = () => {
       if (timer !== null) { clearTimeout(timer); timer = null; }
-      if (ctrl.signal.aborted || (buffer.length === 0 && !progress)) return;
+      if (ctrl.signal.aborted || (buffer.length === 0 && preview.length === 0 && !progress)) return;
       const msg: HostMessage = { type: 'items', id: m.id, ...(progress ? { progress } : {}) };
       let transfer: Transferable[] = [];
+      if (preview.length) {
+        msg.preview = packPoints(preview);
+        transfer = blockBuffers(msg.preview);
+        preview = [];
+      }
       if (buffer.length && points) {
         msg.block = packPoints(buffer as ScanPoint[]);
-        transfer = blockBuffers(msg.block);
+        transfer = [...transfer, ...blockBuffers(msg.block)];
       } else if (buffer.length) {
         msg.items = buffer;
       }
@@ -76,7 +90,10 @@ export function serveScans(port: HostPort, pool: WorkerPool<Engine>): void {
       port.postMessage(msg, transfer);
     };
     const later = () => { if (timer === null) timer = setTimeout(flush, BLOCK_MS); };
-    runScan(pool, m.req as ScanRequest & { kind: ScanKind }, {
+    const watched = m.req.kind === 'map' && !m.req.dense
+      ? watchColdSolves(pool, m.req.plan, (pts) => { if (!ctrl.signal.aborted) { preview.push(...pts); later(); } })
+      : pool;
+    runScan(watched, m.req as ScanRequest & { kind: ScanKind }, {
       signal: ctrl.signal,
       pointBudgetMs: m.pointBudgetMs,
       // a map's driver need not keep its points (the page has them); the staircase reads its own
@@ -100,4 +117,43 @@ export function serveScans(port: HostPort, pool: WorkerPool<Engine>): void {
 function failure(id: number, err: unknown): HostMessage {
   const e = err instanceof Error ? err : new Error(String(err));
   return { type: 'failed', id, name: e.name, message: e.message };
+}
+
+/**
+ * The pool as the driver sees it, with every cold run (meanfield.solveColdRun) watched: the
+ * points of the run that are grid points of the plan (the seed the driver gives a grid point,
+ * pointSeed(plan.seed, index), and the same parameters) are reported with their states.
+ * The calls themselves and their results are unchanged.
+ */
+export function watchColdSolves(pool: WorkerPool<Engine>, plan: ScanPlan, report: (points: ScanPoint[]) => void): WorkerPool<Engine> {
+  const { nx, ny } = gridShape(plan);
+  const bySeed = new Map<number, number>();
+  for (let i = 0; i < nx * ny; i++) bySeed.set(pointSeed(plan.seed, i), i);
+  const seen = (req: ColdRunRequest, out: ColdOutcome[]) => {
+    const pts: ScanPoint[] = [];
+    out.forEach((o, k) => {
+      const index = bySeed.get(req.seeds[k]);
+      if (index === undefined || !o.cold) return;
+      const ix = index % nx, iy = Math.floor(index / nx);
+      if (JSON.stringify(req.points[k]) === JSON.stringify(gridPoint(plan, ix, iy))) pts.push({ index, ix, iy, state: o.cold.state });
+    });
+    if (pts.length) report(pts);
+  };
+  type Meanfield = { solveColdRun(req: ColdRunRequest): Promise<ColdOutcome[]> };
+  const watch = (remote: object) => new Proxy(remote, {
+    get(target, key) {
+      const value = Reflect.get(target, key) as unknown;
+      if (key !== 'meanfield') return value;
+      const mf = value as Meanfield;
+      return new Proxy(mf, {
+        get(t, k) {
+          if (k !== 'solveColdRun') return Reflect.get(t, k) as unknown;
+          return (req: ColdRunRequest) => t.solveColdRun(req).then((out) => { seen(req, out); return out; });
+        },
+      });
+    },
+  });
+  const watched = Object.create(pool) as WorkerPool<Engine>;
+  watched.run = (tasks, exec, opts) => pool.run(tasks, (remote, task, i, slot) => exec(watch(remote) as typeof remote, task, i, slot), opts);
+  return watched;
 }

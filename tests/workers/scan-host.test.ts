@@ -11,7 +11,8 @@ import { runScan } from '../../workers/scan-driver.ts';
 import { serveScans, type HostPort } from '../../workers/scan-host.ts';
 import { ScanHostClient } from '../../workers/scan-host-client.ts';
 import { parseAxis } from '../../src/core/scan/axes.ts';
-import type { ScanPlan, ScanPoint } from '../../src/core/scan/grid.ts';
+import { gridPoint, pointSeed, type ScanPlan, type ScanPoint } from '../../src/core/scan/grid.ts';
+import { solveGroundState } from '../../src/core/meanfield/ground-state.ts';
 
 // a small vdw chain map crossing empty, condensate and density-wave regions (Mmax 6: fast)
 const plan: ScanPlan = {
@@ -33,9 +34,9 @@ afterAll(() => { direct.close(); hosted.close(); channel.port1.close(); channel.
 describe('scans through the scan host', () => {
   it('an adaptive map: the same points, lines and solves as the driver called directly, in blocks', async () => {
     const want = await runScan(direct, { kind: 'map', plan, order: 'spread' });
-    const streamed: ScanPoint[] = [];
+    const streamed: ScanPoint[] = [], preview: ScanPoint[] = [];
     pointMessages = 0;
-    const got = await client.scan({ kind: 'map', plan, order: 'spread' }, { onItem: (p) => streamed.push(p) });
+    const got = await client.scan({ kind: 'map', plan, order: 'spread' }, { onItem: (p) => streamed.push(p), onPreview: (ps) => preview.push(...ps) });
     expect(got.points).toStrictEqual(want.points);
     expect(got.boundaries).toStrictEqual(want.boundaries);
     expect(got.solves).toBe(want.solves);
@@ -44,6 +45,14 @@ describe('scans through the scan host', () => {
     // 216 points: the map's bands (coarse rows 0, 8: two bands) come as a few blocks
     expect(pointMessages).toBeGreaterThanOrEqual(1);
     expect(pointMessages).toBeLessThanOrEqual(10);
+    // the preview: grid points solved cold (the refinement corners), each the point solved
+    // alone with its grid seed and no guess; at least the coarse grid's corners (columns
+    // 0, 12, 23: the segment starts of a 24-point row and its end; rows 0 and 8: six points)
+    expect(preview.length).toBeGreaterThanOrEqual(6);
+    for (const p of preview.slice(0, 12)) {
+      expect(p.index).toBe(p.iy * plan.x.count + p.ix);
+      expect(p.state).toStrictEqual(solveGroundState(gridPoint(plan, p.ix, p.iy), { seed: pointSeed(plan.seed, p.index) }));
+    }
   });
 
   it('a staircase: the same points and plateaus', async () => {

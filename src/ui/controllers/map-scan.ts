@@ -24,8 +24,23 @@ export const SCAN_SEED = 1;
 
 export interface MapPlan { base: ModelParams; x: Axis; y: Axis }
 
-/** How far (in cells) a reused point paints its unsolved neighbours while the map fills in. */
-const PREVIEW_RING = 12;
+/**
+ * For every cell of an nx x ny grid, the index of the nearest cell with known(index) true, in
+ * steps along the grid (4-neighbour breadth-first search from every known cell at once,
+ * O(nx ny)); -1 where nothing is known.
+ */
+export function nearestKnown(nx: number, ny: number, known: (index: number) => boolean): Int32Array {
+  const n = nx * ny, from = new Int32Array(n).fill(-1), queue = new Int32Array(n);
+  let head = 0, tail = 0;
+  for (let i = 0; i < n; i++) if (known(i)) { from[i] = i; queue[tail++] = i; }
+  while (head < tail) {
+    const i = queue[head++], x = i % nx;
+    for (const j of [i - nx, x > 0 ? i - 1 : -1, x < nx - 1 ? i + 1 : -1, i + nx]) {
+      if (j >= 0 && j < n && from[j] < 0) { from[j] = from[i]; queue[tail++] = j; }
+    }
+  }
+  return from;
+}
 
 /** One scan's grid of points. */
 export class MapGrid {
@@ -65,32 +80,24 @@ export class MapGrid {
     return this.points[iy * this.nx + ix]?.state;
   }
   /**
-   * The state that paints cell (ix, iy): its own, or that of the nearest row done, or (a map
-   * that started from points of another: a preview) of a nearer point known (within
-   * PREVIEW_RING cells), so the preview points paint a coarse picture at once.
+   * The state that paints cell (ix, iy): its own, else that of the nearest cell known (by
+   * steps along the grid; ties as the search meets them): a row done paints the rows around it,
+   * and a preview (the scan's coarse corners, or a kept map's points at the same grid points)
+   * paints the plane at once, each new point sharpening the picture.
    */
   paint(ix: number, iy: number): SolveResult | undefined {
     const own = this.own(ix, iy);
     if (own) return own;
-    let row: SolveResult | undefined, d = 1;
-    for (; d < this.ny; d++) {
-      const hit = [iy - d, iy + d].find((jy) => jy >= 0 && jy < this.ny && this.rowCount[jy] === this.nx);
-      if (hit !== undefined) { row = this.points[hit * this.nx + ix]?.state; break; }
+    const version = this.count + this.preview.size * 1e9;
+    if (this.nearest === null || this.nearestVersion !== version) {
+      this.nearest = nearestKnown(this.nx, this.ny, (i) => this.points[i]?.state !== undefined);
+      this.nearestVersion = version;
     }
-    if (this.preview.size > 0) {
-      for (let r = 1; r < Math.min(d, PREVIEW_RING + 1); r++) {
-        for (let jy = iy - r; jy <= iy + r; jy++) {
-          if (jy < 0 || jy >= this.ny) continue;
-          const step = jy === iy - r || jy === iy + r ? 1 : 2 * r;
-          for (let jx = ix - r; jx <= ix + r; jx += step) {
-            const s = jx >= 0 && jx < this.nx ? this.points[jy * this.nx + jx]?.state : undefined;
-            if (s) return s;
-          }
-        }
-      }
-    }
-    return row;
+    const k = this.nearest[iy * this.nx + ix];
+    return k < 0 ? undefined : this.points[k]?.state;
   }
+  private nearest: Int32Array | null = null;
+  private nearestVersion = -1;
   /** The points computed so far, in index order. */
   done(): ScanPoint[] {
     return this.points.filter((p): p is ScanPoint => p !== undefined);
@@ -107,7 +114,7 @@ export class MapScanController implements ReactiveController {
   error: string | null = null;
   /** Points of the current grid that could not be solved. */
   failed = 0;
-  /** ms from start to the first picture (the first whole row: from then on every cell is painted, from its nearest row done), and to the last point. */
+  /** ms from start to the first picture (the scan's first preview points or its first whole row: from then on every cell is painted, from its nearest point known), and to the last point. */
   firstPictureMs: number | null = null;
   totalMs: number | null = null;
   /** performance.now() at the start of the current run. */
@@ -179,7 +186,16 @@ export class MapScanController implements ReactiveController {
       if (this.shown !== grid) this.shown = grid;
       this.schedule();
     };
-    this.finished = this.engine().scan({ kind: 'map', plan: grid.scanPlan, order: 'spread' }, { signal: ctrl.signal, onItem: deliver }).then(
+    // the scan's own preview: grid points its workers solved cold (the adaptive map's
+    // refinement corners), coarse grid first, shown until their rows arrive
+    const onPreview = (pts: ScanPoint[]) => {
+      if (ctrl.signal.aborted) return;
+      for (const p of pts) if (!grid.points[p.index]) { grid.points[p.index] = p; grid.preview.add(p.index); }
+      if (this.firstPictureMs === null) this.firstPictureMs = performance.now() - this.t0;
+      if (this.shown !== grid) this.shown = grid;
+      this.schedule();
+    };
+    this.finished = this.engine().scan({ kind: 'map', plan: grid.scanPlan, order: 'spread' }, { signal: ctrl.signal, onItem: deliver, onPreview }).then(
       (result) => {
         if (this.ctrl !== ctrl) return;
         this.totalMs = performance.now() - this.t0;

@@ -17,7 +17,7 @@ import type { Remote } from 'comlink';
 import type { Engine } from '../../../workers/engine.ts';
 import type { WorkerPool } from '../../../workers/pool.ts';
 import { runScan } from '../../../workers/scan-driver.ts';
-import type { ScanHostClient } from '../../../workers/scan-host-client.ts';
+import type { HostScanOptions, ScanHostClient } from '../../../workers/scan-host-client.ts';
 import type { ScanItem, ScanKind, ScanKinds, ScanOptions, ScanResult } from '../../../workers/protocol.ts';
 
 export type EngineRemote = Remote<Engine>;
@@ -56,8 +56,11 @@ export class EngineClient {
     return r;
   }
 
-  /** A scan (any kind of workers/protocol.ts) on the scan workers, through the one scan driver (in the host when there is one). */
-  scan<K extends ScanKind>(req: ScanKinds[K]['request'] & { kind: K }, o: ScanOptions<ScanItem<K>> = {}): Promise<ScanResult<K>> {
+  /**
+   * A scan (any kind of workers/protocol.ts) on the scan workers, through the one scan driver
+   * (in the host when there is one; only the host sends a map's preview, o.onPreview).
+   */
+  scan<K extends ScanKind>(req: ScanKinds[K]['request'] & { kind: K }, o: HostScanOptions<ScanItem<K>> = {}): Promise<ScanResult<K>> {
     return this.host ? this.host.scan(req, o) : runScan(this.scanPool, req, o);
   }
 
