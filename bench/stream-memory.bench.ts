@@ -4,8 +4,9 @@
  * peak resident set of the process (its worker threads included) is read from
  * /proc/<pid>/status (VmHWM, the high-water mark) every 100 ms while it runs. Side by side,
  * and their ratio: a map streamed to disk should need no more memory when it is 100 times
- * bigger (target: ratio under 1.5). --quick: 50 x 50 against 300 x 300.
- * Sizes: --small=N --big=N (points a side).
+ * bigger (target: ratio under 1.5). Both ways a map is computed: the default (adaptive)
+ * and --dense. --quick: 50 x 50 against 300 x 300. Sizes: --small=N --big=N (points a
+ * side); --mode=adaptive or --mode=dense runs one of the two.
  */
 import { execFileSync, spawn } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
@@ -27,10 +28,10 @@ function peakMb(pid: number): number | undefined {
 }
 
 /** Run one map of side n into dir; resolves with the peak RSS (MB) seen and the wall time (s). */
-function measure(n: number, dir: string): Promise<{ mb: number; seconds: number }> {
+function measure(n: number, dir: string, dense: boolean): Promise<{ mb: number; seconds: number }> {
   return new Promise((resolve, reject) => {
-    const argv = [join(root, 'dist', 'cli', 'atlas.mjs'), 'map', '--x', `mu=-1:2:${n}`, '--y', `rb=1:1.5:${n}`, '--detuning', '3',
-      '--max-cell', '4', '--workers', '2', '--out', join(dir, `map-${n}.csv`)];
+    const argv = [join(root, 'dist', 'cli', 'atlas.mjs'), 'map', '--x', `mu=-1..2x${n}`, '--y', `rb=1..1.5x${n}`, '--detuning', '3',
+      '--max-cell', '4', '--workers', '2', ...(dense ? ['--dense'] : []), '--out', join(dir, `map-${n}.csv`)];
     const t0 = performance.now();
     const child = spawn(process.execPath, argv, { stdio: ['ignore', 'ignore', 'pipe'], env: { ...process.env, ATLAS_PROGRESS: '' } });
     let peak = 0, err = '';
@@ -49,7 +50,7 @@ function measure(n: number, dir: string): Promise<{ mb: number; seconds: number 
 
 const bench: Bench = {
   name: 'stream-memory',
-  title: 'peak resident memory of a streamed map: 100 x 100 against 1000 x 1000 (1D, --max-cell 4), side by side',
+  title: 'peak resident memory of a streamed map: 100 x 100 against 1000 x 1000 (1D, --max-cell 4), adaptive and --dense, side by side',
   async run(ctx) {
     execFileSync(process.execPath, ['scripts/build-cli.mjs', '--quiet'], { cwd: root });
     const quick = ctx.flag('quick');
@@ -57,13 +58,18 @@ const bench: Bench = {
     const big = Number(ctx.option('big') ?? (quick ? 300 : 1000));
     const dir = mkdtempSync(join(tmpdir(), 'atlas-stream-bench-'));
     try {
-      const a = await measure(small, dir);
-      ctx.log(`map ${small} x ${small}: peak RSS ${a.mb.toFixed(1)} MB in ${a.seconds.toFixed(1)} s`);
-      const b = await measure(big, dir);
-      ctx.log(`map ${big} x ${big}: peak RSS ${b.mb.toFixed(1)} MB in ${b.seconds.toFixed(1)} s`);
-      ctx.figure(`peak RSS, ${small} x ${small} map`, a.mb, 'MB');
-      ctx.figure(`peak RSS, ${big} x ${big} map`, b.mb, 'MB');
-      ctx.figure(`RSS ratio ${big}^2 / ${small}^2`, b.mb / a.mb, 'x', { target: '< 1.5' });
+      const mode = ctx.option('mode');
+      for (const dense of [false, true]) {
+        const name = dense ? 'dense' : 'adaptive';
+        if (mode !== undefined && mode !== name) continue;
+        const a = await measure(small, dir, dense);
+        ctx.log(`${name} map ${small} x ${small}: peak RSS ${a.mb.toFixed(1)} MB in ${a.seconds.toFixed(1)} s`);
+        const b = await measure(big, dir, dense);
+        ctx.log(`${name} map ${big} x ${big}: peak RSS ${b.mb.toFixed(1)} MB in ${b.seconds.toFixed(1)} s`);
+        ctx.figure(`peak RSS, ${name} ${small} x ${small} map`, a.mb, 'MB');
+        ctx.figure(`peak RSS, ${name} ${big} x ${big} map`, b.mb, 'MB');
+        ctx.figure(`RSS ratio ${big}^2 / ${small}^2, ${name}`, b.mb / a.mb, 'x', { target: '< 1.5' });
+      }
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
