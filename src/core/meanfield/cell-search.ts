@@ -13,7 +13,8 @@ import { type Potential, resolvePotential } from '../interaction/potential.ts';
 import type { ModelParams } from '../model.ts';
 import { ConvergenceError } from '../convergence-error.ts';
 import { cellCouplings } from './coupling-cache.ts';
-import { type CellSolution, solveCell } from './sublattice.ts';
+import { type CellSolution, solveCell, T_GROUND } from './sublattice.ts';
+import { cellFloor } from './cell-bound.ts';
 import { descendedPattern } from './bloch-angles.ts';
 import { type Start, cellStarts } from './starts.ts';
 import { classifyPhase, type PhaseTolerances } from './phase.ts';
@@ -133,10 +134,23 @@ export function stateInCell(p: ModelParams, cell: Supercell | { a: number; b: nu
   return c ? toState(context(p), c, p.mu as number, o.tolerances, false) : null;
 }
 
+/**
+ * Whether no candidate of cell can replace `best` (at T = 0): its floor (cell-bound.ts, a
+ * proven lower bound of every state's Omega in the cell, rounding included) is at least
+ * best - 1e-12 |best| / 2, while `better` asks for more than best - 1e-12 |best| to replace.
+ * Skipping such a cell therefore leaves every step of the search unchanged: the same winner,
+ * bit for bit.
+ */
+function cannotBeat(ctx: Context, cell: Supercell, mu: number, best: CellSolution): boolean {
+  if (cell.M === 1 || !(ctx.p.T === 0 || ctx.p.T < T_GROUND)) return false;
+  return cellFloor(cell, cellJ(ctx, cell), mu, ctx.p.delta) >= best.omega - 0.5e-12 * Math.max(1, Math.abs(best.omega));
+}
+
 /** Lowest-Omega candidate over all cells of the context at chemical potential mu. */
 export function searchCells(ctx: Context, mu: number, o: SearchOptions = {}): Candidate {
   let best: Candidate | null = null;
   for (const cell of ctx.cells) {
+    if (best && cannotBeat(ctx, cell, mu, best.sol)) continue;
     for (const c of cellCandidates(ctx, cell, mu, o)) if (better(c.sol, best?.sol ?? null)) best = c;
   }
   if (!best) throw new ConvergenceError('mean-field', `no start converged in ${ctx.cells.length} cells at mu = ${mu}`);
