@@ -3,6 +3,8 @@
 // and continued with --resume is byte for byte the uninterrupted run, for a whole map and
 // for one shard, in CSV and JSON; a torn last line is dropped; a part of another scan is
 // refused; merge refuses a NaN, a non-numeric field and a row cut short, naming the line.
+// The same for staircase (JSON), softlines and qmc-scan, and for every streaming command a
+// run killed or failing leaves an existing --out file as it was.
 // Check values: the uninterrupted run of the same command (common practice, no source:
 // resuming must not change a byte), and the refusals' wording.
 import { execFileSync, spawn } from 'node:child_process';
@@ -23,22 +25,30 @@ interface Run { code: number | null; err: string }
 
 /**
  * Run the built CLI; with `stop`, send that signal once the file `watch` holds more than
- * `bytes` bytes (rows are being written), polling every 50 ms. Never left running: a
- * guard kills it after 90 s.
+ * `bytes` bytes (rows are being written), polling every 50 ms, or once stderr matches
+ * `err` (a progress line). Never left running: a guard kills it after 90 s.
  */
-function atlas(argv: string[], stop?: { signal: NodeJS.Signals; watch: string; bytes: number }): Promise<Run> {
+function atlas(argv: string[], stop?: { signal: NodeJS.Signals; watch?: string; bytes?: number; err?: RegExp }): Promise<Run> {
   return new Promise((resolve) => {
     const child = spawn(process.execPath, [join(root, 'dist', 'cli', 'atlas.mjs'), ...argv], { cwd: tmp, env: { ...process.env, ATLAS_PROGRESS: '0' } });
     let err = '';
-    child.stderr.on('data', (d: Buffer) => void (err += d.toString()));
+    let sent = false;
+    child.stderr.on('data', (d: Buffer) => {
+      err += d.toString();
+      if (stop?.err && !sent && stop.err.test(err)) {
+        sent = true;
+        child.kill(stop.signal);
+      }
+    });
     child.stdout.resume();
-    const poll = stop && setInterval(() => {
-      const size = existsSync(stop.watch) ? statSync(stop.watch).size : 0;
-      if (size > stop.bytes) {
+    const poll = stop?.watch ? setInterval(() => {
+      const size = existsSync(stop.watch as string) ? statSync(stop.watch as string).size : 0;
+      if (size > (stop.bytes ?? 0) && !sent) {
+        sent = true;
         clearInterval(poll);
         child.kill(stop.signal);
       }
-    }, 50);
+    }, 50) : undefined;
     const guard = setTimeout(() => child.kill('SIGKILL'), 90_000);
     child.on('close', (code) => {
       clearTimeout(guard);
@@ -209,5 +219,94 @@ describe('merge checks every value of every part', () => {
     const good = await cli(['merge', 'j2', 'j1'], js);
     expect(good.code).toBe(0);
     expect((JSON.parse(good.out) as { points: unknown[] }).points.length).toBe(60);
+  }, 60_000);
+});
+
+describe('staircase, softlines and qmc-scan stopped midway and resumed; an existing file survives a failed run', () => {
+  const OLD = 'an older result\n';
+  const STAIR = ['staircase', '--mu=-0.5..3x5000', '--interaction', 'nn', '--v1', '1', '--detuning', '50', '--max-cell', '6', '--workers', '2', '--json'];
+  let stair = '';
+  beforeAll(async () => {
+    expect((await atlas([...STAIR, '--out', 'stair.json'])).code).toBe(0);
+    stair = readFileSync(file('stair.json'), 'utf8');
+    expect(stair.split('\n').length).toBe(1 + 5000 + 1 + 1);
+  }, 120_000);
+
+  it('staircase: SIGKILL leaves the old file and a .partial; --resume completes it byte for byte', async () => {
+    writeFileSync(file('sk.json'), OLD);
+    const r = await atlas([...STAIR, '--out', 'sk.json'], { signal: 'SIGKILL', watch: file('sk.json.partial'), bytes: 20_000 });
+    expect(r.code).toBe(null);
+    expect(readFileSync(file('sk.json'), 'utf8')).toBe(OLD);
+    const part = readFileSync(file('sk.json.partial'), 'utf8');
+    expect(stair.startsWith(part)).toBe(true);
+    expect(part.length).toBeLessThan(stair.length / 2);
+    const again = await atlas([...STAIR, '--out', 'sk.json', '--resume']);
+    expect(again.code).toBe(0);
+    expect(again.err).toMatch(/staircase: 5000 of 5000 points in .* \(\d+ read back\)/);
+    expect(existsSync(file('sk.json.partial'))).toBe(false);
+    expect(readFileSync(file('sk.json'), 'utf8') === stair).toBe(true);
+  }, 120_000);
+
+  it('staircase: SIGTERM writes the finished points (exit 143); --resume completes them byte for byte', async () => {
+    const r = await atlas([...STAIR, '--out', 'st.json'], { signal: 'SIGTERM', watch: file('st.json.partial'), bytes: 20_000 });
+    expect(r.code).toBe(143);
+    const part = readFileSync(file('st.json'), 'utf8').split('\n');
+    expect(part.at(-2)).toBe('],"plateaus":null,"complete":false}');
+    expect(stair.startsWith(part.slice(0, -2).join('\n') + '\n')).toBe(true);
+    const again = await atlas([...STAIR, '--out', 'st.json', '--resume']);
+    expect(again.code).toBe(0);
+    expect(readFileSync(file('st.json'), 'utf8') === stair).toBe(true);
+  }, 120_000);
+
+  const SOFT = ['softlines', '--x', 'mu=-1..0.9x9', '--y', 'rb=0.8..1.5x9', '--detuning', '1', '--ranges', 'nn,vdw:1,vdw:2,vdw:3', '--phases', 'condensate,normal', '--workers', '2'];
+  it('softlines: SIGKILL leaves the old file; SIGTERM writes the finished lines; --resume completes them byte for byte', async () => {
+    expect((await atlas([...SOFT, '--out', 'soft.csv'])).code).toBe(0);
+    const whole = readFileSync(file('soft.csv'), 'utf8');
+    writeFileSync(file('sl.csv'), OLD);
+    const killed = await atlas([...SOFT, '--out', 'sl.csv'], { signal: 'SIGKILL', err: / [2-7]\/8 lines/ });
+    expect(killed.code).toBe(null);
+    expect(readFileSync(file('sl.csv'), 'utf8')).toBe(OLD);
+    const r = await atlas([...SOFT, '--out', 'sl.csv'], { signal: 'SIGTERM', err: / [2-7]\/8 lines/ });
+    expect(r.code).toBe(143);
+    expect(r.err).toMatch(/interrupted: wrote the [1-7] finished of 8 lines to sl\.csv \(continue it with --resume\)/);
+    const part = readFileSync(file('sl.csv'), 'utf8');
+    expect(whole.startsWith(part)).toBe(true);
+    expect(part.length).toBeLessThan(whole.length);
+    const again = await atlas([...SOFT, '--out', 'sl.csv', '--resume']);
+    expect(again.code).toBe(0);
+    expect(again.err).toMatch(/softlines: 8 of 8 lines in .*\(\d read back\)/);
+    expect(readFileSync(file('sl.csv'), 'utf8') === whole).toBe(true);
+  }, 120_000);
+
+  const QMC = ['qmc-scan', '--x', 'alpha=0.2..0.6x6', '--sizes', '4,6,8', '--interaction', 'nn', '--v1', '1', '--mu', '1', '--temperature', '0.5', '--sweeps', '8000', '--bins', '8', '--workers', '2'];
+  it('qmc-scan: SIGKILL leaves the old file and a .partial holding a prefix of whole rows; --resume completes it byte for byte', async () => {
+    expect((await atlas([...QMC, '--out', 'qmc.csv'])).code).toBe(0);
+    const whole = readFileSync(file('qmc.csv'), 'utf8');
+    const head = whole.indexOf('\n') + 1;
+    writeFileSync(file('qk.csv'), OLD);
+    const r = await atlas([...QMC, '--out', 'qk.csv'], { signal: 'SIGKILL', watch: file('qk.csv.partial'), bytes: head });
+    expect(r.code).toBe(null);
+    expect(readFileSync(file('qk.csv'), 'utf8')).toBe(OLD);
+    const part = readFileSync(file('qk.csv.partial'), 'utf8');
+    expect(whole.startsWith(part)).toBe(true);
+    expect(part.length).toBeLessThan(whole.length);
+    const again = await atlas([...QMC, '--out', 'qk.csv', '--resume']);
+    expect(again.code).toBe(0);
+    expect(again.err).toMatch(/qmc-scan: 18 of 18 runs in .*\(\d+ read back\)/);
+    expect(readFileSync(file('qk.csv'), 'utf8') === whole).toBe(true);
+  }, 120_000);
+
+  it('merge: a refused merge leaves the old file and no .partial', async () => {
+    const small = ['map', '--x', 'mu=-1..2x20', '--y', 'rb=1..1.5x3', '--detuning', '3', '--max-cell', '3', '--workers', '2', '--shard'];
+    expect((await atlas([...small, '1/2', '--out', 'm1.csv'])).code).toBe(0);
+    expect((await atlas([...small, '2/2', '--out', 'm2.csv'])).code).toBe(0);
+    const rows = readFileSync(file('m2.csv'), 'utf8').split('\n');
+    writeFileSync(file('m2-cut.csv'), rows.slice(0, -3).join('\n') + '\n'); // its last row is missing
+    writeFileSync(file('merged.csv'), OLD);
+    const r = await atlas(['merge', 'm1.csv', 'm2-cut.csv', '--out', 'merged.csv']);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/shard 2\/2 \(m2-cut\.csv\) is incomplete/);
+    expect(readFileSync(file('merged.csv'), 'utf8')).toBe(OLD);
+    expect(existsSync(file('merged.csv.partial'))).toBe(false);
   }, 60_000);
 });
