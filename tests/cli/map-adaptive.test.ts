@@ -76,20 +76,23 @@ describe('map: adaptive by default, --dense, solves, boundaries', () => {
     });
   }, 300_000);
 
-  it('says why a map is not adaptive (T > 0, a shard), on stderr and in the JSON; refuses --boundaries there', async () => {
+  it('says why a map is not certified (T > 0) or draws no lines (a shard), on stderr and in the JSON; refuses --boundaries there', async () => {
     const line = ['map', '--x', 'mu=-1..3.9x12', '--rb', '1.5', '--detuning', '4', '--max-cell', '4', '--workers', '2'];
     const hot = await cli([...line, '--temperature', '0.1', '--json']);
     expect(hot.code).toBe(0);
-    expect(hot.err).toMatch(/map: note: at T > 0/);
-    const doc = JSON.parse(hot.out) as Doc;
-    expect(doc.notes[0]).toMatch(/^at T > 0/);
-    expect(doc.solves).toEqual({ total: 12, pixels: 12, boundaries: 0 });
+    expect(hot.err).toMatch(/map: note: not certified \(at T > 0/);
+    const doc = JSON.parse(hot.out) as Doc & { solves: { inCell: number } };
+    expect(doc.notes).toHaveLength(1);
+    expect(doc.notes[0]).toMatch(/^not certified \(at T > 0/);
+    // every pixel solved in full or in its region's cell; none confirms a boundary
+    expect(doc.solves.total + doc.solves.inCell).toBe(12);
+    expect(doc.solves.boundaries).toBe(0);
     const shard = await cli([...line, '--json', '--shard', '1/2']);
     expect(shard.err).toMatch(/map 1\/2: note: a shard refines only the rectangles that hold its own segments/);
     // a part keeps the bare closing line that merge reads
     expect(shard.out.trimEnd().split('\n').slice(-1)[0]).toBe('],"complete":true}');
     expect(shard.out).not.toMatch(/"solves"/);
-    for (const extra of [['--temperature', '0.1'], ['--dense'], ['--shard', '1/2']]) {
+    for (const extra of [['--dense'], ['--shard', '1/2']]) {
       const files = new Map<string, string>();
       const r = await cli([...line, ...extra, '--boundaries', 'b.csv'], files);
       expect(r.code).toBe(2);

@@ -127,8 +127,8 @@ describe('staircase streams its points, plateaus at the end', () => {
 
 describe('backpressure: a stdout that does not drain pauses the map', () => {
   it('one window (16 segments) is written, no more, until stdout drains; then the whole map', async () => {
-    // 100 x 20 at T > 0 (a dense map): rows of 7 segments (15, 15, 14, 14, 14, 14, 14 points)
-    const MAP = ['map', '--x', 'mu=-1..2x100', '--y', 'rb=1..1.5x20', '--detuning', '3', '--temperature', '0.05', '--max-cell', '2', '--workers', '2'];
+    // 100 x 20 at T > 0, dense: rows of 7 segments (15, 15, 14, 14, 14, 14, 14 points)
+    const MAP = ['map', '--x', 'mu=-1..2x100', '--y', 'rb=1..1.5x20', '--detuning', '3', '--temperature', '0.05', '--max-cell', '2', '--dense', '--workers', '2'];
     const free = await cli(MAP);
     expect(free.code).toBe(0);
     let out = '', calls = 0, release = () => undefined as void;
