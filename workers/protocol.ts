@@ -223,6 +223,11 @@ export interface ScanOptions<Item> {
    * drop a point that arrives twice). Default true.
    */
   keepPoints?: boolean;
+  /**
+   * Awaited before each band of rows of an adaptive map (the CLI: until stdout has drained),
+   * so a slow reader of the output pauses the scan instead of rows queueing in memory.
+   */
+  ready?: () => Promise<void>;
 }
 
 // ---- quantum Monte Carlo (workers/api/qmc.ts, qmc-run.ts, qmc-scan.ts) -----------------

@@ -11,8 +11,9 @@
  * start (continuation makes a point depend on the points before it in its segment) and its
  * points already written are dropped, so the file is byte for byte the uninterrupted one.
  * The adaptive map (map-adaptive.ts; not --dense) is one scan over whole rows (a shard's: its own pixels)
- * instead of windows: it hands back a band of 16 rows at a time in point order, and its
- * figures and boundary lines close the JSON (map-summary.ts) and go to --boundaries.
+ * instead of windows: it hands back the rows of each band of 16 in point order, waiting
+ * before each band for the output to be ready, and its figures and boundary lines close
+ * the JSON (map-summary.ts) and go to --boundaries.
  */
 import type { ScanPlan, ScanPoint } from '../core/scan/grid.ts';
 import type { Shard } from '../core/scan/shards.ts';
@@ -26,7 +27,7 @@ import { readyOrAborted, ReorderBuffer } from './reorder-buffer.ts';
 import { readBack } from './resume.ts';
 import { mapSummary, runAdaptiveRows, type MapMode } from './map-adaptive.ts';
 import { boundariesCsv, solvesText, summaryJson } from './map-summary.ts';
-import type { MapScanResult } from '../../workers/protocol.ts';
+import type { MapScanResult, ScanOptions } from '../../workers/protocol.ts';
 import { pointBudgetMs, workerCount } from './scan-run.ts';
 import { PointCursor, ShardSegments } from './shard-cursor.ts';
 import type { OutputTarget } from './stream-writer.ts';
@@ -120,7 +121,11 @@ export async function streamMap(io: CliIo, a: ParsedArgs, job: MapJob, target: O
   const run = await interruptible(io, workers, async (pool, signal) => {
     if (job.mode.adaptive) {
       // one scan over whole rows: it hands back a band of rows at a time in point order
-      adaptive = await runAdaptiveRows(pool, job.plan, fromRow, job.continuation, { signal, pointBudgetMs: budget, onItem: accept }, job.shard);
+      // before each band the output must be ready (stdout drained), as before each window below
+      const opts: ScanOptions<ScanPoint> & { signal: AbortSignal; onItem: (pt: ScanPoint) => void } = {
+        signal, pointBudgetMs: budget, onItem: accept, ready: () => readyOrAborted(target, signal),
+      };
+      adaptive = await runAdaptiveRows(pool, job.plan, fromRow, job.continuation, opts, job.shard);
       return;
     }
     const stop = new AbortController();

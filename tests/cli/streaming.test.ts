@@ -149,6 +149,28 @@ describe('backpressure: a stdout that does not drain pauses the map', () => {
     expect(out).toBe(free.out);
     expect(rows()).toBe(2000);
   }, 120_000);
+
+  it('the adaptive map: its first band (16 rows) is written, no more, until stdout drains; then the whole map', async () => {
+    const MAP = ['map', '--x', 'mu=-1..2x100', '--y', 'rb=1..1.5x50', '--detuning', '3', '--max-cell', '2', '--workers', '2'];
+    const free = await cli(MAP);
+    expect(free.code).toBe(0);
+    let out = '', calls = 0, release = () => undefined as void;
+    const gate = new Promise<void>((resolve) => { release = resolve; });
+    const run = cli(MAP, new Map(), undefined, {
+      stdout: (t) => void (out += t),
+      stdoutDrained: () => (++calls === 1 ? Promise.resolve() : gate),
+    });
+    const rows = () => Math.max(0, out.split('\n').length - 2);
+    for (let i = 0; i < 400 && calls < 2; i++) await new Promise((r) => setTimeout(r, 50));
+    await new Promise((r) => setTimeout(r, 1500));
+    expect(calls).toBe(2); // the scan asked again before its second band, and waits
+    expect(rows()).toBeLessThanOrEqual(1600); // rows 0..15 at most (the writer flushes every 64 KiB)
+    release();
+    const r = await run;
+    expect(r.code).toBe(0);
+    expect(out).toBe(free.out);
+    expect(rows()).toBe(5000);
+  }, 120_000);
 });
 
 // --resume of staircase and softlines, in this process on parts cut as a killed run leaves

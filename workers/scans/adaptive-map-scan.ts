@@ -133,6 +133,7 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
   const ties = mode === 'certify' && located ? new TieCertifier(plan, located, solveCold) : null;
 
   for (const band of bands) {
+    await o.ready?.(); // a slow reader of the output pauses the scan (backpressure)
     // refinement: every pixel of the band certified or solved cold
     const certified = new Map<number, Crystal>();
     const uniform = new Map<number, RegionCell>();
