@@ -9,11 +9,15 @@
  */
 import type { ScanItem, ScanKind, ScanKinds, ScanOptions, ScanPoint, ScanResult } from './protocol.ts';
 import { abortError } from './pool.ts';
-import { unpackPoints } from './point-blocks.ts';
+import { blockBuffers, packPoints, unpackPoints } from './point-blocks.ts';
 import type { HostMessage, HostPort, HostRequest } from './scan-host.ts';
 
 /** runScan's options, and the host's preview of a map (grid points solved cold before their rows are delivered: scan-host.ts). */
-export type HostScanOptions<Item> = ScanOptions<Item> & { onPreview?: (points: ScanPoint[]) => void };
+export type HostScanOptions<Item> = ScanOptions<Item> & {
+  onPreview?: (points: ScanPoint[]) => void;
+  /** A map's grid points the page already has (a zoom's kept points): their cold solves are answered from these. */
+  known?: ScanPoint[];
+};
 
 interface Pending {
   onMessage(m: HostMessage): void;
@@ -88,7 +92,10 @@ export class ScanHostClient {
           }
         },
       });
-      this.send({ type: 'scan', id, req, ...(o.pointBudgetMs !== undefined ? { pointBudgetMs: o.pointBudgetMs } : {}) });
+      const known = o.known?.length ? packPoints(o.known) : undefined;
+      this.port.postMessage({
+        type: 'scan', id, req, ...(o.pointBudgetMs !== undefined ? { pointBudgetMs: o.pointBudgetMs } : {}), ...(known ? { known } : {}),
+      } satisfies HostRequest, known ? blockBuffers(known) : []);
     });
   }
 

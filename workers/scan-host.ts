@@ -17,12 +17,19 @@
  * changes none) and sends each grid point's cold state as a preview block, so the page can
  * paint a coarse picture at once and sharpen it level by level; the rows' own points
  * replace the preview as they arrive.
+ *
+ * Known points: a map may come with points the page already has at its grid points (a zoom
+ * into a kept map, map-cache.ts shared). A cold solve the driver asks of such a point is
+ * answered with the known state instead of a worker (its winning search cell unknown, so
+ * the row fill solves the point again only where it has a guess and no certificate), and
+ * the result's solves and notes say how many.
  */
 import type { Engine } from './engine.ts';
 import type { WorkerPool } from './pool.ts';
 import type { ScanKind, ScanPoint, ScanRequest } from './protocol.ts';
 import { runScan } from './scan-driver.ts';
-import { blockBuffers, packPoints, type PointBlock } from './point-blocks.ts';
+import { blockBuffers, packPoints, unpackPoints, type PointBlock } from './point-blocks.ts';
+import type { SolveResult } from '../src/core/meanfield/ground-state.ts';
 import { gridPoint, gridShape, pointSeed, type ScanPlan } from '../src/core/scan/grid.ts';
 import type { ColdOutcome, ColdRunRequest } from './protocol.ts';
 
@@ -34,7 +41,7 @@ export const POINT_KINDS: readonly ScanKind[] = ['map', 'staircase'];
 
 /** Page to host. */
 export type HostRequest =
-  | { type: 'scan'; id: number; req: ScanRequest; pointBudgetMs?: number }
+  | { type: 'scan'; id: number; req: ScanRequest; pointBudgetMs?: number; known?: PointBlock }
   | { type: 'cancel'; id: number }
   | { type: 'warm'; id: number };
 
@@ -90,8 +97,11 @@ export function serveScans(port: HostPort, pool: WorkerPool<Engine>): void {
       port.postMessage(msg, transfer);
     };
     const later = () => { if (timer === null) timer = setTimeout(flush, BLOCK_MS); };
+    const known = new Map<number, SolveResult>();
+    if (m.known) for (const p of unpackPoints(m.known)) if (p.state) known.set(p.index, p.state);
+    let reused = 0;
     const watched = m.req.kind === 'map' && !m.req.dense
-      ? watchColdSolves(pool, m.req.plan, (pts) => { if (!ctrl.signal.aborted) { preview.push(...pts); later(); } })
+      ? watchColdSolves(pool, m.req.plan, (pts) => { if (!ctrl.signal.aborted) { preview.push(...pts); later(); } }, known, (n) => { reused += n; })
       : pool;
     runScan(watched, m.req as ScanRequest & { kind: ScanKind }, {
       signal: ctrl.signal,
@@ -103,8 +113,14 @@ export function serveScans(port: HostPort, pool: WorkerPool<Engine>): void {
     }).then((result) => {
       flush();
       runs.delete(m.id);
-      const r = result as unknown as Record<string, unknown>;
-      port.postMessage({ type: 'done', id: m.id, result: 'points' in r ? { ...r, points: [] } : r } satisfies HostMessage);
+      const r = { ...(result as unknown as Record<string, unknown>) };
+      if ('points' in r) r.points = [];
+      if (reused && typeof r.solves === 'number') {
+        // the driver counted the known corners as solved
+        r.solves -= reused;
+        r.notes = [...(r.notes as string[] | undefined ?? []), `${reused} corner points taken from the map this one was zoomed from, not solved again`];
+      }
+      port.postMessage({ type: 'done', id: m.id, result: r } satisfies HostMessage);
     }, (err: unknown) => {
       if (timer !== null) clearTimeout(timer);
       runs.delete(m.id);
@@ -123,23 +139,39 @@ function failure(id: number, err: unknown): HostMessage {
  * The pool as the driver sees it, with every cold run (meanfield.solveColdRun) watched: the
  * points of the run that are grid points of the plan (the seed the driver gives a grid point,
  * pointSeed(plan.seed, index), and the same parameters) are reported with their states.
- * The calls themselves and their results are unchanged.
+ * Grid points in `known` are answered with the known state (searchCell null) instead of
+ * being sent to a worker (reuse(n) counts them); every other call and answer is unchanged.
  */
-export function watchColdSolves(pool: WorkerPool<Engine>, plan: ScanPlan, report: (points: ScanPoint[]) => void): WorkerPool<Engine> {
+export function watchColdSolves(
+  pool: WorkerPool<Engine>, plan: ScanPlan, report: (points: ScanPoint[]) => void,
+  known: ReadonlyMap<number, SolveResult> = new Map(), reuse: (n: number) => void = () => undefined,
+): WorkerPool<Engine> {
   const { nx, ny } = gridShape(plan);
   const bySeed = new Map<number, number>();
   for (let i = 0; i < nx * ny; i++) bySeed.set(pointSeed(plan.seed, i), i);
-  const seen = (req: ColdRunRequest, out: ColdOutcome[]) => {
-    const pts: ScanPoint[] = [];
-    out.forEach((o, k) => {
-      const index = bySeed.get(req.seeds[k]);
-      if (index === undefined || !o.cold) return;
-      const ix = index % nx, iy = Math.floor(index / nx);
-      if (JSON.stringify(req.points[k]) === JSON.stringify(gridPoint(plan, ix, iy))) pts.push({ index, ix, iy, state: o.cold.state });
-    });
-    if (pts.length) report(pts);
+  /** The grid index of point k of a cold run (null: not a grid point: a boundary probe). */
+  const gridIndex = (req: ColdRunRequest, k: number): number | null => {
+    const index = bySeed.get(req.seeds[k]);
+    if (index === undefined) return null;
+    const same = JSON.stringify(req.points[k]) === JSON.stringify(gridPoint(plan, index % nx, Math.floor(index / nx)));
+    return same ? index : null;
   };
   type Meanfield = { solveColdRun(req: ColdRunRequest): Promise<ColdOutcome[]> };
+  const coldRun = async (mf: Meanfield, req: ColdRunRequest): Promise<ColdOutcome[]> => {
+    const at = req.points.map((_, k) => gridIndex(req, k));
+    const ask = at.map((index, k) => (index !== null && known.has(index) ? -1 : k)).filter((k) => k >= 0);
+    const solved = ask.length ? await mf.solveColdRun({ points: ask.map((k) => req.points[k]), seeds: ask.map((k) => req.seeds[k]) }) : [];
+    const out: ColdOutcome[] = at.map((index) => (index !== null && known.has(index) ? { cold: { state: known.get(index) as SolveResult, searchCell: null } } : {}));
+    ask.forEach((k, j) => { out[k] = solved[j]; });
+    if (ask.length < req.points.length) reuse(req.points.length - ask.length);
+    const pts: ScanPoint[] = [];
+    ask.forEach((k, j) => {
+      const index = at[k], o = solved[j];
+      if (index !== null && o.cold) pts.push({ index, ix: index % nx, iy: Math.floor(index / nx), state: o.cold.state });
+    });
+    if (pts.length) report(pts);
+    return out;
+  };
   const watch = (remote: object) => new Proxy(remote, {
     get(target, key) {
       const value = Reflect.get(target, key) as unknown;
@@ -147,8 +179,7 @@ export function watchColdSolves(pool: WorkerPool<Engine>, plan: ScanPlan, report
       const mf = value as Meanfield;
       return new Proxy(mf, {
         get(t, k) {
-          if (k !== 'solveColdRun') return Reflect.get(t, k) as unknown;
-          return (req: ColdRunRequest) => t.solveColdRun(req).then((out) => { seen(req, out); return out; });
+          return k === 'solveColdRun' ? (req: ColdRunRequest) => coldRun(t, req) : Reflect.get(t, k) as unknown;
         },
       });
     },

@@ -55,6 +55,22 @@ describe('scans through the scan host', () => {
     }
   });
 
+  it('known points answer the cold solves at their grid points: the same map, fewer solves', async () => {
+    const want = await runScan(direct, { kind: 'map', plan, order: 'spread' });
+    // every second column of every fourth row (rows 0, 4, 8 hold the coarse corners)
+    const known = want.points.filter((p) => p.iy % 4 === 0 && p.ix % 2 === 0);
+    const got = await client.scan({ kind: 'map', plan, order: 'spread' }, { known });
+    expect(got.points).toStrictEqual(want.points);
+    expect(got.boundaries).toStrictEqual(want.boundaries);
+    const note = (got.notes ?? []).find((n) => n.includes('taken from the map'));
+    const reused = Number(/^(\d+)/.exec(note ?? '')?.[1]);
+    expect(reused).toBeGreaterThan(0);
+    // fewer solves, though not all `reused` fewer: a known corner that is not certified and has
+    // a guess in its row is solved again by the row fill (its winning search cell is unknown)
+    expect(got.solves).toBeLessThan(want.solves as number);
+    expect(got.solves).toBeGreaterThanOrEqual((want.solves as number) - reused);
+  });
+
   it('a staircase: the same points and plateaus', async () => {
     const line: ScanPlan = { base: { ...plan.base, interaction: { shape: 'vdw', Rb: 1.5 } }, x: parseAxis('mu=-1..2.5 x60', 'x'), seed: 1 };
     const want = await runScan(direct, { kind: 'staircase', plan: line });

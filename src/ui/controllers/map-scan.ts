@@ -157,9 +157,11 @@ export class MapScanController implements ReactiveController {
     if (kept) this.shown = kept;
     // a new map shows at once the points it shares with kept maps (a zoom into a box of
     // one): they paint a coarse first picture while the scan runs, and the scan's own
-    // answers replace them as they arrive. The adaptive map solves the whole grid: solving
-    // only the rest densely (the adaptive map takes whole rows only) cost three times the
-    // solves on a demo zoom and broke the located boundary lines at every reused row.
+    // answers replace them as they arrive. They go to the scan as known points: where the
+    // adaptive map would solve one cold (a refinement corner) the known state is taken
+    // (workers/scan-host.ts). The map itself runs whole: solving only the other points
+    // densely (the adaptive map takes whole rows only) cost three times the solves on a
+    // demo zoom and broke the located boundary lines at every reused row.
     const shared = kept ? null : this.cache.shared(plan);
     if (shared?.size) {
       for (const p of shared.values()) { grid.points[p.index] = p; grid.preview.add(p.index); }
@@ -195,7 +197,9 @@ export class MapScanController implements ReactiveController {
       if (this.shown !== grid) this.shown = grid;
       this.schedule();
     };
-    this.finished = this.engine().scan({ kind: 'map', plan: grid.scanPlan, order: 'spread' }, { signal: ctrl.signal, onItem: deliver, onPreview }).then(
+    this.finished = this.engine().scan({ kind: 'map', plan: grid.scanPlan, order: 'spread' }, {
+      signal: ctrl.signal, onItem: deliver, onPreview, ...(shared?.size ? { known: [...shared.values()] } : {}),
+    }).then(
       (result) => {
         if (this.ctrl !== ctrl) return;
         this.totalMs = performance.now() - this.t0;
