@@ -36,7 +36,7 @@ import { shardSegments } from '../../src/core/scan/shards.ts';
 import { lowest, rectPolygon, region, tied } from '../../src/core/scan/tie-rects.ts';
 import type { Rect } from '../../src/core/scan/refinement.ts';
 
-/** Cold points per worker task (small: the refinement levels are short). */
+/** Cold points per worker task (small: a refinement level ends when its slowest task does). */
 const COLD_TASK = 2;
 
 /** Run a map: adaptive unless req.dense (or a case the adaptive map does not cover; see notes). */
