@@ -18,7 +18,7 @@ import { cellFloor } from './cell-bound.ts';
 import { descendedPattern } from './bloch-angles.ts';
 import { type Start, cellStarts } from './starts.ts';
 import { classifyPhase, type PhaseTolerances } from './phase.ts';
-import { isPrimitive, reduceToPrimitive, sameUpToTranslation } from './pattern.ts';
+import { isPrimitive, reduceToPrimitive, sameUpToTranslation, translations } from './pattern.ts';
 import type { MeanFieldState } from './state.ts';
 
 export interface SearchOptions {
@@ -92,15 +92,21 @@ export function cellCandidates(ctx: Context, cell: Supercell, mu: number, o: Sea
     return false;
   };
   // At T = 0 integer starts that descend to the same pattern run the same iteration; the
-  // later ones could only repeat a candidate already found (or abandoned), so they are skipped.
-  const descended: Float64Array[] = [];
+  // later ones could only repeat a candidate already found (or abandoned), so they are
+  // skipped. So are those that descend to a lattice translate of such a pattern: J is
+  // translation invariant, so their iteration is the translate of the first one's (the same
+  // start kick on every sublattice) and ends at the translate of its state, which the first
+  // one's candidate already stands for (a later equal Omega never replaces it; a Newton run
+  // is abandoned as a duplicate within DUPLICATE of it anyway).
+  const descended = new Set<string>();
   for (const s of starts) {
     let m0 = s.m;
     if (prob.T === 0) {
       const n = descendedPattern(prob, m0);
       if (n) {
-        if (descended.some((d) => d.every((v, i) => v === n[i]))) continue;
-        descended.push(n);
+        const key = patternClass(cell, n);
+        if (descended.has(key)) continue;
+        descended.add(key);
         m0 = n;
       }
     }
@@ -108,6 +114,17 @@ export function cellCandidates(ctx: Context, cell: Supercell, mu: number, o: Sea
     if (sol.converged && (keep || isPrimitive(cell, [sol.m], SYMMETRIC))) out.push({ cell, start: s.kind, sol });
   }
   return out;
+}
+
+/** The lexicographically smallest translate of the 0/1 pattern n: equal for translates. */
+function patternClass(cell: Supercell, n: Float64Array): string {
+  let best = '';
+  for (const p of translations(cell)) {
+    let t = '';
+    for (let s = 0; s < p.length; s++) t += n[p[s]] ? '1' : '0';
+    if (best === '' || t < best) best = t;
+  }
+  return best;
 }
 
 /** Iterates equal to this under a translation are treated as having the smaller period. */
