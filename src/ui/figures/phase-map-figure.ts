@@ -3,6 +3,7 @@
  * region boundaries as a categorical contour (or, once the scan has located them, as vector
  * polylines: boundary-lines.ts), the fraction written inside density-wave and supersolid regions, soft-mode lines as polylines, the opened point as a ring, axes with units and a legend. Built from marks only.
  */
+import { atSearchLimit } from '../../core/scan/map-columns.ts';
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import type { PhaseLabel } from '../../core/meanfield/state.ts';
 import { renderFigure } from '../plot/figure.ts';
@@ -130,7 +131,8 @@ export function phaseMapFigure(o: PhaseMapInput): RenderedFigure {
   const atLimit: { x: number; y: number; r: number; fill: string; stroke: string; strokeWidth: number }[] = [];
   if (o.maxCell !== undefined) {
     for (let j = 0; j < g.ny; j++) for (let i = 0; i < g.nx; i++) {
-      if (at(i, j)?.cellSize === o.maxCell) atLimit.push({ x: cx(i), y: cy(j), r: 1.6, fill: '#000000', stroke: '#ffffff', strokeWidth: 0.6 });
+      const st = at(i, j);
+      if (st && atSearchLimit(st, o.maxCell)) atLimit.push({ x: cx(i), y: cy(j), r: 1.6, fill: '#000000', stroke: '#ffffff', strokeWidth: 0.6 });
     }
     if (atLimit.length) marks.push({ ...dots(atLimit), render: (f) => dots(atLimit).render(f).replace('class="dots"', 'class="dots at-limit"') });
   }

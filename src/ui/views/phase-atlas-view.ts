@@ -16,6 +16,8 @@ import { inPageWords } from '../model/page-words.ts';
 import { term, termStyles } from '../app/term-tip.ts';
 import { parseColourRange } from '../figures/colour-scale.ts';
 import { InputError } from '../../core/input-error.ts';
+import { MAX_CELL_LIMIT } from '../../core/model.ts';
+import { atSearchLimit } from '../../core/scan/map-columns.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
 import { MapScanController, type MapGrid } from '../controllers/map-scan.ts';
 import { DragZoomController, type ZoomBox } from '../controllers/drag-zoom.ts';
@@ -96,6 +98,27 @@ export class PhaseAtlasView extends LitElement {
     progress { width: 220px; height: 14px; }
     .readout { font-family: 'DejaVu Sans Mono', monospace; font-size: 13px; min-height: 20px; padding: 3px 6px; background: #f1f3f6; border-radius: 4px; }
   `];
+
+  private limitKey = '';
+  private limitCount = 0;
+
+  /**
+   * On a finished map with points at the search limit (their pattern uses the largest cell
+   * searched, so a longer period may win there), offer the next larger Mmax.
+   */
+  private limitOffer(g: MapGrid) {
+    if (!g.complete) return nothing;
+    const M = g.plan.base.maxCell;
+    if (this.limitKey !== g.key) {
+      this.limitKey = g.key;
+      this.limitCount = g.done().filter((p) => p.state && atSearchLimit(p.state, M)).length;
+    }
+    const cap = g.plan.base.lattice === 'chain' ? MAX_CELL_LIMIT.chain : MAX_CELL_LIMIT.plane;
+    if (this.limitCount === 0 || M >= cap) return nothing;
+    const next = Math.min(cap, g.plan.base.lattice === 'chain' ? 2 * M : M + 4);
+    return html`<p class="limit-offer">${this.limitCount} point${this.limitCount === 1 ? '' : 's'} (dotted) use the largest pattern searched (Mmax = ${M}):
+      <button class="raise-mmax" @click=${() => this.dispatchEvent(new CustomEvent('model-input', { detail: { key: 'max-cell', value: String(next) }, bubbles: true, composed: true }))}>Search up to Mmax = ${next}</button></p>`;
+  }
 
   private patch(p: Partial<AtlasSection>) {
     this.dispatchEvent(new CustomEvent('section-change', { detail: { section: 'atlas', patch: p }, bubbles: true, composed: true }));
@@ -198,7 +221,7 @@ export class PhaseAtlasView extends LitElement {
     const where = `${AXIS_SYMBOLS[g.plan.x.name]} = ${fmt(xv)}, ${AXIS_SYMBOLS[g.plan.y.name]} = ${fmt(yv)}`;
     if (!s) return html`${where}: not computed yet`;
     const maxCell = g.plan.base.maxCell;
-    const limit = s.cellSize === maxCell ? html` <span class="at-limit">(the largest cell searched: may be an artefact of Mmax)</span>` : nothing;
+    const limit = atSearchLimit(s, maxCell) ? html` <span class="at-limit">(the largest cell searched: may be an artefact of Mmax)</span>` : nothing;
     const c = s.coexistence;
     if (c) {
       // inside a first-order jump at fixed density: two phases in the lever rule's proportions
@@ -362,6 +385,7 @@ export class PhaseAtlasView extends LitElement {
       </div>
       ${g && g.solves !== null ? html`<p class="muted map-notes">${g.solves} of ${g.nx * g.ny} points solved in full${g.notes.length
         ? html`; ${g.notes.map((n) => n.replace(/\s*\(--dense[^)]*\)/g, '')).join('; ')}` : ''}.</p>` : nothing}
+      ${g ? this.limitOffer(g) : nothing}
       <figure-panel class="map" interactive .figure=${fig} .cursor=${this.hover} ?busy=${running} stale=${this.staleText()}
         .keyStep=${g ? [(g.plan.x.stop - g.plan.x.start) / Math.max(1, g.nx - 1), (g.plan.y.stop - g.plan.y.start) / Math.max(1, g.ny - 1)] : null}
         @plot-hover=${(e: CustomEvent) => { this.hover = [e.detail.x, e.detail.y]; }}

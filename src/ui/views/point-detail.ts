@@ -8,6 +8,7 @@
  * It opens below the map: each newly opened point is scrolled into view (when its top is
  * not in the upper half of the window), and Escape closes it from anywhere on the page.
  */
+import { atSearchLimit } from '../../core/scan/map-columns.ts';
 import { LitElement, html, css, nothing } from 'lit';
 import type { ModelParams } from '../../core/model.ts';
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
@@ -112,7 +113,7 @@ export class PointDetail extends LitElement {
     const s = this.task.value;
     const lat = this.params?.lattice ?? 'chain';
     return html`<section aria-label="Opened point" aria-busy=${this.task.status === 'pending' ? 'true' : 'false'}>
-      <header><h3>Point ${this.label}${s ? html`: <span class="phase-name">${s.phase === 'supersolid' ? term('supersolid', phaseWords(s, this.params?.maxCell ?? s.cellSize)) : phaseWords(s, this.params?.maxCell ?? s.cellSize)}</span>${this.params && s.cellSize === this.params.maxCell
+      <header><h3>Point ${this.label}${s ? html`: <span class="phase-name">${s.phase === 'supersolid' ? term('supersolid', phaseWords(s, this.params?.maxCell ?? s.cellSize)) : phaseWords(s, this.params?.maxCell ?? s.cellSize)}</span>${this.params && atSearchLimit(s, this.params.maxCell)
           ? html` <span class="err at-limit">(M = Mmax = ${s.cellSize}, the largest cell searched: may be an artefact of that limit)</span>` : nothing}` : nothing}</h3>
         <button @click=${this.close} aria-label="Close the opened point" title="Close (Escape)">Close</button></header>
       ${this.task.error ? html`<p class="err" role="alert">${inPageWords(this.task.error)}</p>` : nothing}
