@@ -17,6 +17,16 @@ import type { Bench } from './harness.ts';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
 
+/**
+ * The node flags of `npm run atlas` (package.json), so the map runs as a user runs it: a
+ * small young generation and an old-generation limit far above the main thread's live
+ * heap (10-20 MB), which keeps V8 from growing the heap with the length of a run.
+ */
+const ATLAS_NODE_FLAGS = (() => {
+  const script = (JSON.parse(readFileSync(join(root, 'package.json'), 'utf8')) as { scripts: Record<string, string> }).scripts.atlas;
+  return script.split(/\s+/).filter((w) => w.startsWith('--'));
+})();
+
 /** VmHWM of a live process in MB (undefined once it is gone). */
 function peakMb(pid: number): number | undefined {
   try {
@@ -30,7 +40,7 @@ function peakMb(pid: number): number | undefined {
 /** Run one map of side n into dir; resolves with the peak RSS (MB) seen and the wall time (s). */
 function measure(n: number, dir: string, dense: boolean): Promise<{ mb: number; seconds: number }> {
   return new Promise((resolve, reject) => {
-    const argv = [join(root, 'dist', 'cli', 'atlas.mjs'), 'map', '--x', `mu=-1..2x${n}`, '--y', `rb=1..1.5x${n}`, '--detuning', '3',
+    const argv = [...ATLAS_NODE_FLAGS, join(root, 'dist', 'cli', 'atlas.mjs'), 'map', '--x', `mu=-1..2x${n}`, '--y', `rb=1..1.5x${n}`, '--detuning', '3',
       '--max-cell', '4', '--workers', '2', ...(dense ? ['--dense'] : []), '--out', join(dir, `map-${n}.csv`)];
     const t0 = performance.now();
     const child = spawn(process.execPath, argv, { stdio: ['ignore', 'ignore', 'pipe'], env: { ...process.env, ATLAS_PROGRESS: '' } });

@@ -36,11 +36,12 @@ const BUILT = !import.meta.url.endsWith('.ts');
 
 /** Start one worker thread running `entry` (default: the engine worker), built or under tsx. */
 export function spawnNodeWorker(entry?: URL): Worker {
-  // The young generation is capped at 16 MB: a worker's live heap is ~10 MB, and V8 grows
-  // the young generation towards its cap over a long run, so a 64 MB cap made a map's
-  // resident memory grow with its length (peak RSS of a 1000 x 1000 map, 2 workers:
-  // 305 -> 268 MB adaptive; the 100 x 100 map 156 -> 152 MB; no loss of speed seen).
-  const resourceLimits = { maxYoungGenerationSizeMb: 16 };
+  // The young generation is capped at 4 MB: a worker's live heap is ~10 MB, and V8 grows
+  // the young generation towards its cap over a long run, so a larger cap made a map's
+  // resident memory grow with its length (peak RSS of a 1000 x 1000 map, 2 workers, with
+  // the main thread's flags of `npm run atlas`: 186 MB at a 16 MB cap, 135 MB at 4 MB, the
+  // 100 x 100 map 111 MB; CPU time of a 200 x 200 map the same within 2%).
+  const resourceLimits = { maxYoungGenerationSizeMb: 4 };
   if (BUILT && !entry) return new Worker(new URL('./engine-worker-node.mjs', import.meta.url), { resourceLimits });
   const source = entry ?? new URL('./engine-worker-node.ts', import.meta.url);
   const code = `import(${JSON.stringify(tsxApiUrl())})` +
