@@ -17,6 +17,7 @@ import { sharedStyles } from './shared-styles.ts';
 import { downloadBlob } from '../export/download.ts';
 import { pdfFile, pngFile, svgFile } from '../export/figure-image.ts';
 import { exportBaseName } from '../export/file-name.ts';
+import { printFigure } from '../export/print-layout.ts';
 import { pageState } from '../export/page-state.ts';
 import { loadFigureSize, onFigureSizeChange, saveFigureSize } from '../export/export-settings.ts';
 import {
@@ -26,7 +27,11 @@ import {
 /** Body text below this many points is too small for print (journals ask for about 6 pt or more; common practice, no source). */
 const SMALL_PRINT_PT = 6;
 
-export interface RenderedFigure { svg: string; frame: Frame; name: string; title: string }
+export interface RenderedFigure {
+  svg: string; frame: Frame; name: string; title: string;
+  /** The same figure built again at widthPx x heightPx (CSS px), for export at a print size (export/print-layout.ts). */
+  layout?: (widthPx: number, heightPx: number) => RenderedFigure;
+}
 
 export class FigurePanel extends LitElement {
   static override properties = {
@@ -176,14 +181,16 @@ export class FigurePanel extends LitElement {
   private async save(kind: 'svg' | 'pdf' | 'png') {
     const fig = this.figure;
     if (!fig) return;
-    const { width, height } = fig.frame;
     const problem = this.sizeProblem(fig);
     if (problem) { this.failure = problem; return; }
     this.failure = '';
     try {
-      const blob = kind === 'svg' ? svgFile(fig.svg, this.size, width, height)
-        : kind === 'pdf' ? await pdfFile(fig.svg, fig.title, this.size, width)
-          : await pngFile(fig.svg, width, height, this.size);
+      // at a print size, the figure laid out again at the printed width when it can be
+      const out = printFigure(fig, this.size);
+      const { width, height } = out.frame;
+      const blob = kind === 'svg' ? svgFile(out.svg, this.size, width, height)
+        : kind === 'pdf' ? await pdfFile(out.svg, out.title, this.size, width)
+          : await pngFile(out.svg, width, height, this.size);
       downloadBlob(blob, `${exportBaseName(pageState(), fig.name)}.${kind}`);
     } catch (e) {
       this.failure = `The ${kind.toUpperCase()} could not be made: ${e instanceof Error ? e.message : String(e)}`;
@@ -196,7 +203,8 @@ export class FigurePanel extends LitElement {
       const p = customWidthProblem(this.inchesText);
       if (p) return `Custom width: ${p}.`;
     }
-    return pngProblem(this.size, fig.frame.width, fig.frame.height);
+    const out = printFigure(fig, this.size);
+    return pngProblem(this.size, out.frame.width, out.frame.height);
   }
 
   private setSize(patch: Partial<FigureSize>) {
@@ -211,13 +219,17 @@ export class FigurePanel extends LitElement {
 
   /** One line saying what the saved files will be: printed width, PNG pixels, text size. */
   private sizeNote(fig: RenderedFigure) {
-    const { width, height } = fig.frame;
+    const out = printFigure(fig, this.size);
+    const relaid = out !== fig;
+    const { width, height } = out.frame;
     const px = pngPixels(this.size, width, height);
     const pt = bodyTextPoints(this.size, width);
     const inches = printedInches(this.size, width);
     const what = this.size.preset === 'screen' ? 'as on screen' : this.size.preset === 'custom' ? 'custom' : `${this.size.preset} column`;
-    return html`<span class="size-note muted">${what}, ${inches.toFixed(2)} in wide; PNG ${px.width} × ${px.height} px at ${this.size.dpi} dpi;
-      text ${pt.toFixed(1)} pt${pt < SMALL_PRINT_PT ? html` <span class="err">(small for print: a narrower window lays the figure out narrower)</span>` : ''}</span>`;
+    const small = pt < SMALL_PRINT_PT
+      ? html` <span class="err">(small for print: ${fig.layout ? 'a wider size gives larger text' : 'a narrower window lays the figure out narrower'})</span>` : '';
+    return html`<span class="size-note muted">${what}, ${inches.toFixed(2)} in wide${relaid ? ', laid out for this width' : ''}; PNG ${px.width} × ${px.height} px at ${this.size.dpi} dpi;
+      text ${pt.toFixed(1)} pt${small}</span>`;
   }
 
   private sizePanel(fig: RenderedFigure) {
