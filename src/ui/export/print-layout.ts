@@ -16,14 +16,14 @@ export function relayable(make: (w: number, h: number) => RenderedFigure, w: num
 
 /**
  * `out` (an overlay drawn over `fig`) with a layout that lays `fig` out again and draws the
- * overlay over it with `again`; no layout when `fig` has none (a stale one would drop the
- * overlay). An overlay that adds height gets the base figure's share of the height asked for.
+ * overlay over it with `again`; no layout when `fig` has none or `again` is null (a stale
+ * one would drop the overlay). An overlay that adds height gets the base figure's share of the height asked for.
  */
-export function overlaid(fig: RenderedFigure, out: RenderedFigure, again: (base: RenderedFigure) => RenderedFigure): RenderedFigure {
+export function overlaid(fig: RenderedFigure, out: RenderedFigure, again: ((base: RenderedFigure) => RenderedFigure) | null): RenderedFigure {
   const base = fig.layout;
   const share = fig.frame.height / out.frame.height;
   const { layout: _stale, ...rest } = out;
-  return base ? { ...rest, layout: (w, h) => again(base(w, h * share)) } : rest;
+  return base && again ? { ...rest, layout: (w, h) => again(base(w, h * share)) } : rest;
 }
 
 const printed = new WeakMap<RenderedFigure, { key: string; fig: RenderedFigure }>();

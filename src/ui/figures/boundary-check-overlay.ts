@@ -10,6 +10,7 @@ import { line } from '../plot/line.ts';
 import { dots } from '../plot/dot.ts';
 import { el, esc } from '../plot/svg-markup.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
+import { overlaid } from '../export/print-layout.ts';
 
 export interface CrossingMarker {
   x: number;
@@ -75,7 +76,7 @@ export function withBoundaryCheck(fig: RenderedFigure, o: CheckOverlay): Rendere
   const clipped = checkMarks(o).map((m) => m.render(f)).join('');
   const at = fig.svg.lastIndexOf('</svg>');
   const svg = `${fig.svg.slice(0, at)}<g class="boundary-check" clip-path="url(#${f.id}-clip)">${clipped}</g>${fig.svg.slice(at)}`;
-  const out = { ...fig, svg };
+  const out = overlaid(fig, { ...fig, svg }, (base) => withBoundaryCheck(base, o));
   cache.set(fig, { o, fig: out });
   return out;
 }

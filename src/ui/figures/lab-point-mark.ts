@@ -10,6 +10,7 @@
 import type { Frame } from '../plot/frame.ts';
 import { el, esc } from '../plot/svg-markup.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
+import { overlaid } from '../export/print-layout.ts';
 import type { AxisValue } from '../state/lab-point.ts';
 
 const INK = '#000000', HALO = '#ffffff', BOX_FILL = 'rgba(255,255,255,0.18)';
@@ -102,8 +103,10 @@ const memo = new WeakMap<RenderedFigure, Map<string, RenderedFigure>>();
 /**
  * The figure with `clipped` drawn inside its plot area and `free` around it, memoised per
  * figure and `key` (the page re-renders on every pointer move; the figure string is large).
+ * `again` draws the same overlay over the figure laid out again for print (print-layout.ts).
  */
-export function appendToFigure(fig: RenderedFigure, key: string, clipped: string, free: string): RenderedFigure {
+export function appendToFigure(fig: RenderedFigure, key: string, clipped: string, free: string,
+  again?: (base: RenderedFigure) => RenderedFigure): RenderedFigure {
   let m = memo.get(fig);
   const hit = m?.get(key);
   if (hit) return hit;
@@ -111,7 +114,7 @@ export function appendToFigure(fig: RenderedFigure, key: string, clipped: string
   const f = fig.frame;
   const at = fig.svg.lastIndexOf('</svg>');
   const svg = `${fig.svg.slice(0, at)}<g clip-path="url(#${f.id}-clip)">${clipped}</g>${free}${fig.svg.slice(at)}`;
-  const out = { ...fig, svg };
+  const out = overlaid(fig, { ...fig, svg }, again ?? null);
   m.clear();
   m.set(key, out);
   return out;
@@ -126,7 +129,8 @@ export function withLabPoint(fig: RenderedFigure, m: LabMark | null, slot = 0): 
   const f = fig.frame;
   const drawn = labPointSvg(f, m);
   const lines = drawn ? ['lab point, \u00b11\u03c3 box'] : ['lab point: not on these axes', ...wrapText(m.text, lineChars(f))];
-  return appendToFigure(fig, `lab|${slot}|${JSON.stringify(m)}`, drawn, `<g class="lab-point-legend">${overlayLegend(f, [{ swatch: 'lab', lines }], slot)}</g>`);
+  return appendToFigure(fig, `lab|${slot}|${JSON.stringify(m)}`, drawn, `<g class="lab-point-legend">${overlayLegend(f, [{ swatch: 'lab', lines }], slot)}</g>`,
+    (base) => withLabPoint(base, m, slot));
 }
 
 /**
@@ -150,7 +154,8 @@ export function withLabNote(fig: RenderedFigure, text: string, inside: boolean):
   // the document grows by the strip: its height and viewBox, then the note before the end
   const head = fig.svg.replace(/^(<svg[^>]*?) height="[^"]*"/, `$1 height="${H}"`).replace(/^(<svg[^>]*?) viewBox="0 0 ([^ "]+) [^"]*"/, `$1 viewBox="0 0 $2 ${H}"`);
   const at = head.lastIndexOf('</svg>');
-  const out = { ...fig, svg: `${head.slice(0, at)}<g class="lab-point-note">${note}</g>${head.slice(at)}`, frame: { ...f, height: H } };
+  const out = overlaid(fig, { ...fig, svg: `${head.slice(0, at)}<g class="lab-point-note">${note}</g>${head.slice(at)}`, frame: { ...f, height: H } },
+    (base) => withLabNote(base, text, inside));
   m.clear();
   m.set(key, out);
   return out;

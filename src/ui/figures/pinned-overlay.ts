@@ -44,7 +44,8 @@ export function withPinnedMap(fig: RenderedFigure, p: PinnedMap, axes: { x: stri
   const lines = same ? ['pinned map (dashed):', ...wrapText(p.label, lineChars(f))]
     : ['pinned map is over other axes:', `${p.xName} \u00d7 ${p.yName}; not drawn`];
   const legend = `<g class="pinned-legend">${overlayLegend(f, [{ swatch: 'dashed', stroke: PINNED_STROKE, lines }], slot)}</g>`;
-  return { fig: appendToFigure(fig, `pin-map|${idOf(p)}|${slot}|${same}`, same ? mapLines(f, p) : '', legend), drawn: same, rows: lines.length };
+  return { fig: appendToFigure(fig, `pin-map|${idOf(p)}|${slot}|${same}`, same ? mapLines(f, p) : '', legend,
+    (base) => withPinnedMap(base, p, axes, slot).fig), drawn: same, rows: lines.length };
 }
 
 /** The staircase with the pinned staircase's curves over it (rho dashed, filling dotted, in the pinned colour), and the legend rows taken. */
@@ -58,5 +59,6 @@ export function withPinnedStaircase(fig: RenderedFigure, p: PinnedStaircase, slo
   const ranges = p.series.map((s) => s.label).join(' and ');
   const lines = ['pinned staircase:', ...wrapText(`\u03c1 dashed, \u27e8n\u27e9 dotted; ${ranges}; ${p.label}`, lineChars(f))];
   const legend = `<g class="pinned-legend">${overlayLegend(f, [{ swatch: 'dashed', stroke: PINNED_STROKE, lines }], slot)}</g>`;
-  return { fig: appendToFigure(fig, `pin-st|${idOf(p)}|${slot}`, `<g class="pinned-staircase">${drawn}</g>`, legend), rows: lines.length };
+  return { fig: appendToFigure(fig, `pin-st|${idOf(p)}|${slot}`, `<g class="pinned-staircase">${drawn}</g>`, legend,
+    (base) => withPinnedStaircase(base, p, slot).fig), rows: lines.length };
 }
