@@ -42,6 +42,7 @@ import { PinsController, pinLabel, pins } from '../state/pinned-results.ts';
 import { phaseKey } from '../figures/phase-map-figure.ts';
 import { withLabPoint } from '../figures/lab-point-mark.ts';
 import { withPinnedMap } from '../figures/pinned-overlay.ts';
+import { relayable } from '../export/print-layout.ts';
 
 type AtlasSection = AppState['atlas'];
 
@@ -333,14 +334,15 @@ export class PhaseAtlasView extends LitElement {
     const figKey = g ? [g.key, g.count, g.boundaries?.length ?? -1, this.section.shade, this.section.crange, this.section.clog, lines.length, lines.map((l) => l.x.length).join(','), this.section.point, w].join('|') : '';
     if (g && figKey !== this.figKey) {
       this.figKey = figKey;
-      this.fig = phaseMapFigure({
+      const shade = this.section.shade as MapShade, log = this.section.clog === '1';
+      // laid out again at a print width on export (print-layout.ts); the overlays below follow it
+      this.fig = relayable((width, height) => phaseMapFigure({
         grid: { nx: g.nx, ny: g.ny, x: [g.plan.x.start, g.plan.x.stop], y: [g.plan.y.start, g.plan.y.stop] },
         stateAt: (i, j) => g.paint(i, j), xLabel: AXIS_LABELS[g.plan.x.name], yLabel: AXIS_LABELS[g.plan.y.name],
-        shade: this.section.shade as MapShade, lines, selected: sel, colourRange: crange ?? {}, log: this.section.clog === '1', maxCell: g.plan.base.maxCell,
-        boundaries: g.boundaries,
-        width: w, height: Math.round(Math.min(540, Math.max(300, w * 0.5))),
+        shade, lines, selected: sel, colourRange: crange ?? {}, log, maxCell: g.plan.base.maxCell,
+        boundaries: g.boundaries, width, height,
         title: `Phase map over ${AXIS_SYMBOLS[g.plan.x.name]} and ${AXIS_SYMBOLS[g.plan.y.name]}`,
-      });
+      }), w, Math.round(Math.min(540, Math.max(300, w * 0.5))), 320);
     }
     const base = g && this.fig && this.checkOverlay ? withBoundaryCheck(this.fig, this.checkOverlay) : g ? this.fig : null;
     const fig = g && base ? this.overlays(base, g) : base;
