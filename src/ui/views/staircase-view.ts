@@ -27,6 +27,7 @@ import { type LabPoint, labPointText } from '../state/lab-point.ts';
 import { PinsController, pinLabel, pins } from '../state/pinned-results.ts';
 import { withLabPoint } from '../figures/lab-point-mark.ts';
 import { withPinnedStaircase } from '../figures/pinned-overlay.ts';
+import { relayable } from '../export/print-layout.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
 import '../app/figure-panel.ts';
 import '../app/data-export.ts';
@@ -140,7 +141,9 @@ export class StaircaseView extends LitElement {
       };
     }) : [];
     const w = Math.max(300, Math.min(this.size.width, 1100));
-    const fig = series.length ? staircaseFigure(series[0], series[1] ?? null, v!.series[0].plan.base.delta, w, Math.round(Math.min(480, Math.max(300, w * 0.5)))) : null;
+    const delta = v?.series[0].plan.base.delta ?? 0;
+    const fig = series.length ? relayable((width, height) => staircaseFigure(series[0], series[1] ?? null, delta, width, height),
+      w, Math.round(Math.min(480, Math.max(300, w * 0.5)))) : null;
     const pts: Table = {
       columns: ['range', 'mu', 'phase', 'fraction', 'excitationDensity', 'emitterDensity', 'photonDensity', 'cellSize', 'error'],
       rows: v ? v.series.flatMap((s) => s.result.points.map((pt) => {
