@@ -17,6 +17,7 @@ import { kText } from '../model/pi-multiple.ts';
 import { type LabPoint, labPointText, modelAtLabPoint } from '../state/lab-point.ts';
 import { withLabNote } from '../figures/lab-point-mark.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
+import { relayable } from '../export/print-layout.ts';
 import { phaseWords } from '../model/phase-words.ts';
 import { inPageWords } from '../model/page-words.ts';
 import { term, termStyles } from '../app/term-tip.ts';
@@ -156,8 +157,8 @@ export class ModesView extends LitElement {
           ${sp.dynamicallyStable ? 'dynamically stable (real frequencies).' : html`<span class="err">dynamically unstable, growth rate ${f(sp.growth)} g.</span>`}</p>
         ${this.labPoint ? html`<p class="lab-note">${modelAtLabPoint(this.labPoint, this.model.params) ? 'This spectrum is at the lab point' : 'This spectrum is NOT at the lab point'}
           (${labPointText(this.labPoint)}, ±1σ box).</p>` : nothing}
-        <figure-panel class="branches" stale=${stale} .figure=${this.labNote(branchesFigure(sp, w, h, `Fluctuation branches of the ${PHASE_NAMES[st.phase]} state`, range))}></figure-panel>
-        <figure-panel class="margin" stale=${stale} .figure=${marginFigure(sp, w, Math.round(h * 0.8))}></figure-panel>
+        <figure-panel class="branches" stale=${stale} .figure=${this.labNote(relayable((W, H) => branchesFigure(sp, W, H, `Fluctuation branches of the ${PHASE_NAMES[st.phase]} state`, range), w, h))}></figure-panel>
+        <figure-panel class="margin" stale=${stale} .figure=${relayable((W, H) => marginFigure(sp, W, H), w, Math.round(h * 0.8))}></figure-panel>
         <p class="muted">At k = 0 (${term('photon weight')} in brackets): ${sp.zoneCentre.omega.map((o, i) => `${f(o)} g (${f(sp.zoneCentre.photonWeight[i])})`).join(', ')}.
           ${term('margin', 'Margin')}: lowest eigenvalue of the static stability matrix, 1 for free emitters, 0 on a soft-mode line.</p>
         <data-export class="modes-export" .table=${spectrumTable(sp)} .json=${sp} name="spectrum" .command=${cmd}></data-export>` : nothing}
