@@ -37,6 +37,7 @@ import '../app/limits-note.ts';
 import { type LabPoint, labPointText, modelAtLabPoint } from '../state/lab-point.ts';
 import { withLabNote } from '../figures/lab-point-mark.ts';
 import type { RenderedFigure } from '../app/figure-panel.ts';
+import { relayable } from '../export/print-layout.ts';
 import type { QmcRequest, QmcResult } from '../../core/qmc/quantum-monte-carlo.ts';
 import type { Estimate } from '../../core/vmc/binning.ts';
 import { QmcTask, qmcProgressText } from '../controllers/qmc-task.ts';
@@ -320,7 +321,7 @@ export class CorrelatedView extends LitElement {
       ${v?.kind === 'vmc' && this.task.status === 'complete' ? this.vmcVerdict(v.r, mf) : nothing}
       ${v?.kind === 'qmc' && v.r.notes.length ? html`<ul class="caution qmc-notes" aria-label="QMC notes">${v.r.notes.map((n) => html`<li>${n}</li>`)}</ul>` : nothing}
       <div class="grid">
-        ${positions ? html`<figure-panel class="cluster" .figure=${this.labNote(clusterFigure(positions, dens, job!.cluster.kind === 'periodic', w, this.model.params?.lattice === 'chain' && job!.cluster.kind === 'periodic' ? 170 : 300))}></figure-panel>` : nothing}
+        ${positions ? html`<figure-panel class="cluster" .figure=${this.labNote(relayable((W, H) => clusterFigure(positions, dens, job!.cluster.kind === 'periodic', W, H), w, this.model.params?.lattice === 'chain' && job!.cluster.kind === 'periodic' ? 170 : 300, 300, 120))}></figure-panel>` : nothing}
         <div>${this.comparison(v, mf)}</div>
         ${trace.length ? this.traceFigure(trace, mf, w) : nothing}
         ${v ? this.correlationFigures(v, w) : nothing}
@@ -339,12 +340,12 @@ export class CorrelatedView extends LitElement {
     const tail = trace.slice(Math.floor(trace.length / 4));
     const ys = [...tail.flatMap((t) => [t.energyPerSite - t.error, t.energyPerSite + t.error]), ...refs.map((r) => r.value)];
     const lo = Math.min(...ys), hi = Math.max(...ys), pad = (hi - lo) * 0.08 || 1e-3;
-    return html`<figure-panel class="trace" .figure=${seriesFigure({
-      id: 'trace', name: 'vmc-trace', title: 'VMC optimisation trace: energy per site against step', width: w, height: 300,
+    return html`<figure-panel class="trace" .figure=${relayable((width, height) => seriesFigure({
+      id: 'trace', name: 'vmc-trace', title: 'VMC optimisation trace: energy per site against step', width, height,
       series: [{ label: 'VMC e per step', x: trace.map((t) => t.step), y: trace.map((t) => t.energyPerSite), err: trace.map((t) => t.error), stroke: '#3a3f9e', points: true }],
       refs, x: { label: 'stochastic-reconfiguration step' }, y: { label: 'energy per site (g)' },
       xDomain: [0, Math.max(1, trace[trace.length - 1].step)], yDomain: [lo - pad, hi + pad],
-    })}></figure-panel>`;
+    }), w, 300)}></figure-panel>`;
   }
 
   /** QMC entries: temperature or the ground state, sweeps, chains, alpha grid, seed. */
@@ -393,17 +394,17 @@ export class CorrelatedView extends LitElement {
     const order = kx.map((_, i) => i).sort((a, b) => kx[a] - kx[b]);
     const cr = v.kind === 'ed' ? v.r.correlation.map((p) => ({ ...p, error: 0 })) : v.r.correlation;
     return html`
-      <figure-panel class="sk" .figure=${seriesFigure({
-        id: 'sk', name: 'structure-factor', title: 'Connected structure factor S(k) = (\u27e8|n_k|\u00b2\u27e9 \u2212 |\u27e8n_k\u27e9|\u00b2)/N on the cluster momenta', width: w, height: 280,
+      <figure-panel class="sk" .figure=${relayable((width, height) => seriesFigure({
+        id: 'sk', name: 'structure-factor', title: 'Connected structure factor S(k) = (\u27e8|n_k|\u00b2\u27e9 \u2212 |\u27e8n_k\u27e9|\u00b2)/N on the cluster momenta', width, height,
         series: [{ label: `S(k) connected, ${v.kind.toUpperCase()}`, x: order.map((i) => kx[i]), y: order.map((i) => sk[i].value), err: order.map((i) => sk[i].error), stroke: '#8e1f2c', points: true, noLine: true }],
         x: { label: oneD ? 'k (1/a)' : '|k| (1/a)' }, y: { label: 'S(k) (per site)' },
-      })}></figure-panel>
-      <figure-panel class="cr" .figure=${seriesFigure({
-        id: 'cr', name: 'density-correlation', title: 'Density correlation C(r) on the distance shells', width: w, height: 280,
+      }), w, 280)}></figure-panel>
+      <figure-panel class="cr" .figure=${relayable((width, height) => seriesFigure({
+        id: 'cr', name: 'density-correlation', title: 'Density correlation C(r) on the distance shells', width, height,
         series: [{ label: `C(r), ${v.kind.toUpperCase()}`, x: cr.map((p) => p.r), y: cr.map((p) => p.value), err: cr.map((p) => p.error), stroke: '#2f7f78', points: true }],
         refs: [{ axis: 'y', value: 0, label: 'uncorrelated', stroke: '#7d8798', dash: '2 2' }],
         x: { label: 'distance r (a)' }, y: { label: 'C(r) = \u27e8n\u1d62n\u2c7c\u27e9 \u2212 \u27e8n\u1d62\u27e9\u27e8n\u2c7c\u27e9' },
-      })}></figure-panel>`;
+      }), w, 280)}></figure-panel>`;
   }
 }
 customElements.define('correlated-view', CorrelatedView);
