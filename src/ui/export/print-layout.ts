@@ -34,11 +34,13 @@ const printed = new WeakMap<RenderedFigure, { key: string; fig: RenderedFigure }
  */
 export function printFigure(fig: RenderedFigure, size: FigureSize): RenderedFigure {
   if (size.preset === 'screen' || !fig.layout) return fig;
-  const w = printedInches(size, fig.frame.width) * CSS_PX_PER_INCH;
+  // to 0.01 px, so the SVG's numbers stay short (3.4 x 96 is 326.40000000000003 in binary floating point)
+  const hundredths = (v: number) => Math.round(v * 100) / 100;
+  const w = hundredths(printedInches(size, fig.frame.width) * CSS_PX_PER_INCH);
   const key = `${w}`;
   const hit = printed.get(fig);
   if (hit && hit.key === key) return hit.fig;
-  const out = fig.layout(w, (w * fig.frame.height) / fig.frame.width);
+  const out = fig.layout(w, hundredths((w * fig.frame.height) / fig.frame.width));
   printed.set(fig, { key, fig: out });
   return out;
 }

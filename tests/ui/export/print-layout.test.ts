@@ -45,14 +45,14 @@ describe('export at a print size', () => {
     const printed = printFigure(fig, single);
     const out = read(await svgFile(printed.svg, single, printed.frame.width, printed.frame.height).text());
     expect(out.width).toBe('3.4in');
-    // 3.4 in x 96 px/in = 326.4 px of layout (to the 1e-9 of decimal formatting)
-    expect(out.viewBox[2]).toBeCloseTo(3.4 * 96, 9);
+    // 3.4 in x 96 px/in = 326.4 px of layout (exact to the 0.01 px the layout width is rounded to)
+    expect(out.viewBox[2]).toBe(326.4);
     expect(out.titles).toHaveLength(2);
     for (const px of out.titles) expect(px * ptPerPx(3.4, out.viewBox[2])).toBeGreaterThanOrEqual(7);
     // the lab point and the checked line are drawn over the new layout too
     expect(printed.svg).toContain('class="lab-point"');
     expect(printed.svg).toContain('class="boundary-check"');
-    expect(printed.frame.width).toBeCloseTo(326.4, 9);
+    expect(printed.frame.width).toBe(326.4);
 
     // the same figure without a layout is the screen figure scaled: its titles print below 7 pt
     const { layout: _none, ...fixed } = map(940, 470);
