@@ -98,6 +98,9 @@ describe('exports of the phase map', () => {
     expect(png.phys).toEqual([11811, 11811, 1]);
     const svg = await download(page, () => panel.locator('button', { hasText: 'SVG' }).click());
     expect(svg.text).toMatch(/<svg [^>]*width="3\.4in"/);
+    // laid out again at 3.4 in x 96 px = 326.4 px (CSS Values 3), so its 12 px text prints at 9 pt, as the size note says
+    expect(svg.text).toMatch(/<svg [^>]*viewBox="0 0 326\.4 /);
+    expect(await panel.locator('.size-note').textContent()).toMatch(/laid out for this width[\s\S]*text 9\.0 pt/);
     // the PDF page at the same preset: 3.4 in = 244.8 pt wide
     const pdf = await downloadBytes(() => panel.locator('button', { hasText: 'PDF' }).click());
     expect(pdf.bytes.toString('latin1')).toMatch(/\/MediaBox \[0 0 244\.8 [\d.]+\]/);
