@@ -371,7 +371,8 @@ export class CorrelatedView extends LitElement {
 
   private freeEnergy(r: QmcResult, w: number) {
     const fig = freeEnergyFigure(r, w);
-    return fig ? html`<figure-panel class="qmc-f" .figure=${fig}></figure-panel>` : nothing;
+    // laid out again at a print width on export (its height is its own)
+    return fig ? html`<figure-panel class="qmc-f" .figure=${{ ...fig, layout: (W: number) => freeEnergyFigure(r, Math.max(300, W)) ?? fig }}></figure-panel>` : nothing;
   }
 
   private comparison(v: Shown | undefined, mf: SolveResult | undefined) {

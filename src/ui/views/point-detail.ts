@@ -27,6 +27,7 @@ import { branchesFigure } from '../figures/spectrum-figure.ts';
 import { kText } from '../model/pi-multiple.ts';
 import { inPageWords } from '../model/page-words.ts';
 import { term, termStyles } from '../app/term-tip.ts';
+import { relayable } from '../export/print-layout.ts';
 
 export class PointDetail extends LitElement {
   static override properties = {
@@ -112,13 +113,14 @@ export class PointDetail extends LitElement {
   override render() {
     const s = this.task.value;
     const lat = this.params?.lattice ?? 'chain';
+    const sp = this.spectrum.value;
     return html`<section aria-label="Opened point" aria-busy=${this.task.status === 'pending' ? 'true' : 'false'}>
       <header><h3>Point ${this.label}${s ? html`: <span class="phase-name">${s.phase === 'supersolid' ? term('supersolid', phaseWords(s, this.params?.maxCell ?? s.cellSize)) : phaseWords(s, this.params?.maxCell ?? s.cellSize)}</span>${this.params && atSearchLimit(s, this.params.maxCell)
           ? html` <span class="err at-limit">(M = Mmax = ${s.cellSize}, the largest cell searched: may be an artefact of that limit)</span>` : nothing}` : nothing}</h3>
         <button @click=${this.close} aria-label="Close the opened point" title="Close (Escape)">Close</button></header>
       ${this.task.error ? html`<p class="err" role="alert">${inPageWords(this.task.error)}</p>` : nothing}
       ${s ? html`<div class="cols">
-          <div><figure-panel class="pattern" .figure=${patternFigure(lat, s, Math.max(380, this.width * 0.58), lat === 'chain' ? 190 : 360)}></figure-panel>
+          <div><figure-panel class="pattern" .figure=${relayable((W, H) => patternFigure(lat, s, W, H), Math.max(380, this.width * 0.58), lat === 'chain' ? 190 : 360, 300, 150)}></figure-panel>
             <p class="muted m-note">Shade: m, the probability that the site's emitter is excited (⟨n⟩ of its sublattice), from white
               (empty) to ink (excited). Amber ring: the coherence |⟨σx⟩|, the site's part in the photon condensate (wider = more).</p></div>
           <div>
@@ -128,11 +130,11 @@ export class PointDetail extends LitElement {
             <data-export .table=${sublatticeTable(s)} .json=${s} name="point" .command=${this.command}></data-export>
           </div>
         </div>` : html`<p class="muted">Solving\u2026</p>`}
-      ${this.spectrum.value ? html`<figure-panel class="point-spectrum"
-          .figure=${branchesFigure(this.spectrum.value, Math.max(380, this.width - 30), 260, `Fluctuation branches at this point`)}></figure-panel>
-        <p class="muted soft">Softest mode k* = ${kText(this.spectrum.value.softMode.k, 4)} (${this.spectrum.value.softMode.kind}), ${term('margin')}
-          ${this.spectrum.value.softMode.margin.toPrecision(4)}${this.spectrum.value.softMode.stable ? ', stable' : ', unstable'};
-          ${this.spectrum.value.dynamicallyStable ? 'real frequencies.' : 'complex frequencies (dynamically unstable).'}</p>`
+      ${sp ? html`<figure-panel class="point-spectrum"
+          .figure=${relayable((W, H) => branchesFigure(sp, W, H, `Fluctuation branches at this point`), Math.max(380, this.width - 30), 260, 300, 200)}></figure-panel>
+        <p class="muted soft">Softest mode k* = ${kText(sp.softMode.k, 4)} (${sp.softMode.kind}), ${term('margin')}
+          ${sp.softMode.margin.toPrecision(4)}${sp.softMode.stable ? ', stable' : ', unstable'};
+          ${sp.dynamicallyStable ? 'real frequencies.' : 'complex frequencies (dynamically unstable).'}</p>`
         : this.spectrum.error ? html`<p class="err">${inPageWords(this.spectrum.error)}</p>` : html`<p class="muted">Spectrum…</p>`}
     </section>`;
   }
