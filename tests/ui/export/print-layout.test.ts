@@ -8,7 +8,7 @@
  */
 import { describe, it, expect } from 'vitest';
 import { phaseMapFigure, type PhaseMapInput } from '../../../src/ui/figures/phase-map-figure.ts';
-import { withLabPoint } from '../../../src/ui/figures/lab-point-mark.ts';
+import { withLabNote, withLabPoint } from '../../../src/ui/figures/lab-point-mark.ts';
 import { withBoundaryCheck } from '../../../src/ui/figures/boundary-check-overlay.ts';
 import { printFigure, relayable } from '../../../src/ui/export/print-layout.ts';
 import { pdfFile, svgFile } from '../../../src/ui/export/figure-image.ts';
@@ -59,6 +59,19 @@ describe('export at a print size', () => {
     const scaled = read(await svgFile(printFigure(fixed, single).svg, single, 940, fixed.frame.height).text());
     expect(scaled.viewBox[2]).toBe(940);
     for (const px of scaled.titles) expect(px * ptPerPx(3.4, scaled.viewBox[2])).toBeLessThan(7);
+  });
+
+  it('keeps a note strip added under the figure (it is laid out again at the new width, below the new figure)', () => {
+    const fig = withLabNote(relayable(map, 940, 470, 320), 'Rb = 1.5 ± 0.1 a, μ = 0.3 ± 0.05 g', true);
+    const printed = printFigure(fig, single);
+    expect(printed.frame.width).toBe(326.4);
+    expect(printed.svg).toContain('class="lab-point-note"');
+    // the note's strip starts at the bottom of the re-laid-out map: its first rect at y = map height
+    const base = printFigure(relayable(map, 940, 470, 320), single);
+    const strip = /<g class="lab-point-note"><rect x="0" y="([\d.]+)"/.exec(printed.svg);
+    expect(Number(strip![1])).toBeGreaterThan(0);
+    expect(printed.frame.height).toBeGreaterThan(Number(strip![1]));
+    expect(Number(strip![1])).toBeLessThanOrEqual(base.frame.height);
   });
 
   it('sets the PDF page to the printed width (3.4 in = 244.8 pt) from the re-laid-out figure', async () => {
