@@ -278,7 +278,8 @@ describe('staircase, softlines and qmc-scan stopped midway and resumed; an exist
     expect(readFileSync(file('sl.csv'), 'utf8') === whole).toBe(true);
   }, 120_000);
 
-  const QMC = ['qmc-scan', '--x', 'alpha=0.2..0.6x6', '--sizes', '4,6,8', '--interaction', 'nn', '--v1', '1', '--mu', '1', '--temperature', '0.5', '--sweeps', '8000', '--bins', '8', '--workers', '2'];
+  // long enough (about 6 s idle) that the part is flushed (every second) well before the end
+  const QMC = ['qmc-scan', '--x', 'alpha=0.2..0.6x8', '--sizes', '4,6,8', '--interaction', 'nn', '--v1', '1', '--mu', '1', '--temperature', '0.5', '--sweeps', '80000', '--bins', '8', '--workers', '2'];
   it('qmc-scan: SIGKILL leaves the old file and a .partial holding a prefix of whole rows; --resume completes it byte for byte', async () => {
     expect((await atlas([...QMC, '--out', 'qmc.csv'])).code).toBe(0);
     const whole = readFileSync(file('qmc.csv'), 'utf8');
@@ -292,7 +293,7 @@ describe('staircase, softlines and qmc-scan stopped midway and resumed; an exist
     expect(part.length).toBeLessThan(whole.length);
     const again = await atlas([...QMC, '--out', 'qk.csv', '--resume']);
     expect(again.code).toBe(0);
-    expect(again.err).toMatch(/qmc-scan: 18 of 18 runs in .*\(\d+ read back\)/);
+    expect(again.err).toMatch(/qmc-scan: 24 of 24 runs in .*\(\d+ read back\)/);
     expect(readFileSync(file('qk.csv'), 'utf8') === whole).toBe(true);
   }, 120_000);
 
