@@ -90,6 +90,14 @@ describe('drag to zoom', () => {
   });
 
   it('Escape returns to the demo map from the cache; Full map returns from two zooms', async () => {
+    // with a point open, the first Escape closes the point and keeps the zoom
+    const zoomed = await range('x');
+    const p = await client(1.0, 1.5);
+    await page.mouse.click(p.x, p.y);
+    await page.locator('point-detail').waitFor({ state: 'attached' });
+    await page.keyboard.press('Escape');
+    await expect.poll(() => page.locator('point-detail').count()).toBe(0);
+    expect(await range('x')).toBe(zoomed);
     await page.locator('figure-panel.map .host').focus();
     await page.keyboard.press('Escape');
     await expect.poll(() => range('x')).toBe('-1..2.9 x64');

@@ -117,7 +117,7 @@ export class DragZoomController implements ReactiveController {
   };
 
   private key = (e: KeyboardEvent) => {
-    if (e.key !== 'Escape') return;
+    if (e.key !== 'Escape' || e.defaultPrevented) return; // an open point took it first
     if (this.start) { this.cancel(); return; }
     this.o.onBack();
   };

@@ -55,18 +55,22 @@ export class PointDetail extends LitElement {
     this.command = '';
   }
 
-  /** Escape anywhere closes the point (unless another handler already took the key). */
+  /**
+   * Escape anywhere closes the point (unless another handler already took the key). Listened
+   * to in the capture phase, so an open point takes Escape before the map's zoom (which
+   * steps back only on an Escape nobody took).
+   */
   private onKey = (e: KeyboardEvent) => {
     if (e.key === 'Escape' && !e.defaultPrevented) { e.preventDefault(); this.close(); }
   };
 
   override connectedCallback() {
     super.connectedCallback();
-    document.addEventListener('keydown', this.onKey);
+    document.addEventListener('keydown', this.onKey, true);
   }
 
   override disconnectedCallback() {
-    document.removeEventListener('keydown', this.onKey);
+    document.removeEventListener('keydown', this.onKey, true);
     super.disconnectedCallback();
   }
 
