@@ -18,7 +18,7 @@
 import { nodeEnginePool } from '../workers/node-spawn.ts';
 import { runScan } from '../workers/scan-driver.ts';
 import { parseAxis } from '../src/core/scan/axes.ts';
-import { mapCsv, mapHeader } from '../src/core/scan/map-columns.ts';
+import { mapCsv, mapHeader } from '../src/formats/map-columns.ts';
 import type { ScanPlan } from '../src/core/scan/grid.ts';
 import type { MapScanResult } from '../workers/protocol.ts';
 import type { WorkerPool } from '../workers/pool.ts';

@@ -3,7 +3,7 @@
  * is a prefix of the finished one and `--resume` can continue it:
  *
  * CSV: [shard tag line] + column header, then one row a point (the one map table,
- * src/core/scan/map-columns.ts; the same bytes as mapCsv).
+ * src/formats/map-columns.ts; the same bytes as mapCsv).
  * JSON: a streamed document, one point a line:
  *
  *     {"shard":...,"x":{...},"y":...,"params":{...},"points":[
@@ -16,8 +16,8 @@
  * It parses as one JSON value, as the earlier single-line document did.
  */
 import type { ScanPoint } from '../core/scan/grid.ts';
-import { csvLine } from '../core/scan/csv.ts';
-import { mapColumns, mapJsonPoint, mapTable, paramsJson, shardTag, type MapHeader } from '../core/scan/map-columns.ts';
+import { csvLine } from '../formats/csv.ts';
+import { mapColumns, mapJsonPoint, mapTable, paramsJson, shardTag, type MapHeader } from '../formats/map-columns.ts';
 
 export type MapFormat = 'csv' | 'json';
 

@@ -1,20 +1,20 @@
 /**
  * The files `map` writes and `merge` reads back. The columns and both formats are the
- * project's one map table (src/core/scan/map-columns.ts, which the page's export uses too):
+ * project's one map table (src/formats/map-columns.ts, which the page's export uses too):
  *
  * CSV: a header naming every column, one row a point (ix, iy, the axis values, then the
  * state, then `error`, empty for a solved point); lists are space-separated inside one
- * field; quoting by the one CSV writer (src/core/scan/csv.ts). A shard's file starts with
+ * field; quoting by the one CSV writer (src/formats/csv.ts). A shard's file starts with
  * one comment line `# blockade-atlas map shard=k/n scan=<hex> nx=.. ny=..` that merge
  * reads and drops (pandas: read_csv(..., comment='#')).
  * JSON: { shard, complete, x, y, params, points: [{ix, iy, <axis>: value, ...state | error}] }.
  */
 import { InputError } from '../core/input-error.ts';
 import type { ShardMeta, ShardPart } from '../core/scan/merge.ts';
-import { parseCsvLine } from '../core/scan/csv.ts';
-import { SHARD_TAG } from '../core/scan/map-columns.ts';
+import { parseCsvLine } from '../formats/csv.ts';
+import { SHARD_TAG } from '../formats/map-columns.ts';
 
-export { mapCsv, mapJson, mapHeader, type MapHeader } from '../core/scan/map-columns.ts';
+export { mapCsv, mapJson, mapHeader, type MapHeader } from '../formats/map-columns.ts';
 
 /** A map file read back for merging: CSV rows stay text, JSON points stay objects. */
 export type MapFile =

@@ -17,7 +17,7 @@
  */
 import type { ScanPlan, ScanPoint } from '../core/scan/grid.ts';
 import type { Shard } from '../core/scan/shards.ts';
-import type { MapHeader } from '../core/scan/map-columns.ts';
+import type { MapHeader } from '../formats/map-columns.ts';
 import { runScan } from '../../workers/scan-driver.ts';
 import type { ParsedArgs } from './flags.ts';
 import { interruptible, type CliIo } from './io.ts';

@@ -17,7 +17,7 @@
  * firstOrder and densityJump (empty where not determined), the axis values.
  */
 import type { Boundary } from '../core/scan/boundaries.ts';
-import { csvLine } from '../core/scan/csv.ts';
+import { csvLine } from '../formats/csv.ts';
 import type { ScanPlan } from '../core/scan/grid.ts';
 
 /** The figures of one run. */

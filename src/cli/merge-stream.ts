@@ -9,9 +9,9 @@
  * refusal names the part and, for a row, its line.
  */
 import { InputError } from '../core/input-error.ts';
-import { parseCsvLine } from '../core/scan/csv.ts';
+import { parseCsvLine } from '../formats/csv.ts';
 import type { ShardMeta } from '../core/scan/merge.ts';
-import { SHARD_TAG } from '../core/scan/map-columns.ts';
+import { SHARD_TAG } from '../formats/map-columns.ts';
 import type { Line, LineReader } from './line-reader.ts';
 import { jsonHead, jsonTail, type MapFormat } from './map-layout.ts';
 import { csvRowProblem, jsonRowProblem } from './row-check.ts';

@@ -18,7 +18,7 @@
  * kept of each run is what the crossings need (size, axis value, Binder cumulant).
  */
 import { binderCrossings, type BinderCrossing } from '../core/qmc/binder-crossing.ts';
-import { parseCsvLine } from '../core/scan/csv.ts';
+import { parseCsvLine } from '../formats/csv.ts';
 import type { QmcScanPoint, QmcScanRequest } from '../../workers/protocol.ts';
 import { driveQmc } from '../../workers/qmc-run.ts';
 import { startQmcScan } from '../../workers/qmc-scan.ts';

@@ -8,8 +8,8 @@
  * A line that is complete but not the expected row is refused: the file is another scan's.
  */
 import { InputError } from '../core/input-error.ts';
-import { csvField, parseCsvLine } from '../core/scan/csv.ts';
-import { mapColumns, type MapHeader } from '../core/scan/map-columns.ts';
+import { csvField, parseCsvLine } from '../formats/csv.ts';
+import { mapColumns, type MapHeader } from '../formats/map-columns.ts';
 import type { LineReader } from './line-reader.ts';
 import type { MapLayout } from './map-layout.ts';
 import { PointCursor, type ShardSegments } from './shard-cursor.ts';

@@ -20,8 +20,8 @@
  * before it are finished (rows are written in task order).
  */
 import type { ModelParams } from '../core/model.ts';
-import { paramsJson } from '../core/scan/map-columns.ts';
-import { csvLine, parseCsvLine, type Cell } from '../core/scan/csv.ts';
+import { paramsJson } from '../formats/map-columns.ts';
+import { csvLine, parseCsvLine, type Cell } from '../formats/csv.ts';
 import { phaseName } from '../core/softmode/own-solution.ts';
 import type { PlaneAxis } from '../core/softmode/plane.ts';
 import type { SoftLineRequest, SoftLineResult } from '../core/softmode/soft-lines.ts';

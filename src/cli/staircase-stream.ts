@@ -21,7 +21,7 @@
  * (staircasePlateaus, the second half of the staircase scan): the bytes of one uninterrupted run.
  */
 import type { ScanPlan, ScanPoint } from '../core/scan/grid.ts';
-import { paramsJson } from '../core/scan/map-columns.ts';
+import { paramsJson } from '../formats/map-columns.ts';
 import type { Plateau } from '../core/meanfield/plateaus.ts';
 import type { SolveResult } from '../core/meanfield/ground-state.ts';
 import { shardSegments } from '../core/scan/shards.ts';

@@ -6,7 +6,7 @@
 import type { SolveResult } from '../core/meanfield/ground-state.ts';
 import type { MeanFieldState } from '../core/meanfield/state.ts';
 import type { ModelParams } from '../core/model.ts';
-import { paramsJson } from '../core/scan/map-columns.ts';
+import { paramsJson } from '../formats/map-columns.ts';
 
 /** The limits of mean-field that apply to this state, as sentences. */
 export function stateNotes(p: ModelParams, s: MeanFieldState): string[] {

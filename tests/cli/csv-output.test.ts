@@ -2,8 +2,8 @@
 // with a comma stays one field, the reader undoes the writer, and a map row of a failed
 // point carries its reason in the error column. Exact equality (common practice, no source).
 import { describe, expect, it } from 'vitest';
-import { csvLine, parseCsvLine } from '../../src/core/scan/csv.ts';
-import { mapCsv, mapHeader } from '../../src/core/scan/map-columns.ts';
+import { csvLine, parseCsvLine } from '../../src/formats/csv.ts';
+import { mapCsv, mapHeader } from '../../src/formats/map-columns.ts';
 import { parseAxis } from '../../src/core/scan/axes.ts';
 import { softlinesCsv } from '../../src/cli/commands/softlines.ts';
 import type { SoftLineResult } from '../../src/core/softmode/soft-lines.ts';

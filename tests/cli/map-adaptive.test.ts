@@ -5,7 +5,7 @@
 // in memory) is the uninterrupted one byte for byte. Check values: the dense run of the same map (the
 // adaptive map promises its pixels, docs/certified-maps.md) and the run's own JSON.
 import { describe, expect, it } from 'vitest';
-import { parseCsvLine } from '../../src/core/scan/csv.ts';
+import { parseCsvLine } from '../../src/formats/csv.ts';
 import { cli } from './test-io.ts';
 
 /** 24 x 18 points of the 1D vdw map at Mmax 6: several crystals and exact lines between them. */

@@ -6,7 +6,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { nodeEnginePool } from '../../workers/node-spawn.ts';
 import { runScan } from '../../workers/scan-driver.ts';
 import { parseAxis } from '../../src/core/scan/axes.ts';
-import { mapCsv, mapHeader } from '../../src/core/scan/map-columns.ts';
+import { mapCsv, mapHeader } from '../../src/formats/map-columns.ts';
 import { crystalOf } from '../../src/core/scan/crystal.ts';
 import { solveGroundState } from '../../src/core/meanfield/ground-state.ts';
 import { applyAxis } from '../../src/core/scan/axes.ts';

@@ -47,6 +47,14 @@ export function plateauFraction(s: MeanFieldState, maxCell: number, tol: Partial
   return f;
 }
 
+/**
+ * The state's pattern uses the largest cell the search tried (M = Mmax): such a point may
+ * be an artefact of the limit, and a larger Mmax can replace it by a longer period.
+ */
+export function atSearchLimit(s: Pick<MeanFieldState, 'cellSize'>, maxCell: number): boolean {
+  return s.cellSize === maxCell;
+}
+
 /** Plateaus of a scan (sorted by mu here; the input is not modified). */
 export function findPlateaus(points: MeanFieldState[], maxCell: number, tol: Partial<PhaseTolerances> = {}): Plateau[] {
   const pts = [...points].sort((a, b) => a.mu - b.mu);

@@ -1,12 +1,12 @@
 /**
  * The page's CSV files: a comment header naming every input of the view, then the table
- * as the project's one CSV writer writes it (src/core/scan/csv.ts). Every header line
+ * as the project's one CSV writer writes it (src/formats/csv.ts). Every header line
  * starts with '#', so `pandas.read_csv(path, comment='#')` skips the header and reads the
  * same table as before. pandas cuts a line at a '#' anywhere (a comment may follow data),
  * so no '#' may stand in the data: a '#' in a text cell is written as U+FF03 (the
  * full-width number sign), which reads the same and is not the ASCII comment mark.
  */
-import { type Cell, type Table, toCSV } from '../../core/scan/csv.ts';
+import { type Cell, type Table, toCSV } from '../../formats/csv.ts';
 import { type AppState, MODEL_KEYS } from '../state/app-state.ts';
 import { encodeState } from '../state/url-codec.ts';
 

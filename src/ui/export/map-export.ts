@@ -1,10 +1,10 @@
 /**
  * The phase map's export: the computed points in index order as the map table the CLI
- * writes (src/core/scan/map-columns.ts), so the page's CSV of a map and `map`'s output
+ * writes (src/formats/map-columns.ts), so the page's CSV of a map and `map`'s output
  * are the same bytes, and its JSON the same document.
  */
-import { mapHeader, mapJson, mapTable } from '../../core/scan/map-columns.ts';
-import type { Table } from '../../core/scan/csv.ts';
+import { mapHeader, mapJson, mapTable } from '../../formats/map-columns.ts';
+import type { Table } from '../../formats/csv.ts';
 import type { MapGrid } from '../controllers/map-scan.ts';
 
 /** The grid's computed points as the map table. */

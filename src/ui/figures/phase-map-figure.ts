@@ -3,7 +3,7 @@
  * region boundaries as a categorical contour (or, once the scan has located them, as vector
  * polylines: boundary-lines.ts), the fraction written inside density-wave and supersolid regions, soft-mode lines as polylines, the opened point as a ring, axes with units and a legend. Built from marks only.
  */
-import { atSearchLimit } from '../../core/scan/map-columns.ts';
+import { atSearchLimit } from '../../core/meanfield/plateaus.ts';
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';
 import type { PhaseLabel } from '../../core/meanfield/state.ts';
 import { renderFigure } from '../plot/figure.ts';

@@ -17,7 +17,7 @@ import { term, termStyles } from '../app/term-tip.ts';
 import { parseColourRange } from '../figures/colour-scale.ts';
 import { InputError } from '../../core/input-error.ts';
 import { MAX_CELL_LIMIT } from '../../core/model.ts';
-import { atSearchLimit } from '../../core/scan/map-columns.ts';
+import { atSearchLimit } from '../../core/meanfield/plateaus.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
 import { MapScanController, type MapGrid } from '../controllers/map-scan.ts';
 import { DragZoomController, type ZoomBox } from '../controllers/drag-zoom.ts';

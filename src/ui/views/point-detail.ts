@@ -8,7 +8,7 @@
  * It opens below the map: each newly opened point is scrolled into view (when its top is
  * not in the upper half of the window), and Escape closes it from anywhere on the page.
  */
-import { atSearchLimit } from '../../core/scan/map-columns.ts';
+import { atSearchLimit } from '../../core/meanfield/plateaus.ts';
 import { LitElement, html, css, nothing } from 'lit';
 import type { ModelParams } from '../../core/model.ts';
 import type { SolveResult } from '../../core/meanfield/ground-state.ts';

@@ -8,7 +8,7 @@
 import { describe, it, expect } from 'vitest';
 import { demoState, MODEL_KEYS } from '../../../src/ui/state/app-state.ts';
 import { commentedCsv, inputHeader } from '../../../src/ui/export/csv-header.ts';
-import { parseCsvLine, toCSV, type Table } from '../../../src/core/scan/csv.ts';
+import { parseCsvLine, toCSV, type Table } from '../../../src/formats/csv.ts';
 
 /** What pandas reads with comment='#': each line cut at its first '#', lines left empty dropped. */
 function pandasLines(text: string): string[] {

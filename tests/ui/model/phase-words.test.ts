@@ -4,7 +4,7 @@
 import { describe, it, expect } from 'vitest';
 import type { MeanFieldState } from '../../../src/core/meanfield/state.ts';
 import { phaseWords, regionWord } from '../../../src/ui/model/phase-words.ts';
-import { mapCsv, mapHeader, mapJson } from '../../../src/core/scan/map-columns.ts';
+import { mapCsv, mapHeader, mapJson } from '../../../src/formats/map-columns.ts';
 import { parseAxis } from '../../../src/core/scan/axes.ts';
 
 function state(phase: MeanFieldState['phase'], fraction: string | null, m: number[], photonDensity: number): MeanFieldState {

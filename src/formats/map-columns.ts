@@ -1,7 +1,8 @@
 /**
  * The one table of a map's output columns as plain strings and numbers, for every writer
- * of a map (so two writers of one map give the same bytes; the writing itself is outside
- * the core):
+ * of a map (the CLI's files and the page's exports, so two writers of one map give the
+ * same bytes). An output format, not physics: it lives outside the core and builds text
+ * only; the writing is the caller's:
  *
  *   ix, iy, <x axis>, [<y axis>], phase, fraction, cellSize, atSearchLimit, lockedFilling, cell, alpha, photonDensity,
  *   emitterDensity, excitationDensity, grandPotential, [mu], sublatticeDensities,
@@ -20,13 +21,13 @@
  * space-separated inside one field. A point that could not be solved has empty state
  * fields and its reason in `error`; a solved point has an empty `error`.
  */
-import type { ModelParams } from '../model.ts';
-import type { SolveResult } from '../meanfield/ground-state.ts';
-import type { Axis } from './axes.ts';
-import type { ScanPlan, ScanPoint } from './grid.ts';
-import type { ShardMeta } from './merge.ts';
+import type { ModelParams } from '../core/model.ts';
+import type { SolveResult } from '../core/meanfield/ground-state.ts';
+import type { Axis } from '../core/scan/axes.ts';
+import type { ScanPlan, ScanPoint } from '../core/scan/grid.ts';
+import type { ShardMeta } from '../core/scan/merge.ts';
 import { toCSV, type Cell, type Table } from './csv.ts';
-import { plateauFraction } from '../meanfield/plateaus.ts';
+import { atSearchLimit, plateauFraction } from '../core/meanfield/plateaus.ts';
 
 /** What fixes a map's columns and its file header. */
 export interface MapHeader {
@@ -47,11 +48,6 @@ export function mapHeader(plan: ScanPlan, shard: ShardMeta | null = null): MapHe
 
 /** First words of a shard's tag line (merge reads it back). */
 export const SHARD_TAG = '# blockade-atlas map';
-
-/** The state's pattern uses the largest cell the search tried (M = Mmax). */
-export function atSearchLimit(s: Pick<SolveResult, 'cellSize'>, maxCell: number): boolean {
-  return s.cellSize === maxCell;
-}
 
 type Column = [name: string, value: (s: SolveResult) => Cell];
 

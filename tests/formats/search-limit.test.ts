@@ -5,10 +5,10 @@
 // |1 0 1 0 ...> (density 1/2) for 0 < mu < 2 V1, filled above. With Mmax = 2 the crystal
 // sits on the limit; with Mmax = 4 it is found in its own two-site cell, off the limit.
 import { describe, it, expect } from 'vitest';
-import { solveGroundState } from '../../../src/core/meanfield/ground-state.ts';
-import { mapCsv, mapHeader, mapJson } from '../../../src/core/scan/map-columns.ts';
-import { parseAxis } from '../../../src/core/scan/axes.ts';
-import type { ModelParams } from '../../../src/core/model.ts';
+import { solveGroundState } from '../../src/core/meanfield/ground-state.ts';
+import { mapCsv, mapHeader, mapJson } from '../../src/formats/map-columns.ts';
+import { parseAxis } from '../../src/core/scan/axes.ts';
+import type { ModelParams } from '../../src/core/model.ts';
 
 describe('atSearchLimit', () => {
   it('marks the period-2 crystal at Mmax = 2 and not at Mmax = 4', () => {
