@@ -17,6 +17,7 @@
  * on its size and axis index, so a run gives the same bits alone or beside others). What is
  * kept of each run is what the crossings need (size, axis value, Binder cumulant).
  */
+import { readBackRows } from './row-resume.ts';
 import { binderCrossings, type BinderCrossing } from '../core/qmc/binder-crossing.ts';
 import { parseCsvLine } from '../formats/csv.ts';
 import type { QmcScanPoint, QmcScanRequest } from '../../workers/protocol.ts';
@@ -54,61 +55,30 @@ function keep(p: QmcScanPoint): Kept {
 /** The expected runs, by rank: index, size, axis value. */
 type Expected = readonly { index: number; size: number; value: number }[];
 
-/** Read back a part: the runs it holds (in order) and the bytes to keep. */
+/** Read back a part (row-resume.ts): the runs it holds (in order) and the bytes to keep. */
 export function readBackQmc(lines: LineReader, head: string, json: boolean, runs: Expected, name: string): { kept: Kept[]; keepBytes: number } {
-  const out = { kept: [] as Kept[], keepBytes: 0 };
-  const headLines = head.split('\n').length - 1;
-  try {
-    let text = '', bytes = 0;
-    for (let i = 0; i < headLines; i++) {
-      const l = lines.next();
-      if (!l || !l.ended) return out; // torn inside the head: nothing was done
-      text += l.text + '\n';
-      bytes += l.bytes;
+  const columns = json ? [] : head.trimEnd().split('\n').slice(-1)[0].split(',');
+  const bCol = columns.indexOf('binder'), eCol = columns.indexOf('binderError'), errCol = columns.indexOf('error');
+  const back = readBackRows(lines, head, json, runs.length, name, (row, rank, lineNo): Kept => {
+    const want = runs[rank];
+    let got: { index: unknown; size: unknown; value: unknown }, k: Kept;
+    if (json) {
+      const o = row as Record<string, unknown>;
+      got = { index: o.index, size: o.size, value: o.value };
+      const b = o.binder as Estimate | null | undefined;
+      k = { size: want.size, value: want.value, binder: b ? { value: b.value, error: b.error } : null, failed: o.error !== undefined };
+    } else {
+      const f = parseCsvLine(row as string);
+      if (!f || f.length !== columns.length) throw foreign(name, lineNo, `${f ? f.length : 'unreadable'} fields, the header ${columns.length}`);
+      got = { index: Number(f[0]), size: Number(f[1]), value: Number(f[2]) };
+      k = { size: want.size, value: want.value, binder: f[bCol] === '' ? null : { value: Number(f[bCol]), error: Number(f[eCol]) }, failed: f[errCol] !== '' };
     }
-    if (text !== head) {
-      const mine = head.split('\n'), theirs = text.split('\n');
-      const d = theirs.findIndex((t, i) => t !== mine[i]);
-      throw foreign(name, d + 1, `its header differs from this scan's: '${theirs[d].slice(0, 100)}' against '${mine[d].slice(0, 100)}'`);
+    if (got.index !== want.index || got.size !== want.size || got.value !== want.value) {
+      throw foreign(name, lineNo, `run (index ${String(got.index)}, size ${String(got.size)}, value ${String(got.value)}), expected (index ${want.index}, size ${want.size}, value ${want.value})`);
     }
-    out.keepBytes = bytes;
-    const columns = json ? [] : head.split('\n')[headLines - 1].split(',');
-    const bCol = columns.indexOf('binder'), eCol = columns.indexOf('binderError'), errCol = columns.indexOf('error');
-    for (let lineNo = headLines + 1; lineNo <= headLines + runs.length + 1; lineNo++) {
-      const l = lines.next();
-      if (!l || !l.ended) return out; // the end, or a torn last line: dropped
-      if (json && l.text.startsWith(']')) return out; // the closing line: written again at the end
-      const want = runs[out.kept.length];
-      if (!want) throw foreign(name, lineNo, `the scan has ${runs.length} runs, the file more`);
-      let got: { index: unknown; size: unknown; value: unknown }, k: Kept;
-      if (json) {
-        const comma = out.kept.length > 0 ? ',' : '';
-        if (!l.text.startsWith(comma + '{')) throw foreign(name, lineNo, 'not a point line');
-        let o: Record<string, unknown>;
-        try {
-          o = JSON.parse(l.text.slice(comma.length)) as Record<string, unknown>;
-        } catch {
-          throw foreign(name, lineNo, 'not valid JSON');
-        }
-        got = { index: o.index, size: o.size, value: o.value };
-        const b = o.binder as Estimate | null | undefined;
-        k = { size: want.size, value: want.value, binder: b ? { value: b.value, error: b.error } : null, failed: o.error !== undefined };
-      } else {
-        const f = parseCsvLine(l.text);
-        if (!f || f.length !== columns.length) throw foreign(name, lineNo, `${f ? f.length : 'unreadable'} fields, the header ${columns.length}`);
-        got = { index: Number(f[0]), size: Number(f[1]), value: Number(f[2]) };
-        k = { size: want.size, value: want.value, binder: f[bCol] === '' ? null : { value: Number(f[bCol]), error: Number(f[eCol]) }, failed: f[errCol] !== '' };
-      }
-      if (got.index !== want.index || got.size !== want.size || got.value !== want.value) {
-        throw foreign(name, lineNo, `run (index ${String(got.index)}, size ${String(got.size)}, value ${String(got.value)}), expected (index ${want.index}, size ${want.size}, value ${want.value})`);
-      }
-      out.kept.push(k);
-      out.keepBytes += l.bytes;
-    }
-    return out;
-  } finally {
-    lines.close();
-  }
+    return k;
+  });
+  return { kept: back.items, keepBytes: back.ends.length ? back.ends[back.ends.length - 1] : back.headBytes };
 }
 
 /** Run the scan (its shard) into `target`, continuing the part there, on a pool of `pool.size` engines (`pool.workers` in the footer). */
