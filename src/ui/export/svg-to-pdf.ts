@@ -129,19 +129,30 @@ function gradientFallback(ctx: Context, fill: string): string {
   return mid ? `rgb(${mid.rgb.map((v) => Math.round(v * 255)).join(',')})` : server!.fallback;
 }
 
+/**
+ * Set the graphics state of a fill and/or stroke (colours, opacities, line state); null
+ * when neither is painted. fa, sa: the fill's and the stroke's own alpha (null: not painted).
+ */
+function paintState(ctx: Context, p: Paint, ctm: Matrix, ops: string[]): { fa: number | null; sa: number | null } | null {
+  const set: string[] = [];
+  const fa = setPaint(ctx, p.fill, false, ctm, set);
+  const sa = p.strokeWidth > 0 ? setPaint(ctx, p.stroke, true, ctm, set) : null;
+  if (fa === null && sa === null) return null;
+  const f = (fa ?? 1) * p.fillOpacity * p.opacity, s = (sa ?? 1) * p.strokeOpacity * p.opacity;
+  if (f < 1 || s < 1) ops.push(`/${ctx.alpha(f, s)} gs`);
+  ops.push(...set);
+  if (sa !== null) ops.push(...strokeState(p));
+  return { fa, sa };
+}
+
 /** Paint a path: fill and/or stroke with their opacities. */
 function paintPath(ctx: Context, p: Paint, path: string, ctm: Matrix, ops: string[], n?: SvgNode): void {
   if (!path) return;
   if (n && paintGradient(ctx, p, n, path, ops)) p = { ...p, fill: 'none' };
   else p = { ...p, fill: gradientFallback(ctx, p.fill) };
-  const set: string[] = [];
-  const fa = setPaint(ctx, p.fill, false, ctm, set);
-  const sa = p.strokeWidth > 0 ? setPaint(ctx, p.stroke, true, ctm, set) : null;
-  if (fa === null && sa === null) return;
-  const f = (fa ?? 1) * p.fillOpacity * p.opacity, s = (sa ?? 1) * p.strokeOpacity * p.opacity;
-  if (f < 1 || s < 1) ops.push(`/${ctx.alpha(f, s)} gs`);
-  ops.push(...set);
-  if (sa !== null) ops.push(...strokeState(p));
+  const painted = paintState(ctx, p, ctm, ops);
+  if (!painted) return;
+  const { fa, sa } = painted;
   const even = p.fillRule === 'evenodd' ? '*' : '';
   ops.push(path, fa !== null && sa !== null ? `B${even}` : fa !== null ? `f${even}` : 'S');
 }
@@ -165,14 +176,9 @@ function paintText(ctx: Context, p: Paint, n: SvgNode, ctm: Matrix, ops: string[
   if (p.anchor === 'middle') x -= w / 2; else if (p.anchor === 'end') x -= w;
   if (p.baseline === 'middle' || p.baseline === 'central') y += 0.35 * p.fontSize;
   else if (p.baseline === 'hanging' || p.baseline === 'text-before-edge') y += 0.75 * p.fontSize;
-  const set: string[] = [];
-  const fa = setPaint(ctx, p.fill, false, ctm, set);
-  const sa = p.strokeWidth > 0 ? setPaint(ctx, p.stroke, true, ctm, set) : null;
-  if (fa === null && sa === null) return;
-  const f = (fa ?? 1) * p.fillOpacity * p.opacity, s = (sa ?? 1) * p.strokeOpacity * p.opacity;
-  if (f < 1 || s < 1) ops.push(`/${ctx.alpha(f, s)} gs`);
-  ops.push(...set);
-  if (sa !== null) ops.push(...strokeState(p));
+  const painted = paintState(ctx, p, ctm, ops);
+  if (!painted) return;
+  const { fa, sa } = painted;
   const body = runs.map((r) => `/${r.font} ${num(p.fontSize)} Tf ${pdfString(r.codes)} Tj`).join(' ');
   const at = `1 0 0 -1 ${num(x)} ${num(y)} Tm`;
   // render modes (9.3.6): 0 fill, 1 stroke, 2 fill then stroke; a halo (paint-order: stroke) goes under the fill
