@@ -63,15 +63,21 @@ export interface RefineLevel {
  * solved before) and split those neither certified nor leaves.
  */
 export function refineLevel(rects: readonly Rect[], state: (ix: number, iy: number) => SolveResult | undefined): RefineLevel {
-  const out: RefineLevel = { certified: [], children: [] };
+  const lvl = levelBy(rects, (x, y) => crystalOf(state(x, y)));
+  return { certified: lvl.settled.map(({ rect, value }) => ({ rect, crystal: value })), children: lvl.children };
+}
+
+/**
+ * One level, by a class of the corner states: a rectangle whose corners all have a class
+ * with one key is settled (with its first corner's class), the others split.
+ */
+function levelBy<T extends { key: string }>(rects: readonly Rect[], classAt: (ix: number, iy: number) => T | null): { settled: Array<{ rect: Rect; value: T }>; children: Rect[] } {
+  const out = { settled: [] as Array<{ rect: Rect; value: T }>, children: [] as Rect[] };
   for (const r of rects) {
-    const cs = corners(r).map(([x, y]) => crystalOf(state(x, y)));
+    const cs = corners(r).map(([x, y]) => classAt(x, y));
     const first = cs[0];
-    if (first && cs.every((c) => c !== null && c.key === first.key)) {
-      out.certified.push({ rect: r, crystal: first });
-      continue;
-    }
-    out.children.push(...split(r));
+    if (first && cs.every((c) => c !== null && c.key === first.key)) out.settled.push({ rect: r, value: first });
+    else out.children.push(...split(r));
   }
   return out;
 }
@@ -113,18 +119,11 @@ export interface UniformLevel {
  * refineLevel.
  */
 export function refineUniformLevel(rects: readonly Rect[], state: (ix: number, iy: number) => SolveResult | undefined): UniformLevel {
-  const out: UniformLevel = { uniform: [], children: [] };
-  for (const r of rects) {
-    const ss = corners(r).map(([x, y]) => state(x, y));
-    const k0 = regionKey(ss[0]);
-    if (k0 !== null && ss.every((s) => regionKey(s) === k0)) {
-      const s = ss[0] as SolveResult;
-      out.uniform.push({ rect: r, region: { cell: { ...s.cell }, M: s.sublatticeDensities.length } });
-      continue;
-    }
-    out.children.push(...split(r));
-  }
-  return out;
+  const lvl = levelBy(rects, (x, y) => {
+    const s = state(x, y), key = regionKey(s);
+    return key === null ? null : { key, region: { cell: { ...(s as SolveResult).cell }, M: (s as SolveResult).sublatticeDensities.length } };
+  });
+  return { uniform: lvl.settled.map(({ rect, value }) => ({ rect, region: value.region })), children: lvl.children };
 }
 
 /**
