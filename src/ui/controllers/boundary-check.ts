@@ -6,12 +6,12 @@
  * runs stream in (`points`) so the Binder figure fills while the scan runs; progress is
  * runs done of the total.
  */
-import type { ReactiveController, ReactiveControllerHost } from 'lit';
+import type { ReactiveControllerHost } from 'lit';
 import { qmcScanOnPool, scanCrossings } from '../../../workers/qmc-scan.ts';
 import type { QmcScanPoint, QmcScanRequest } from '../../../workers/protocol.ts';
 import type { BinderCrossing } from '../../core/qmc/binder-crossing.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
-import { EngineTask } from './engine-task.ts';
+import { PoolJob } from './pool-job.ts';
 
 export interface BoundaryCheckResult {
   request: QmcScanRequest;
@@ -23,19 +23,16 @@ export interface BoundaryCheckResult {
 /** Redraws for streamed runs at most this often (ms). */
 const THROTTLE = 200;
 
-export class BoundaryCheckController implements ReactiveController {
-  readonly task: EngineTask<BoundaryCheckResult>;
+export class BoundaryCheckController extends PoolJob<BoundaryCheckResult> {
   /** Runs finished so far of the pending scan (completion order). */
   points: QmcScanPoint[] = [];
   done = 0;
   total = 0;
   /** The request of the pending (or last) scan. */
   request: QmcScanRequest | null = null;
-  private redraw = false;
 
-  constructor(private readonly host: ReactiveControllerHost, private readonly engine: () => EngineClient | undefined) {
-    host.addController(this);
-    this.task = new EngineTask<BoundaryCheckResult>(host);
+  constructor(host: ReactiveControllerHost, engine: () => EngineClient | undefined) {
+    super(host, engine, THROTTLE);
   }
 
   /** Run the scan unless it is the one already pending or shown. */
@@ -54,33 +51,5 @@ export class BoundaryCheckController implements ReactiveController {
       });
       return { request: req, points, crossings: scanCrossings(points) };
     });
-  }
-
-  cancel(): void {
-    this.task.abort();
-  }
-
-  /** True when the latest request was cancelled (its result is not the one shown). */
-  get cancelled(): boolean {
-    return this.task.cancelled;
-  }
-
-  /** Run the latest request again (after a cancel). */
-  rerun(): void {
-    this.task.retry();
-  }
-
-  get status() { return this.task.status; }
-  get value() { return this.task.value; }
-  get error() { return this.task.error; }
-
-  private later() {
-    if (this.redraw) return;
-    this.redraw = true;
-    setTimeout(() => { this.redraw = false; this.host.requestUpdate(); }, THROTTLE);
-  }
-
-  hostDisconnected(): void {
-    this.task.abort();
   }
 }

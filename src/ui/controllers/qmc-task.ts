@@ -8,28 +8,24 @@
  * while a new one runs) plus the run's progress: the stage (alpha grid, refinement around
  * the minimum of f(alpha), measurement), its beta, and the chains done of those handed out.
  */
-import type { ReactiveController, ReactiveControllerHost } from 'lit';
+import type { ReactiveControllerHost } from 'lit';
 import { quantumMonteCarloOnPool } from '../../../workers/qmc-run.ts';
 import type { QmcProgress, QmcRequest, QmcResult } from '../../../workers/protocol.ts';
 import type { EngineClient } from '../engine/engine-client.ts';
-import { EngineTask } from './engine-task.ts';
+import { PoolJob } from './pool-job.ts';
 
 /** Redraws for progress at most this often (ms). */
 const PROGRESS_THROTTLE = 150;
 
-export class QmcTask implements ReactiveController {
-  /** The run (status, value, error, valueKey). */
-  readonly task: EngineTask<QmcResult>;
+export class QmcTask extends PoolJob<QmcResult> {
   /** Progress of the pending run, null before its first report. */
   progress: QmcProgress | null = null;
   /** The request the shown value belongs to. */
   request: QmcRequest | null = null;
   private pendingRequest: QmcRequest | null = null;
-  private redraw = false;
 
-  constructor(private readonly host: ReactiveControllerHost, private readonly engine: () => EngineClient | undefined) {
-    host.addController(this);
-    this.task = new EngineTask<QmcResult>(host);
+  constructor(host: ReactiveControllerHost, engine: () => EngineClient | undefined) {
+    super(host, engine, PROGRESS_THROTTLE);
   }
 
   /** Run `req` unless it is the run already pending or shown (the key is the request's JSON). */
@@ -46,37 +42,13 @@ export class QmcTask implements ReactiveController {
     });
   }
 
-  /** Cancel the pending run (the last result stays). */
-  cancel(): void {
-    this.task.abort();
-  }
-
-  /** True when the latest request was cancelled (its result is not the one shown). */
-  get cancelled(): boolean {
-    return this.task.cancelled;
-  }
-
-  /** Run the latest request again (after a cancel). */
-  rerun(): void {
-    this.task.retry();
-  }
-
-  get status() { return this.task.status; }
-  get value() { return this.task.value; }
-  get error() { return this.task.error; }
   /** The request of the pending run, or null. */
   get pending(): QmcRequest | null { return this.task.status === 'pending' ? this.pendingRequest : null; }
 
   private report(p: QmcProgress, signal: AbortSignal) {
     if (signal.aborted) return;
     this.progress = p;
-    if (this.redraw) return;
-    this.redraw = true;
-    setTimeout(() => { this.redraw = false; this.host.requestUpdate(); }, PROGRESS_THROTTLE);
-  }
-
-  hostDisconnected(): void {
-    this.task.abort();
+    this.later();
   }
 }
 
