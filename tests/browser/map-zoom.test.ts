@@ -34,9 +34,21 @@ afterAll(async () => {
   await server?.close();
 });
 
-/** Client position of data point (x, y) on the map. */
+/**
+ * Client position of data point (x, y) on the map, once the drawn map's axes cover it and
+ * the map is scrolled into view (opening a point scrolls the page to its detail, and a
+ * figure redraws a frame after the range fields change: a drag computed before either
+ * settles would start outside the plot).
+ */
 async function client(x: number, y: number): Promise<{ x: number; y: number }> {
-  const p = await page.locator('figure-panel.map').evaluate(
+  const map = page.locator('figure-panel.map');
+  await expect.poll(() => map.evaluate((el, [dx, dy]) => {
+    const f = (el as unknown as { figure?: { frame?: { x: { domain: number[] }; y: { domain: number[] } } } }).figure?.frame;
+    const inside = (v: number, d: number[]) => v >= Math.min(d[0], d[1]) && v <= Math.max(d[0], d[1]);
+    return !!f && inside(dx, f.x.domain) && inside(dy, f.y.domain);
+  }, [x, y] as [number, number])).toBe(true);
+  await map.scrollIntoViewIfNeeded();
+  const p = await map.evaluate(
     (el, [dx, dy]) => (el as unknown as { dataToClient(x: number, y: number): { x: number; y: number } | null }).dataToClient(dx, dy),
     [x, y] as [number, number]);
   if (!p) throw new Error('no map figure');
