@@ -75,6 +75,12 @@ export interface RunOptions<T, R> {
    * (and is streamed as one). Cancellation still ends the run.
    */
   recover?: (error: Error, taskIndex: number, task: T) => R;
+  /**
+   * Queue rank (default 0): a run's tasks go ahead of every queued task of a lower
+   * priority and behind those of the same or a higher one (first come, first served
+   * within a priority). A running task is never interrupted.
+   */
+  priority?: number;
 }
 
 export interface PoolOptions {
@@ -103,6 +109,7 @@ function taskJson(task: unknown): string {
 interface Job {
   run: RunState;
   taskIndex: number;
+  priority: number;
 }
 
 interface RunState {
@@ -183,7 +190,12 @@ export class WorkerPool<E> {
       if (signal?.aborted) return reject(abortError(signal));
       if (tasks.length === 0) return resolve([]);
       signal?.addEventListener('abort', onAbort, { once: true });
-      for (let i = 0; i < tasks.length; i++) this.queue.push({ run, taskIndex: i });
+      const priority = opts.priority ?? 0;
+      // behind every queued job of the same or a higher priority
+      let at = this.queue.length;
+      while (at > 0 && this.queue[at - 1].priority < priority) at--;
+      const jobs = tasks.map((_, i) => ({ run, taskIndex: i, priority }));
+      this.queue = at === this.queue.length ? this.queue.concat(jobs) : [...this.queue.slice(0, at), ...jobs, ...this.queue.slice(at)];
       this.pump();
     });
   }

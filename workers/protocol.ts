@@ -16,6 +16,7 @@ import type { ScanPlan, ScanPoint, Segment } from '../src/core/scan/grid.ts';
 import type { Shard } from '../src/core/scan/shards.ts';
 import type { Boundary } from '../src/core/scan/boundaries.ts';
 import type { AdaptivePixel, ColdPoint, FilledPoint } from '../src/core/scan/certified-fill.ts';
+import type { PackedSegment } from '../src/core/scan/segment-pixels.ts';
 import type { PhaseMargin, PhaseMarginOptions } from '../src/core/scan/phase-margin.ts';
 import type { SpectrumRequest, StateSpectrum } from '../src/core/spectrum/state-spectrum.ts';
 import type { SoftLineRequest, SoftLineResult } from '../src/core/softmode/soft-lines.ts';
@@ -141,7 +142,10 @@ export interface MapScanResult {
 
 /** A row segment of an adaptive map, filled point by point as the dense scan would (certified-fill.ts). */
 export interface FillSegmentRequest {
-  pixels: AdaptivePixel[];
+  /** The pixels in the compact form (segment-pixels.ts): one or more neighbouring segments of a row. */
+  segment: PackedSegment;
+  /** Lengths of the segments it holds, in order (default: one segment); each is filled on its own. */
+  cuts?: number[];
   continuation: boolean;
 }
 

@@ -59,6 +59,24 @@ describe('adaptive map = dense map, pixel for pixel', () => {
     }
   }, 300_000);
 
+  it('the band pipeline does not depend on timing: one worker and two give the same solves, lines and pixels', async () => {
+    // refinement, fill and boundary location overlap across bands; what they share is
+    // touched in one fixed order, so the counts are those of any schedule (common practice)
+    const plan: ScanPlan = { ...vdw, x: parseAxis('mu=-1:3.9:30', 'x'), y: parseAxis('rb=1:2:40', 'y') };
+    const one = nodeEnginePool(1);
+    try {
+      const a = await runScan(one, { kind: 'map', plan });
+      const b = await runScan(pool, { kind: 'map', plan });
+      expect(b.solves).toBe(a.solves);
+      expect(b.boundarySolves).toBe(a.boundarySolves);
+      expect(JSON.stringify(b.boundaries)).toBe(JSON.stringify(a.boundaries));
+      const h = mapHeader(plan);
+      expect(mapCsv(h, b.points)).toBe(mapCsv(h, a.points));
+    } finally {
+      one.close();
+    }
+  }, 300_000);
+
   it('nn chain over mu x V1 with Mmax 4, and a line: zero differing pixels', async () => {
     const nn: ScanPlan = {
       base: { lattice: 'chain', interaction: { shape: 'nn', V1: 2 }, delta: 3, T: 0, maxCell: 4 },

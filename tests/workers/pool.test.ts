@@ -71,6 +71,21 @@ describe('worker pool', () => {
     expect(stats.terminated).toBe(3);
   });
 
+  it('a run of higher priority goes ahead of queued tasks, behind running ones and its equals', async () => {
+    const { spawn } = fakeSpawner();
+    const pool = new WorkerPool(spawn, 1);
+    const order: string[] = [];
+    const task = (tag: string) => (r: Parameters<Parameters<typeof pool.run>[1]>[0], x: number) => r.square(x, 5).then((v) => { order.push(`${tag}${x}`); return v; });
+    // one worker: a0 starts at once, the rest queue
+    const a = pool.run([0, 1, 2], task('a'));
+    const b = pool.run([0, 1], task('b'), { priority: 1 });
+    const c = pool.run([0], task('c'), { priority: 1 });
+    const d = pool.run([0], task('d'), { priority: 2 });
+    await Promise.all([a, b, c, d]);
+    expect(order).toEqual(['a0', 'd0', 'b0', 'b1', 'c0', 'a1', 'a2']);
+    pool.close();
+  });
+
   it('starts only as many workers as there are tasks', async () => {
     const { spawn, stats } = fakeSpawner();
     const pool = new WorkerPool(spawn, 8);

@@ -7,6 +7,7 @@ import { solveGroundState, type SolveResult } from '../../src/core/meanfield/gro
 import { refinePlateaus, type Plateau } from '../../src/core/meanfield/plateaus.ts';
 import { phaseMargin, type PhaseMargin } from '../../src/core/scan/phase-margin.ts';
 import { fillSegment, solveCold, type FilledPoint } from '../../src/core/scan/certified-fill.ts';
+import { unpackSegment } from '../../src/core/scan/segment-pixels.ts';
 import type {
   ColdOutcome, ColdRunRequest, FillSegmentRequest, PhaseMarginRequest, PlateauEdgeRequest, PointCallback, PointOutcome, SolveRequest, SolveRunRequest,
 } from '../protocol.ts';
@@ -58,9 +59,15 @@ export const meanfieldApi = {
     });
   },
 
-  /** A row segment of an adaptive map, each point as the dense run would give it (fillSegment). */
+  /** Row segments of an adaptive map, each point as the dense run would give it (fillSegment, segment by segment). */
   fillSegment(req: FillSegmentRequest, onPoint?: PointCallback<FilledPoint>): FilledPoint[] {
-    return fillSegment(req.pixels, req.continuation, onPoint ? (i, r) => void onPoint(i, r) : undefined);
+    const pixels = unpackSegment(req.segment);
+    const out: FilledPoint[] = [];
+    for (const length of req.cuts ?? [pixels.length]) {
+      const at = out.length;
+      out.push(...fillSegment(pixels.slice(at, at + length), req.continuation, onPoint ? (i, r) => void onPoint(at + i, r) : undefined));
+    }
+    return out;
   },
 
   /** One plateau with its edges bisected to req.muTol (see PlateauEdgeRequest). */

@@ -22,7 +22,9 @@ import { bandRects, coarseColumns, coarseRows, corners, refineLevel, refineUnifo
 import {
   affineCrossing, chainBoundaries, crossing, crystalOmega, phaseName, type Crossing,
 } from '../../src/core/scan/boundaries.ts';
-import type { AdaptivePixel, ColdPoint } from '../../src/core/scan/certified-fill.ts';
+import type { ColdPoint } from '../../src/core/scan/certified-fill.ts';
+import { packSegment } from '../../src/core/scan/segment-pixels.ts';
+import { transfer } from 'comlink';
 import {
   AffineFrame, BoundaryLines, CrystalModels, MAX_KNOWN_CRYSTALS, confirmFloor, lineKey, lowerCrystal, probes,
 } from '../../src/core/scan/boundary-lines.ts';
@@ -38,6 +40,13 @@ import type { Rect } from '../../src/core/scan/refinement.ts';
 
 /** Cold points per worker task (small: a refinement level ends when its slowest task does). */
 const COLD_TASK = 2;
+
+/**
+ * Segments per fill task. Most pixels of a map are certified and cost little to fill, so
+ * a task of one 16-pixel segment spent about as long waiting on its round trip through
+ * the scan's thread as computing (1D 200 x 200: 2,600 tasks).
+ */
+const FILL_RUN = 4;
 
 /** Run a map: adaptive unless req.dense (or a case the adaptive map does not cover; see notes). */
 export async function runMap(pool: WorkerPool<Engine>, req: MapScanRequest, o: ScanOptions<ScanPoint> = {}): Promise<MapScanResult> {
@@ -113,16 +122,27 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
   let solves = 0, cellSolves = 0, boundarySolves = 0, remaining = own ? own.pixels : bands.reduce((a, b) => a + b.rows.length * nx, 0);
   const progress = () => o.onProgress?.(solves, solves + remaining);
 
-  const solveCold = async (pts: Array<{ p: ModelParams; seed: number; what: string }>): Promise<ColdOutcome[]> => {
+  // one signal for both branches of the band pipeline below: the caller's, or a failure of either
+  const stop = new AbortController();
+  const onAbort = () => stop.abort(o.signal?.reason);
+  if (o.signal?.aborted) onAbort(); else o.signal?.addEventListener('abort', onAbort, { once: true });
+  const detach = () => o.signal?.removeEventListener('abort', onAbort);
+  const signal = stop.signal;
+
+  // cold solves (corners, tie points, boundary confirmations) go ahead of the fill's
+  // segments in the pool's queue: the band pipeline's chain waits on them
+  const solveCold = async (pts: Array<{ p: ModelParams; seed: number; what: string }>, boundary = false): Promise<ColdOutcome[]> => {
     const tasks: Array<typeof pts> = [];
     for (let i = 0; i < pts.length; i += COLD_TASK) tasks.push(pts.slice(i, i + COLD_TASK));
     const res = await pool.run(tasks, async (remote, t) => {
       const r = await remote.meanfield.solveColdRun({ points: t.map((x) => x.p), seeds: t.map((x) => x.seed) });
       solves += t.length;
+      if (boundary) boundarySolves += t.length;
       progress();
       return r;
     }, {
-      signal: o.signal,
+      signal,
+      priority: 1,
       budgetMs: (t) => t.length * pointBudget,
       describe: (t) => `adaptive map corners ${t.map((x) => x.what).join('; ')}; first point ${JSON.stringify(t[0].p)}`,
       recover: (e, _i, t) => t.map(() => ({ error: e.message.replace(/\s*\n\s*/g, ' ') })),
@@ -132,9 +152,10 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
   const at = (ix: number, iy: number) => `(${plan.x.name} = ${plan.x.values[ix]}${plan.y ? `, ${plan.y.name} = ${plan.y.values[iy]}` : ''})`;
   const ties = mode === 'certify' && located ? new TieCertifier(plan, located, solveCold) : null;
 
-  for (const band of bands) {
+  /** A band's refinement: every pixel certified (a crystal), solved cold (known) or given its region's cell. */
+  interface Refined { certified: Map<number, Crystal>; uniform: Map<number, RegionCell> }
+  const refine = async (band: Band): Promise<Refined> => {
     await o.ready?.(); // a slow reader of the output pauses the scan (backpressure)
-    // refinement: every pixel of the band certified or solved cold
     const certified = new Map<number, Crystal>();
     const uniform = new Map<number, RegionCell>();
     let rects = mode === 'uniform' ? subdivide(bandRects(cols, band.y0, band.y1), UNIFORM_STEP) : bandRects(cols, band.y0, band.y1);
@@ -161,12 +182,30 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
       }
       rects = lvl.children;
     }
-    // production: each wanted row's segments, point by point as the dense scan
-    const segs: Array<{ iy: number; ix0: number; length: number }> = [];
+    return { certified, uniform };
+  };
+
+  /**
+   * A band's production: each wanted row's segments, point by point as the dense scan,
+   * delivered in point order once the band before has delivered all of its points
+   * (`previous`); resolves, at its last point, with the band's edges whose pixels differ.
+   */
+  const fill = (band: Band, refined: Promise<Refined>, previous: Promise<unknown>): Promise<EdgeJob[]> => new Promise((resolve, reject) => {
+    // a task: up to FILL_RUN neighbouring segments of one row (each filled on its own, as
+    // the dense scan fills it; one round trip to a worker for all)
+    const segs: Array<{ iy: number; ix0: number; length: number; cuts: number[] }> = [];
     for (const iy of band.rows) {
       let ix0 = 0;
       for (const length of rowCuts(nx)) {
-        if (!own || own.has(iy, ix0)) segs.push({ iy, ix0, length });
+        if (!own || own.has(iy, ix0)) {
+          const run = segs[segs.length - 1];
+          if (run && run.iy === iy && run.ix0 + run.length === ix0 && run.cuts.length < FILL_RUN) {
+            run.length += length;
+            run.cuts.push(length);
+          } else {
+            segs.push({ iy, ix0, length, cuts: [length] });
+          }
+        }
         ix0 += length;
       }
     }
@@ -206,10 +245,48 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
       }
       if (around.every((n) => n === undefined || n === id)) row[ix] = undefined;
     };
+    // the band's edges whose pixels differ (locate skips the others), its rows kept for the
+    // next bands, and what the band no longer needs dropped: run once, at its last point
+    const close = (): EdgeJob[] => {
+      const edges: EdgeJob[] = [];
+      const differ = (lo: Array<SolveResult | undefined>, hi: Array<SolveResult | undefined>, i: number, j: number) => {
+        const a = idsOf(lo)[i], b = idsOf(hi)[j];
+        return a !== undefined && b !== undefined && a !== b;
+      };
+      for (const iy of band.rows) {
+        const s = rowStates.get(iy);
+        if (!s) continue; // a shard's row without a segment of its own
+        for (let ix = 0; ix + 1 < nx; ix++) if (differ(s, s, ix, ix + 1)) edges.push({ edge: `h${iy * nx + ix}`, axis: plan.x, a: s[ix], b: s[ix + 1], pa: gridPoint(plan, ix, iy), pb: gridPoint(plan, ix + 1, iy), va: plan.x.values[ix], vb: plan.x.values[ix + 1], fixed: plan.y ? [plan.y.values[iy]] : [], along: 0 });
+        const up = rowStates.get(iy + 1) ?? (iy === last ? edgeRows.get(iy + 1) : undefined);
+        const down = iy === first ? edgeRows.get(iy - 1) : undefined;
+        const pairs: Array<[number, Array<SolveResult | undefined>, Array<SolveResult | undefined>]> = [];
+        if (up && plan.y) pairs.push([iy, s, up]);
+        if (down && plan.y) pairs.push([iy - 1, down, s]);
+        for (const [y, lo, hi] of pairs) {
+          const ya = (plan.y as Axis).values[y], yb = (plan.y as Axis).values[y + 1];
+          for (let ix = 0; ix < nx; ix++) if (differ(lo, hi, ix, ix)) edges.push({ edge: `v${y * nx + ix}`, axis: plan.y as Axis, a: lo[ix], b: hi[ix], pa: gridPoint(plan, ix, y), pb: gridPoint(plan, ix, y + 1), va: ya, vb: yb, fixed: [plan.x.values[ix]], along: 1 });
+        }
+      }
+      if (rowStates.has(first)) edgeRows.set(first, rowStates.get(first) as Array<SolveResult | undefined>);
+      if (rowStates.has(last)) edgeRows.set(last, rowStates.get(last) as Array<SolveResult | undefined>);
+      // in row order only the band's last row meets a later band (memory: one row, not the map's edges)
+      if (req.order !== 'spread') for (const k of [...edgeRows.keys()]) if (k !== last) edgeRows.delete(k);
+      ids.clear();
+      rowStates.clear();
+      // corners inside the band are done with; in row order so is every corner above its
+      // closing row y1, where the next band starts (memory: one coarse row of corners, not
+      // one a band of the map); later bands' refinements only read corners from y1 on
+      const spread = req.order === 'spread';
+      for (const [index] of known) {
+        const iy = Math.floor(index / nx);
+        if (spread ? iy > band.y0 && iy < band.y1 : iy < band.y1) known.delete(index);
+      }
+      return edges;
+    };
     const done: Array<ScanPoint[] | undefined> = new Array(segs.length);
-    let next = 0;
-    const deliver = (k: number, pts: ScanPoint[]) => {
-      done[k] = pts;
+    let next = 0, open = false, computed = false, closed = false;
+    const flush = () => {
+      if (!open || closed) return;
       for (; next < segs.length && done[next]; next++) {
         for (const pt of done[next] as ScanPoint[]) {
           o.onItem?.(pt);
@@ -221,18 +298,21 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
         }
         done[next] = undefined;
       }
-    };
-    await pool.run(segs, async (remote, seg, k) => {
-      const pixels: AdaptivePixel[] = [];
-      for (let i = 0; i < seg.length; i++) {
-        const ix = seg.ix0 + i, index = seg.iy * nx + ix;
-        const cr = certified.get(index), cold = known.get(index)?.cold, region = cold ? undefined : uniform.get(index);
-        pixels.push({
-          params: gridPoint(plan, ix, seg.iy), seed: pointSeed(plan.seed, index),
-          ...(cr ? { crystal: { cell: cr.cell, n: cr.n } } : {}), ...(cold ? { cold } : {}), ...(region ? { inCell: region } : {}),
-        });
+      if (computed && next === segs.length) {
+        closed = true;
+        try { resolve(close()); } catch (e) { reject(e); }
       }
-      const out = await remote.meanfield.fillSegment({ pixels, continuation });
+    };
+    const deliver = (k: number, pts: ScanPoint[]) => {
+      done[k] = pts;
+      flush();
+    };
+    previous.then(() => { open = true; flush(); }, reject);
+    refined.then(({ certified, uniform }) => pool.run(segs, async (remote, seg, k) => {
+      const segment = packSegment(plan, seg.iy, seg.ix0, seg.length, {
+        crystal: (index) => certified.get(index), cold: (index) => known.get(index)?.cold, inCell: (index) => uniform.get(index),
+      });
+      const out = await remote.meanfield.fillSegment(transfer({ segment, cuts: seg.cuts, continuation }, [segment.crystalIndex.buffer]));
       deliver(k, out.map((r, i) => {
         solves += r.solves;
         cellSolves += r.cellSolves ?? 0;
@@ -243,7 +323,7 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
       progress();
       return out.length;
     }, {
-      signal: o.signal,
+      signal,
       budgetMs: (seg) => seg.length * pointBudget,
       describe: (seg) => `adaptive map points ix ${seg.ix0}..${seg.ix0 + seg.length - 1}, iy ${seg.iy}; first point ${JSON.stringify(gridPoint(plan, seg.ix0, seg.iy))}`,
       recover: (e, k, seg) => {
@@ -252,49 +332,51 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
         remaining -= seg.length;
         return seg.length;
       },
-    });
-    certified.clear();
-    uniform.clear();
-    // boundaries of the band's rows, and to the neighbouring bands' rows already done
-    const edges: EdgeJob[] = [];
-    // a job only for an edge whose pixels differ (locate skips the others)
-    const differ = (lo: Array<SolveResult | undefined>, hi: Array<SolveResult | undefined>, i: number, j: number) => {
-      const a = idsOf(lo)[i], b = idsOf(hi)[j];
-      return a !== undefined && b !== undefined && a !== b;
-    };
-    for (const iy of band.rows) {
-      const s = rowStates.get(iy);
-      if (!s) continue; // a shard's row without a segment of its own
-      for (let ix = 0; ix + 1 < nx; ix++) if (differ(s, s, ix, ix + 1)) edges.push({ edge: `h${iy * nx + ix}`, axis: plan.x, a: s[ix], b: s[ix + 1], pa: gridPoint(plan, ix, iy), pb: gridPoint(plan, ix + 1, iy), va: plan.x.values[ix], vb: plan.x.values[ix + 1], fixed: plan.y ? [plan.y.values[iy]] : [], along: 0 });
-      const up = rowStates.get(iy + 1) ?? (iy === last ? edgeRows.get(iy + 1) : undefined);
-      const down = iy === first ? edgeRows.get(iy - 1) : undefined;
-      const pairs: Array<[number, Array<SolveResult | undefined>, Array<SolveResult | undefined>]> = [];
-      if (up && plan.y) pairs.push([iy, s, up]);
-      if (down && plan.y) pairs.push([iy - 1, down, s]);
-      for (const [y, lo, hi] of pairs) {
-        const ya = (plan.y as Axis).values[y], yb = (plan.y as Axis).values[y + 1];
-        for (let ix = 0; ix < nx; ix++) if (differ(lo, hi, ix, ix)) edges.push({ edge: `v${y * nx + ix}`, axis: plan.y as Axis, a: lo[ix], b: hi[ix], pa: gridPoint(plan, ix, y), pb: gridPoint(plan, ix, y + 1), va: ya, vb: yb, fixed: [plan.x.values[ix]], along: 1 });
+    })).then(() => { computed = true; flush(); }, reject);
+  });
+
+  /** A band's boundary crossings (a shard locates none: its rows are cut into other shards' segments). */
+  const locateBand = async (edges: EdgeJob[]) => {
+    if (!own) crossings.push(...await locate(edges, plan, located, (pts) => solveCold(pts, true)));
+  };
+
+  // The bands run as a pipeline whose result does not depend on timing. Everything that
+  // reads or writes the state shared across bands (the tie certifier's and the boundary
+  // lines' confirmations, the crystals met) runs in one fixed order: refine band 0, refine
+  // band 1, locate band 0, refine band 2, locate band 1, ... Filling a band (the bulk of
+  // the solves) reads only its own refinement and runs beside that chain, its points held
+  // until the band before has delivered its own. So a refinement level's or a locate
+  // pass's last few solves no longer leave the other worker idle: it fills meanwhile
+  // (the chain's cold solves go ahead in the pool's queue). At most two bands are filled
+  // at once (memory: two bands of points in flight).
+  let chain: Promise<unknown> = Promise.resolve();
+  const step = <R>(f: () => Promise<R>): Promise<R> => {
+    const p = chain.then(f);
+    chain = p;
+    return p;
+  };
+  let delivered: Promise<unknown> = Promise.resolve();
+  let toLocate: Promise<EdgeJob[]> | null = null;
+  try {
+    for (const band of bands) {
+      const edges = fill(band, step(() => refine(band)), delivered);
+      delivered = edges;
+      if (toLocate) {
+        const e = toLocate;
+        step(async () => locateBand(await e));
       }
+      toLocate = edges;
     }
-    if (rowStates.has(first)) edgeRows.set(first, rowStates.get(first) as Array<SolveResult | undefined>);
-    if (rowStates.has(last)) edgeRows.set(last, rowStates.get(last) as Array<SolveResult | undefined>);
-    // in row order only the band's last row meets a later band (memory: one row, not the map's edges)
-    if (req.order !== 'spread') for (const k of [...edgeRows.keys()]) if (k !== last) edgeRows.delete(k);
-    // the band's states are written: only the edge rows and the boundary edges' pixels stay
-    ids.clear();
-    rowStates.clear();
-    const before = solves;
-    // a shard locates no boundary lines (its rows are cut into other shards' segments)
-    if (!own) crossings.push(...await locate(edges, plan, located, solveCold));
-    boundarySolves += solves - before;
-    // corners inside the band are done with; in row order so is every corner above its
-    // closing row y1, where the next band starts (memory: one coarse row of corners, not
-    // one a band of the map)
-    const spread = req.order === 'spread';
-    for (const [index] of known) {
-      const iy = Math.floor(index / nx);
-      if (spread ? iy > band.y0 && iy < band.y1 : iy < band.y1) known.delete(index);
+    if (toLocate) {
+      const e = toLocate;
+      step(async () => locateBand(await e));
     }
+    await Promise.all([chain, delivered]);
+  } catch (e) {
+    stop.abort(e); // the other branch of the pipeline stops too
+    throw e;
+  } finally {
+    detach();
   }
   const centre = (ix: number, iy: number) => [
     (plan.x.values[ix] + plan.x.values[ix + 1]) / 2, ...(plan.y ? [(plan.y.values[iy] + plan.y.values[iy + 1]) / 2] : []),

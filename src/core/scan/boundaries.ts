@@ -17,7 +17,9 @@
  */
 import type { SolveResult } from '../meanfield/ground-state.ts';
 import type { ModelParams } from '../model.ts';
-import { cellJ, context } from '../meanfield/cell-search.ts';
+import { cellCouplings } from '../meanfield/coupling-cache.ts';
+import { lattice } from '../lattice/geometry.ts';
+import { resolvePotential } from '../interaction/potential.ts';
 import { supercell } from '../lattice/supercells.ts';
 import type { Crystal } from './crystal.ts';
 
@@ -35,7 +37,9 @@ export function phaseName(s: SolveResult | undefined): string {
  */
 export function crystalOmega(p: ModelParams, c: Crystal): number {
   const cell = supercell(c.cell.a, c.cell.b, c.cell.c);
-  const J = cellJ(context(p), cell);
+  // J_st(0) of the crystal's own cell (cached), without listing every cell up to maxCell
+  const l = lattice(p.lattice);
+  const J = cellCouplings(l, p.interaction, resolvePotential(p.interaction, l), cell);
   const M = cell.M, mu = p.mu as number;
   let e = 0;
   for (let s = 0; s < M; s++) {
