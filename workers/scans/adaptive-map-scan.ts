@@ -133,7 +133,9 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
   // segments in the pool's queue: the band pipeline's chain waits on them
   const solveCold = async (pts: Array<{ p: ModelParams; seed: number; what: string }>, boundary = false): Promise<ColdOutcome[]> => {
     const tasks: Array<typeof pts> = [];
-    for (let i = 0; i < pts.length; i += COLD_TASK) tasks.push(pts.slice(i, i + COLD_TASK));
+    // at least COLD_TASK points a task, and about four tasks a worker (fewer round trips)
+    const size = Math.max(COLD_TASK, Math.ceil(pts.length / (4 * pool.size)));
+    for (let i = 0; i < pts.length; i += size) tasks.push(pts.slice(i, i + size));
     const res = await pool.run(tasks, async (remote, t) => {
       const r = await remote.meanfield.solveColdRun({ points: t.map((x) => x.p), seeds: t.map((x) => x.seed) });
       solves += t.length;
