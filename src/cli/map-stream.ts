@@ -24,7 +24,7 @@ import { interruptible, type CliIo } from './io.ts';
 import { mapLayout, type MapFormat } from './map-layout.ts';
 import { Progress } from './progress.ts';
 import { readyOrAborted, ReorderBuffer } from './reorder-buffer.ts';
-import { readBack } from './resume.ts';
+import { readBack, startsCheck } from './resume.ts';
 import { mapSummary, runAdaptiveRows, type MapMode } from './map-adaptive.ts';
 import { boundariesCsv, solvesText, summaryJson } from './map-summary.ts';
 import type { MapScanResult, ScanOptions } from '../../workers/protocol.ts';
@@ -70,6 +70,7 @@ export async function streamMap(io: CliIo, a: ParsedArgs, job: MapJob, target: O
   const existing = target.existing();
   if (existing) {
     const back = readBack(existing, layout, job.header, segs, target.name);
+    startsCheck(back, job.plan, layout, target.name);
     target.keep(back.keepBytes);
     if (back.keepBytes === 0) target.write(layout.head);
     ({ rows, failed, cursor } = back);

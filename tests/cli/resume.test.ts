@@ -126,6 +126,16 @@ describe('a map stopped midway and resumed is the uninterrupted run, byte for by
     expect(r.err).toMatch(/other\.csv line 3 does not continue this scan \(axis values/);
     expect(lines('other.csv')).toBe(40);
   }, 60_000);
+
+  it('a part of a scan with the same axes but another interaction is refused where its points differ, and left as it was', async () => {
+    // the unsharded CSV's head is its columns only: points that open a segment, solved
+    // again, tell the scans apart (the first ones, at mu < 0, are empty in both: the same lines)
+    writeFileSync(file('other-shape.csv'), whole.split('\n').slice(0, 40).join('\n') + '\n');
+    const r = await atlas([...MAP, '--interaction', 'dipolar', '--out', 'other-shape.csv', '--resume']);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/other-shape\.csv line \d+ does not continue this scan \(its point there differs/);
+    expect(lines('other-shape.csv')).toBe(40);
+  }, 60_000);
 });
 
 describe('a shard stopped by SIGKILL and resumed, in CSV and JSON', () => {
