@@ -9,7 +9,7 @@
  * stderr and the JSON summary (map-summary.ts).
  */
 import { certificationBlocker } from '../core/scan/affine-axes.ts';
-import { uniformNote, uniformRefinable } from '../core/scan/refinement.ts';
+import { uniformNote } from '../core/scan/refinement.ts';
 import type { ScanPlan, ScanPoint } from '../core/scan/grid.ts';
 import type { Shard } from '../core/scan/shards.ts';
 import type { Engine } from '../../workers/engine.ts';
@@ -30,14 +30,14 @@ export interface MapMode {
   notes: string[];
 }
 
-/** The mode of a map: adaptive unless --dense or at fixed density (a shard too). */
+/** The mode of a map: adaptive unless --dense (a shard too). */
 export function mapMode(plan: ScanPlan, shard: Shard | undefined, dense: boolean): MapMode {
   if (dense) return { adaptive: false, notes: [DENSE_NOTE] };
   const blocker = certificationBlocker(plan);
   const part = shard ? [SHARD_NOTE] : [];
   if (!blocker) return { adaptive: true, notes: part };
-  // a plan that cannot be certified is refined without certification, unless at fixed density
-  return uniformRefinable(plan) ? { adaptive: true, notes: [uniformNote(blocker), ...part] } : { adaptive: false, notes: [blocker] };
+  // a plan that cannot be certified is refined without certification
+  return { adaptive: true, notes: [uniformNote(blocker), ...part] };
 }
 
 /**

@@ -104,6 +104,30 @@ describe('adaptive map = dense map, pixel for pixel', () => {
     expect(adaptive.notes?.[0]).toMatch(/not certified \(at T > 0/);
   }, 300_000);
 
+  it('a fixed-density map is refined without certification: fewer full solves, every phase, density and energy of the dense map', async () => {
+    // not the dense lines in every digit (mu on a plateau, sublattice order and rounding may
+    // differ: the density solver's trial mus follow the guess), so the physics is compared:
+    // phase and pattern, rho to 1e-9, and the energy Omega + mu rho to 1e-9 (common practice)
+    const dens: ScanPlan = { ...vdw, base: { ...vdw.base, rho: 0.3 }, x: parseAxis('density=0.05..0.9 x24', 'x'), y: parseAxis('rb=1..2 x12', 'y') };
+    const dense = await runScan(pool, { kind: 'map', plan: dens, dense: true });
+    const adaptive = await runScan(pool, { kind: 'map', plan: dens });
+    expect(adaptive.notes?.[0]).toMatch(/not certified \(the density axis/);
+    expect(adaptive.cellSolves as number).toBeGreaterThan(0);
+    expect(adaptive.solves as number).toBeLessThan(24 * 12);
+    let coexisting = 0;
+    for (let i = 0; i < dense.points.length; i++) {
+      const d = dense.points[i].state, a = adaptive.points[i].state;
+      expect(a && d).toBeTruthy();
+      if (!a || !d) continue;
+      expect(`${a.phase} ${a.fraction}`).toBe(`${d.phase} ${d.fraction}`);
+      expect(Math.abs(a.excitationDensity - d.excitationDensity)).toBeLessThan(1e-9);
+      expect(Math.abs(a.grandPotential + a.mu * a.excitationDensity - d.grandPotential - d.mu * d.excitationDensity)).toBeLessThan(1e-9);
+      expect(!!a.coexistence).toBe(!!d.coexistence);
+      if (d.coexistence) coexisting++;
+    }
+    expect(coexisting).toBeGreaterThan(0);
+  }, 300_000);
+
   it('shards: each adaptive (fewer solves than its pixels), merged they equal the dense map pixel for pixel', async () => {
     const dense = await runScan(pool, { kind: 'map', plan: vdw, dense: true });
     const parts = [];

@@ -18,7 +18,7 @@ import { gridPoint, gridShape, pointSeed, rowCuts, spreadRows, type ScanPlan, ty
 import { applyAxis, type Axis } from '../../src/core/scan/axes.ts';
 import { affineCoordinate, axisValue, certificationBlocker } from '../../src/core/scan/affine-axes.ts';
 import { crystalOf, type Crystal } from '../../src/core/scan/crystal.ts';
-import { bandRects, coarseColumns, coarseRows, corners, refineLevel, refineUniformLevel, subdivide, uniformNote, uniformRefinable, UNIFORM_STEP, type RegionCell } from '../../src/core/scan/refinement.ts';
+import { bandRects, coarseColumns, coarseRows, corners, refineLevel, refineUniformLevel, subdivide, uniformNote, UNIFORM_STEP, type RegionCell } from '../../src/core/scan/refinement.ts';
 import {
   affineCrossing, chainBoundaries, crossing, crystalOmega, phaseName, type Crossing,
 } from '../../src/core/scan/boundaries.ts';
@@ -76,7 +76,6 @@ export async function runMap(pool: WorkerPool<Engine>, req: MapScanRequest, o: S
   const blocker = certificationBlocker(req.plan);
   const all = rows ?? Array.from({ length: ny }, (_, i) => i);
   if (blocker) {
-    if (!uniformRefinable(req.plan)) return dense(blocker);
     const r = await runAdaptive(pool, req, o, all, 'uniform');
     return { ...r, notes: [uniformNote(blocker), ...(r.notes ?? [])] };
   }

@@ -28,6 +28,11 @@ export interface SearchOptions {
   guess?: MeanFieldState;
   /** Random starts per cell with M > 1 (default 1). */
   randomStarts?: number;
+  /**
+   * Fixed density only: every trial mu searches the cells of these sizes alone (an
+   * adaptive map's region of one phase, or of one coexisting pair; refinement.ts).
+   */
+  cellSizes?: number[];
   /** Phase-label tolerances. */
   tolerances?: Partial<PhaseTolerances>;
   /**

@@ -33,7 +33,8 @@ export const JUMP_MIN = 1e-9;
 /** Solve p at fixed density p.rho for mu (see the module note); coexistence inside a jump. */
 export function solveFixedDensity(p: ModelParams, o: SearchOptions = {}): SolveResult {
   const target = p.rho as number;
-  const ctx = context(p);
+  const all = context(p), sizes = o.cellSizes;
+  const ctx = sizes ? { ...all, cells: all.cells.filter((c) => sizes.includes(c.M)) } : all;
   // Each trial is a full search; the nearer bracket state is passed on as an extra start.
   const at = (mu: number, guess?: MeanFieldState): MeanFieldState =>
     toState(ctx, searchCells(ctx, mu, { ...o, guess: guess ?? o.guess }), mu, o.tolerances);

@@ -136,10 +136,21 @@ function certifiedState(ctx: Context, px: AdaptivePixel, guess: SolveResult | un
  * A pixel inside a uniform rectangle (no certification): the best candidate of the region's
  * cell, built as the dense search builds that cell's list (same seed, same guess). Equal to
  * the dense answer wherever the dense winner lies in that cell; null when no start there
- * converges (solve it in full).
+ * converges (solve it in full). At fixed density the density solver runs over the cells
+ * of the region's sizes (SearchOptions.cellSizes): an assumption like the region's, not an
+ * equality.
  */
 function inCellState(ctx: Context, px: AdaptivePixel, guess: SolveResult | undefined): SolveResult | null {
   const r = px.inCell as RegionCell;
+  // at fixed density every trial mu of the density solver searches the region's cell
+  // sizes only; where that fails (the density out of their reach) the pixel is solved in full
+  if (px.params.rho !== undefined) {
+    try {
+      return solveGroundState(px.params, { seed: px.seed, guess, cellSizes: r.sizes ?? [r.M] });
+    } catch {
+      return null;
+    }
+  }
   const cell = findCell(ctx, r.cell, r.M);
   if (!cell) return null;
   const mu = px.params.mu as number;
@@ -152,7 +163,10 @@ function inCellState(ctx: Context, px: AdaptivePixel, guess: SolveResult | undef
 function knownState(ctx: Context, known: ColdPoint, guess: SolveResult | undefined, mu: number): SolveResult | null {
   const cold = known.state, sc = known.searchCell;
   if (!guess) return cold;
-  if (!sc) return null;
+  // At fixed density (no search cell) the cold state stands: a guess only steers the
+  // density solver's trial mus (same phase and energy; on a plateau, another mu of it).
+  // Not the dense scan's line in every digit: fixed-density maps are not certified.
+  if (!sc) return cold;
   const g = guessCandidate(ctx, guess, mu);
   if (!g) return cold;
   const W = cold.grandPotential, scale = Math.max(1, Math.abs(W));

@@ -13,6 +13,7 @@
  * done after at most log2(max side) + 1 levels.
  */
 import type { SolveResult } from '../meanfield/ground-state.ts';
+import type { MeanFieldState } from '../meanfield/state.ts';
 import { crystalOf, type Crystal } from './crystal.ts';
 import { rowCuts, type ScanPlan } from './grid.ts';
 
@@ -94,16 +95,22 @@ function split(r: Rect): Rect[] {
   return out;
 }
 
-/** The cell a phase region is solved in: the primitive cell (Hermite normal form) and its size. */
-export interface RegionCell { cell: { a: number; b: number; c: number }; M: number }
+/**
+ * The cell a phase region is solved in: the primitive cell (Hermite normal form) and its
+ * size; at fixed density the sizes searched (both phases' of a coexisting pair).
+ */
+export interface RegionCell { cell: { a: number; b: number; c: number }; M: number; sizes?: number[] }
+
+const stateKey = (s: MeanFieldState) => `${s.phase} ${s.fraction ?? ''} ${s.cell.a},${s.cell.b},${s.cell.c}:${s.sublatticeDensities.length}`;
 
 /**
- * Identity of a state for refinement without certification (T > 0, a temperature axis):
- * its phase label, pattern and primitive cell. Null for an unsolved point.
+ * Identity of a state for refinement without certification (T > 0, a temperature axis,
+ * fixed density): its phase label, pattern and primitive cell; for a coexistence at fixed
+ * density, those of both phases. Null for an unsolved point.
  */
 export function regionKey(s: SolveResult | undefined): string | null {
   if (!s) return null;
-  return `${s.phase} ${s.fraction ?? ''} ${s.cell.a},${s.cell.b},${s.cell.c}:${s.sublatticeDensities.length}`;
+  return s.coexistence ? `${stateKey(s.coexistence.phases[0])} | ${stateKey(s.coexistence.phases[1])}` : stateKey(s);
 }
 
 /** The outcome of one uncertified level: rectangles whose corners share a region key, and those to refine. */
@@ -121,22 +128,17 @@ export interface UniformLevel {
 export function refineUniformLevel(rects: readonly Rect[], state: (ix: number, iy: number) => SolveResult | undefined): UniformLevel {
   const lvl = levelBy(rects, (x, y) => {
     const s = state(x, y), key = regionKey(s);
-    return key === null ? null : { key, region: { cell: { ...(s as SolveResult).cell }, M: (s as SolveResult).sublatticeDensities.length } };
+    if (key === null) return null;
+    const st = s as SolveResult, M = st.sublatticeDensities.length;
+    const sizes = st.coexistence ? [...new Set(st.coexistence.phases.map((q) => q.sublatticeDensities.length))] : undefined;
+    return { key, region: { cell: { ...st.cell }, M, ...(sizes ? { sizes } : {}) } };
   });
   return { uniform: lvl.settled.map(({ rect, value }) => ({ rect, region: value.region })), children: lvl.children };
 }
 
-/**
- * Whether a plan that cannot be certified is refined without certification: yes unless the
- * density is fixed (its own solver, a Maxwell construction over mu, is run at every pixel).
- */
-export function uniformRefinable(plan: ScanPlan): boolean {
-  return plan.base.rho === undefined && plan.x.name !== 'density' && plan.y?.name !== 'density';
-}
-
 /** The note of a map refined without certification (why: certificationBlocker's sentence). */
 export function uniformNote(why: string): string {
-  return `not certified (${why.replace(/:.*$/, '')}): the map is refined where corner phases differ, and inside a rectangle whose corners share phase and cell each pixel is solved in that cell only; a pocket of another phase that touches no corner of the coarse grid would be missed (--dense searches every cell at every pixel)`;
+  return `not certified (${why.replace(/:.*$/, '')}): the map is refined where corner phases differ, and inside a rectangle whose corners share phase and cell each pixel is solved in that cell only (at fixed density: with the cells of that size, or of the two sizes of a coexisting pair, at every trial mu); a pocket of another phase that touches no corner of the coarse grid would be missed (--dense searches every cell at every pixel)`;
 }
 
 /**
