@@ -7,7 +7,8 @@
  *     over all 2^M patterns with J_st(0) for M <= 12 (classical.ts), and in 1D also the
  *     generalised Wigner lattice of every p/M with gcd(p, M) = 1 (the only source for
  *     M > 12);
- *   - seeded random states m_s uniform in [0, 1] (seedrandom, stream `seed|cell|k`), so
+ *   - seeded random states m_s uniform in [0, 1] (the seedrandom generator of stream
+ *     `seed|cell|k`, drawn by arc4-uniforms.ts), so
  *     results are fixed by the seed.
  * Duplicate patterns (equal up to a translation) are dropped. The continuation guess is
  * added by the caller, as one start among these. The integer starts depend on the point
@@ -15,7 +16,7 @@
  * at fixed interaction they are built once (plain memoisation: the same starts either way).
  */
 import { gcd } from './phase.ts';
-import seedrandom from 'seedrandom';
+import { arc4Uniforms } from '../numerics/arc4-uniforms.ts';
 import type { Supercell } from '../lattice/supercells.ts';
 import { BRUTE_FORCE_LIMIT, classicalMinima, wignerLattice } from './classical.ts';
 import { isPrimitive, sameUpToTranslation } from './pattern.ts';
@@ -77,10 +78,8 @@ export function cellStarts(cell: Supercell, J: Float64Array, o: StartOptions): S
   const out: Start[] = integerStarts(cell, J, o.dim).slice();
   const nr = o.randomStarts ?? 1;
   for (let k = 0; k < nr; k++) {
-    const rng = seedrandom(`${o.seed}|${cell.a},${cell.b},${cell.c}|${k}`);
-    const m = new Float64Array(M);
-    for (let s = 0; s < M; s++) m[s] = rng();
-    out.push({ kind: 'random', m });
+    // the first M draws of seedrandom(`seed|cell|k`), without building that generator
+    out.push({ kind: 'random', m: arc4Uniforms(`${o.seed}|${cell.a},${cell.b},${cell.c}|${k}`, new Float64Array(M)) });
   }
   return out;
 }
