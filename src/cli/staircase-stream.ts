@@ -65,7 +65,8 @@ export async function streamStaircase(io: CliIo, a: ParsedArgs, plan: ScanPlan, 
   const progress = new Progress(io, 'staircase', total);
   const notes = new Set<string>();
   const failures: string[] = [];
-  const head = jsonDocHead({ params: paramsJson(plan.base) }, 'points');
+  // the seed too: it fixes the random starts, so a part of another seed is another scan
+  const head = jsonDocHead({ params: paramsJson(plan.base), seed: plan.seed }, 'points');
   // every point of the line by index: read back, then computed
   const points: ScanPoint[] = new Array(total);
   let resumed = 0;

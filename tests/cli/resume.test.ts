@@ -264,6 +264,15 @@ describe('staircase, softlines and qmc-scan stopped midway and resumed; an exist
     expect(readFileSync(file('sk.json'), 'utf8') === stair).toBe(true);
   }, 120_000);
 
+  it('staircase: a part of another seed is refused, naming its head, and left as it was', async () => {
+    const part = stair.split('\n').slice(0, 30).join('\n') + '\n';
+    writeFileSync(file('seeded.json'), part);
+    const r = await atlas([...STAIR, '--seed', '2', '--out', 'seeded.json', '--resume']);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/seeded\.json line 1 does not continue this scan/);
+    expect(readFileSync(file('seeded.json'), 'utf8')).toBe(part);
+  }, 60_000);
+
   it('staircase: SIGTERM writes the finished points (exit 143); --resume completes them byte for byte', async () => {
     const r = await atlas([...STAIR, '--out', 'st.json'], { signal: 'SIGTERM', watch: file('st.json.partial'), bytes: 20_000 });
     expect(r.code).toBe(143);
