@@ -159,6 +159,14 @@ describe('check this boundary', () => {
     }
     // the Binder figure: one point with an error bar per run (2 sizes x 6 points from T = 0.4 to 1.2)
     expect(await page.locator('boundary-check-panel figure-panel.binder svg .error-bars circle').count()).toBe(12);
+    // exported at one column (3.4 in = 326.4 px) it is laid out again at that width, every run still drawn
+    const printed = await page.locator('boundary-check-panel figure-panel.binder').evaluate((el) => {
+      const f = (el as unknown as { figure: { layout?: (w: number, h: number) => { frame: { width: number }; svg: string } } }).figure;
+      const again = f.layout?.(326.4, 250);
+      return again ? { width: again.frame.width, bars: (again.svg.match(/<circle/g) ?? []).length } : null;
+    });
+    expect(printed?.width).toBe(326.4);
+    expect(printed?.bars).toBeGreaterThanOrEqual(12);
     // mean field: the order vanishes continuously at T_c = z V1/4 = 1, so the map's T = 0.8 is ordered
     // and T = 1.0 already normal: the boundary read off the grid is 0.9 +- 0.1
     const verdict = (await page.locator('boundary-check-panel .verdict').textContent()) ?? '';

@@ -25,6 +25,7 @@ import { AXIS_LABELS, AXIS_SYMBOLS } from '../model/axis-labels.ts';
 import { sharedStyles } from '../app/shared-styles.ts';
 import type { Table } from '../export/table.ts';
 import '../app/figure-panel.ts';
+import type { RenderedFigure } from '../app/figure-panel.ts';
 import '../app/data-export.ts';
 
 type AtlasSection = AppState['atlas'];
@@ -190,13 +191,19 @@ export class BoundaryCheckPanel extends LitElement {
         ${!running && this.check.cancelled && this.req ? html`<span class="muted">cancelled</span> <button class="rerun-check" @click=${() => this.check.rerun()}>Run the check again</button>` : nothing}
       </div>
       ${r && l ? this.verdict(r, l, sym, mf) : nothing}
-      ${l && (r || this.check.points.length) ? html`<figure-panel class="binder" .figure=${binderFigure({
-        points: r ? r.points : this.check.points, crossings: r ? r.crossings : [], meanField: mf.map((b) => b.at),
-        xLabel: AXIS_LABELS[l.name], width: Math.max(340, Math.min(this.width, 760)),
-      })}></figure-panel>` : nothing}
+      ${l && (r || this.check.points.length) ? html`<figure-panel class="binder" .figure=${this.binder(r, l, mf)}></figure-panel>` : nothing}
       ${r && l && this.req ? html`<data-export class="check-export" .table=${() => checkTable(r)} .json=${() => r} .rows=${r.points.length}
         name="boundary-check" .command=${checkCommand(this.inputs, l, this.req)}></data-export>` : nothing}
     </fieldset>`;
+  }
+
+  /** The Binder figure of the check (laid out again at a print width on export; its height is its own). */
+  private binder(r: BoundaryCheckResult | undefined, l: CheckLine, mf: { at: number }[]): RenderedFigure {
+    const make = (width: number) => binderFigure({
+      points: r ? r.points : this.check.points, crossings: r ? r.crossings : [], meanField: mf.map((b) => b.at),
+      xLabel: AXIS_LABELS[l.name], width,
+    });
+    return { ...make(Math.max(340, Math.min(this.width, 760))), layout: (W: number) => make(Math.max(300, W)) };
   }
 
   private verdict(r: BoundaryCheckResult, l: CheckLine, sym: string, mf: { at: number; halfWidth: number; from: string; to: string }[]) {
