@@ -18,7 +18,7 @@ import { gridPoint, gridShape, pointSeed, rowCuts, spreadRows, type ScanPlan, ty
 import { applyAxis, type Axis } from '../../src/core/scan/axes.ts';
 import { affineCoordinate, axisValue, certificationBlocker } from '../../src/core/scan/affine-axes.ts';
 import { crystalOf, type Crystal } from '../../src/core/scan/crystal.ts';
-import { bandRects, coarseColumns, coarseRows, corners, refineLevel, refineUniformLevel, subdivide, uniformNote, UNIFORM_STEP, type RegionCell } from '../../src/core/scan/refinement.ts';
+import { bandRects, coarseColumns, coarseRows, corners, refineLevelBy, refineUniformLevel, segmentCrystal, subdivide, uniformNote, UNIFORM_STEP, type RegionCell } from '../../src/core/scan/refinement.ts';
 import {
   affineCrossing, chainBoundaries, crossing, crystalOmega, phaseName, type Crossing,
 } from '../../src/core/scan/boundaries.ts';
@@ -114,6 +114,8 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
     bands = rank.map((r) => bands[r]);
   }
   const known = new Map<number, ColdOutcome>();
+  // the crystal of each cold outcome, computed once
+  const knownCrystal = new WeakMap<ColdOutcome, Crystal | null>();
   const points: ScanPoint[] = [];
   const crossings: Crossing[] = [];
   const edgeRows = new Map<number, Array<SolveResult | undefined>>();
@@ -160,10 +162,28 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
     const certified = new Map<number, Crystal>();
     const uniform = new Map<number, RegionCell>();
     let rects = mode === 'uniform' ? subdivide(bandRects(cols, band.y0, band.y1), UNIFORM_STEP) : bandRects(cols, band.y0, band.y1);
+    // a pixel's crystal: certified, or that of its cold state (null: not a crystal; undefined: not known)
+    const classAt = (x: number, y: number): Crystal | null | undefined => {
+      const i = y * nx + x;
+      const c = certified.get(i);
+      if (c) return c;
+      const k = known.get(i);
+      if (!k) return undefined;
+      let v = knownCrystal.get(k);
+      if (v === undefined) knownCrystal.set(k, v = crystalOf(k.cold?.state));
+      return v;
+    };
     for (let level = 0; rects.length && level < 64; level++) {
       rects = rects.filter(needed);
       const need = new Map<number, [number, number]>();
-      for (const r of rects) for (const [x, y] of corners(r)) if (!known.has(y * nx + x)) need.set(y * nx + x, [x, y]);
+      for (const r of rects) for (const [x, y] of corners(r)) if (!known.has(y * nx + x) && !certified.has(y * nx + x)) need.set(y * nx + x, [x, y]);
+      if (mode === 'certify') {
+        // a corner between two pixels of one crystal on its row or column is that crystal: not solved
+        for (const [i, [x, y]] of need) {
+          const c = segmentCrystal(x, y, classAt, nx, band.y0, band.y1);
+          if (c) { certified.set(i, c); need.delete(i); }
+        }
+      }
       const list = [...need.values()];
       const got = await solveCold(list.map(([x, y]) => ({ p: gridPoint(plan, x, y), seed: pointSeed(plan.seed, y * nx + x), what: at(x, y) })));
       list.forEach(([x, y], i) => known.set(y * nx + x, got[i]));
@@ -176,8 +196,8 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
         rects = lvl.children;
         continue;
       }
-      if (ties) rects = await ties.certify(rects, (x, y) => crystalOf(stateAt(x, y)), certified);
-      const lvl = refineLevel(rects, stateAt);
+      if (ties) rects = await ties.certify(rects, (x, y) => classAt(x, y) ?? null, certified);
+      const lvl = refineLevelBy(rects, (x, y) => classAt(x, y) ?? null);
       for (const { rect, crystal } of lvl.certified) {
         for (let y = rect.y0; y <= rect.y1; y++) for (let x = rect.x0; x <= rect.x1; x++) certified.set(y * nx + x, crystal);
       }

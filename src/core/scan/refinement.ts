@@ -64,8 +64,39 @@ export interface RefineLevel {
  * solved before) and split those neither certified nor leaves.
  */
 export function refineLevel(rects: readonly Rect[], state: (ix: number, iy: number) => SolveResult | undefined): RefineLevel {
-  const lvl = levelBy(rects, (x, y) => crystalOf(state(x, y)));
+  return refineLevelBy(rects, (x, y) => crystalOf(state(x, y)));
+}
+
+/** refineLevel by the corners' crystals (null: not a crystal, or not known). */
+export function refineLevelBy(rects: readonly Rect[], crystalAt: (ix: number, iy: number) => Crystal | null): RefineLevel {
+  const lvl = levelBy(rects, crystalAt);
   return { certified: lvl.settled.map(({ rect, value }) => ({ rect, crystal: value })), children: lvl.children };
+}
+
+/**
+ * The crystal of pixel (x, y) by the segment argument (docs/certified-maps.md, the
+ * rectangle argument on a line): when the nearest classified pixels to its left and right
+ * on its row, or below and above it in its column (rows y0..y1), carry one crystal P, P
+ * is the minimum at (x, y) too: along a grid line one affine coordinate varies, Omega is
+ * concave in it and equals the affine Omega_P at both ends. classAt: the pixel's crystal,
+ * null when it is known not to be one, undefined when it is not known. Null when neither
+ * line settles it.
+ */
+export function segmentCrystal(
+  x: number, y: number, classAt: (ix: number, iy: number) => Crystal | null | undefined, nx: number, y0: number, y1: number,
+): Crystal | null {
+  const nearest = (dx: number, dy: number): Crystal | null | undefined => {
+    for (let xx = x + dx, yy = y + dy; xx >= 0 && xx < nx && yy >= y0 && yy <= y1; xx += dx, yy += dy) {
+      const c = classAt(xx, yy);
+      if (c !== undefined) return c;
+    }
+    return undefined;
+  };
+  const l = nearest(-1, 0), r = nearest(1, 0);
+  if (l && r && l.key === r.key) return l;
+  const d = nearest(0, -1), u = nearest(0, 1);
+  if (d && u && d.key === u.key) return d;
+  return null;
 }
 
 /**

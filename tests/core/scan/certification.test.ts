@@ -7,7 +7,7 @@ import { solveGroundState } from '../../../src/core/meanfield/ground-state.ts';
 import { crystalKey, crystalOf } from '../../../src/core/scan/crystal.ts';
 import { affineCrossing, chainBoundaries, crossing, crystalOmega } from '../../../src/core/scan/boundaries.ts';
 import { affineCoordinate, certificationBlocker } from '../../../src/core/scan/affine-axes.ts';
-import { coarseColumns, coarseRows, refineLevel } from '../../../src/core/scan/refinement.ts';
+import { coarseColumns, coarseRows, refineLevel, segmentCrystal } from '../../../src/core/scan/refinement.ts';
 import { parseAxis } from '../../../src/core/scan/axes.ts';
 import type { ModelParams } from '../../../src/core/model.ts';
 
@@ -77,6 +77,30 @@ describe('refinement and boundaries', () => {
     const lvl = refineLevel([{ x0: 0, x1: 4, y0: 0, y1: 4 }, { x0: 4, x1: 8, y0: 0, y1: 4 }], (x) => (x <= 4 ? a : b));
     expect(lvl.certified.map((c) => c.rect)).toEqual([{ x0: 0, x1: 4, y0: 0, y1: 4 }]);
     expect(lvl.children).toHaveLength(4);
+  });
+
+  it('the segment argument: a point between two pixels of one crystal on a line is that crystal, and solving agrees', () => {
+    // on the row Rb = 1.3 the 1/2 wave holds at mu = 1.2 and 1.8 (solved): every mu between is
+    // the 1/2 wave (solved again here at three points); empty at -0.8 beside it settles nothing
+    const half = crystalOf(solveGroundState(chain(1.2, 1.3))), again = crystalOf(solveGroundState(chain(1.8, 1.3)));
+    const empty = crystalOf(solveGroundState(chain(-0.8, 1.3)));
+    expect(half && again && empty).toBeTruthy();
+    expect(again?.key).toBe(half?.key);
+    const mu = (x: number) => 1.2 + 0.1 * (x - 2); // pixels 2..8 span mu 1.2..1.8
+    const row = (x: number, y: number) => (y !== 0 ? undefined : x === 2 ? half : x === 8 ? again : x === 0 ? empty : undefined);
+    for (const x of [3, 5, 7]) {
+      expect(segmentCrystal(x, 0, row, 10, 0, 0)?.key).toBe(half?.key);
+      expect(crystalOf(solveGroundState(chain(mu(x), 1.3)))?.key).toBe(half?.key);
+    }
+    // between empty (x = 0) and the wave (x = 2): different crystals, nothing settled
+    expect(segmentCrystal(1, 0, row, 10, 0, 0)).toBeNull();
+    // past the last classified pixel on the row: no right end
+    expect(segmentCrystal(9, 0, row, 10, 0, 0)).toBeNull();
+    // a column: the same crystal below and above (rows 0..4)
+    const col = (x: number, y: number) => (x !== 3 ? undefined : y === 0 || y === 4 ? half : undefined);
+    expect(segmentCrystal(3, 2, col, 10, 0, 4)?.key).toBe(half?.key);
+    // a known non-crystal end (null) settles nothing
+    expect(segmentCrystal(3, 2, (x, y) => (x !== 3 ? undefined : y === 0 ? half : y === 4 ? null : undefined), 10, 0, 4)).toBeNull();
   });
 
   it('the affine crossing is the closed-form zero of a linear function', () => {
