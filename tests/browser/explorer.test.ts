@@ -5,94 +5,80 @@
  * must show; none rests on a stored result. Screenshots of every view go to
  * test-output/screenshots (printed at the start).
  */
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import type { Page } from 'playwright-core';
+import { describe, it, expect, beforeAll } from 'vitest';
 import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { buildApp } from './harness/build-app.ts';
-import { serveStatic, type StaticServer } from './harness/static-server.ts';
-import { launchChromium, type Browser } from './harness/launch-chromium.ts';
 import { expectRel } from '../references.ts';
+import { useApp } from './harness/app-session.ts';
 import { SCREENSHOTS, download, pointAt, runCliLine, scanNumber, screenshot, waitForScan } from './harness/page-tools.ts';
 
-let server: StaticServer;
-let browser: Browser;
-let page: Page;
+const app = useApp('dist-explorer');
 
 /** Demo axes (src/ui/state/app-state.ts): mu = -1:2.9:64, rb = 0.8:2.4:40. */
 const DEMO = { nx: 64, ny: 40 };
 
-beforeAll(async () => {
-  const dist = await buildApp();
-  server = await serveStatic(dist);
-  browser = await launchChromium({ width: 1280, height: 800 });
-  page = browser.page;
+beforeAll(() => {
   console.log(`browser tests: screenshots in ${SCREENSHOTS}`);
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
 });
 
 /** Open the page fresh (no saved session) with an optional query. */
 async function open(query = '') {
-  await page.goto(server.url);
-  await page.evaluate(() => localStorage.clear());
-  await page.goto(server.url + query);
+  await app.page.goto(app.url);
+  await app.page.evaluate(() => localStorage.clear());
+  await app.page.goto(app.url + query);
 }
 
 describe('phase atlas', () => {
   it('renders the demo map with at least three distinct phases', async () => {
     await open();
-    await waitForScan(page, 'done', 90_000);
-    expect(await scanNumber(page, 'points')).toBe(DEMO.nx * DEMO.ny);
-    const legend = await page.locator('figure-panel.map svg .legend text').allTextContents();
+    await waitForScan(app.page, 'done', 90_000);
+    expect(await scanNumber(app.page, 'points')).toBe(DEMO.nx * DEMO.ny);
+    const legend = await app.page.locator('figure-panel.map svg .legend text').allTextContents();
     const phases = legend.filter((t) => t !== 'Phase');
     expect(phases.length).toBeGreaterThanOrEqual(3);
     // the heatmap itself paints at least three different fills
-    const fills = await page.locator('figure-panel.map svg .heatmap rect').evaluateAll((rs) => [...new Set(rs.map((r) => r.getAttribute('fill')))]);
+    const fills = await app.page.locator('figure-panel.map svg .heatmap rect').evaluateAll((rs) => [...new Set(rs.map((r) => r.getAttribute('fill')))]);
     expect(fills.filter((f) => f && !f.startsWith('url')).length).toBeGreaterThanOrEqual(3);
     // fractions written on the density-wave regions
-    const labels = await page.locator('figure-panel.map svg .fraction-labels text').allTextContents();
+    const labels = await app.page.locator('figure-panel.map svg .fraction-labels text').allTextContents();
     expect(labels).toContain('1/2');
-    await screenshot(page, 'atlas');
+    await screenshot(app.page, 'atlas');
   });
 
   it('the readout follows the cursor', async () => {
-    const readout = page.locator('phase-atlas-view .readout');
-    await pointAt(page, 'figure-panel.map', -0.8, 1.0); // far below the condensate onset: empty
+    const readout = app.page.locator('phase-atlas-view .readout');
+    await pointAt(app.page, 'figure-panel.map', -0.8, 1.0); // far below the condensate onset: empty
     await expect.poll(() => readout.textContent()).toContain('empty');
     const first = await readout.textContent();
     // mu = -0.8 is grid point 3 of -1:2.9:64 (step 3.9/63 = 0.0619): value -0.8143
     expect(first).toContain('\u03bc = -0.8143');
-    await pointAt(page, 'figure-panel.map', 1.6, 1.4);
+    await pointAt(app.page, 'figure-panel.map', 1.6, 1.4);
     await expect.poll(() => readout.textContent()).not.toBe(first);
     expect(await readout.textContent()).toMatch(/density wave|supersolid/);
   });
 
   it('the map is keyboard operable: arrows move the readout, Enter opens the point', async () => {
-    const readout = page.locator('phase-atlas-view .readout');
-    await page.locator('figure-panel.map .host').focus();
-    await page.keyboard.press('ArrowRight');
+    const readout = app.page.locator('phase-atlas-view .readout');
+    await app.page.locator('figure-panel.map .host').focus();
+    await app.page.keyboard.press('ArrowRight');
     const a = await readout.textContent();
-    await page.keyboard.press('Shift+ArrowRight');
+    await app.page.keyboard.press('Shift+ArrowRight');
     await expect.poll(() => readout.textContent()).not.toBe(a);
     expect(await readout.textContent()).toMatch(/\u03bc = .*, Rb = /);
-    await page.keyboard.press('Enter');
-    await page.locator('point-detail .phase-name').waitFor({ timeout: 20_000 });
-    await page.locator('point-detail button', { hasText: 'Close' }).click();
-    expect(await page.locator('point-detail').count()).toBe(0);
+    await app.page.keyboard.press('Enter');
+    await app.page.locator('point-detail .phase-name').waitFor({ timeout: 20_000 });
+    await app.page.locator('point-detail button', { hasText: 'Close' }).click();
+    expect(await app.page.locator('point-detail').count()).toBe(0);
   });
 
   it('the map saves as SVG and as PNG', async () => {
-    const svg = await download(page, () => page.locator('figure-panel.map button', { hasText: 'SVG' }).click());
+    const svg = await download(app.page, () => app.page.locator('figure-panel.map button', { hasText: 'SVG' }).click());
     expect(svg.name).toMatch(/^atlas-phase-map_chain_vdw_[A-Za-z0-9._-]*\.svg$/); // view, figure and key inputs (tests/ui/export/file-name.test.ts)
     expect(svg.text).toContain('<svg xmlns="http://www.w3.org/2000/svg"');
     expect(svg.text).toContain('chemical potential \u03bc (g)');
     expect(svg.text).toContain('class="legend"');
-    const [d] = await Promise.all([page.waitForEvent('download'), page.locator('figure-panel.map button', { hasText: 'PNG' }).click()]);
+    const [d] = await Promise.all([app.page.waitForEvent('download'), app.page.locator('figure-panel.map button', { hasText: 'PNG' }).click()]);
     expect(d.suggestedFilename()).toMatch(/^atlas-phase-map_chain_vdw_[A-Za-z0-9._-]*\.png$/);
     const bytes = await readFile(await d.path());
     // the PNG signature (ISO/IEC 15948, 5.2): 89 50 4E 47 0D 0A 1A 0A
@@ -101,10 +87,10 @@ describe('phase atlas', () => {
   });
 
   it('a click opens the point with its sublattice pattern', async () => {
-    await pointAt(page, 'figure-panel.map', 1.5, 1.9);
-    await page.mouse.down();
-    await page.mouse.up();
-    const detail = page.locator('point-detail');
+    await pointAt(app.page, 'figure-panel.map', 1.5, 1.9);
+    await app.page.mouse.down();
+    await app.page.mouse.up();
+    const detail = app.page.locator('point-detail');
     await detail.locator('.phase-name').waitFor({ timeout: 20_000 });
     const name = await detail.locator('.phase-name').textContent();
     // at T = 0 without a condensate the density is locked: a filling, named as one
@@ -114,21 +100,21 @@ describe('phase atlas', () => {
     expect(fills.length).toBeGreaterThanOrEqual(9);
     expect(new Set(fills).size).toBeGreaterThanOrEqual(2);
     for (let i = 3; i < fills.length; i++) expect(fills[i]).toBe(fills[i - 3]);
-    await screenshot(page, 'atlas-point');
+    await screenshot(app.page, 'atlas-point');
   });
 
   it('changing the detuning cancels the running scan and redraws', async () => {
-    const started = await scanNumber(page, 'started');
-    const cancelled = await scanNumber(page, 'cancelled');
-    const detuning = page.locator('model-form input[name="detuning"]');
+    const started = await scanNumber(app.page, 'started');
+    const cancelled = await scanNumber(app.page, 'cancelled');
+    const detuning = app.page.locator('model-form input[name="detuning"]');
     await detuning.fill('3.3');
-    await waitForScan(page, 'running');
+    await waitForScan(app.page, 'running');
     await detuning.fill('3.6');
-    await waitForScan(page, 'done', 90_000);
-    expect(await scanNumber(page, 'started')).toBe(started + 2);
-    expect(await scanNumber(page, 'cancelled')).toBeGreaterThanOrEqual(cancelled + 1);
+    await waitForScan(app.page, 'done', 90_000);
+    expect(await scanNumber(app.page, 'started')).toBe(started + 2);
+    expect(await scanNumber(app.page, 'cancelled')).toBeGreaterThanOrEqual(cancelled + 1);
     // every point on the final map belongs to the new detuning
-    const { text } = await download(page, () => page.locator('phase-atlas-view data-export.map-export button', { hasText: 'JSON' }).click());
+    const { text } = await download(app.page, () => app.page.locator('phase-atlas-view data-export.map-export button', { hasText: 'JSON' }).click());
     const doc = JSON.parse(text) as { params: { delta: number }; points: { delta: number }[]; complete: boolean };
     expect(doc.params.delta).toBe(3.6);
     expect(doc.complete).toBe(true);
@@ -136,34 +122,34 @@ describe('phase atlas', () => {
   });
 
   it('an invalid value shows its message beside the field and keeps the last map', async () => {
-    const svgBefore = await page.locator('figure-panel.map svg .heatmap').innerHTML();
-    await page.locator('model-form input[name="detuning"]').fill('3.6x');
-    const msg = page.locator('model-form [data-field="detuning"]');
+    const svgBefore = await app.page.locator('figure-panel.map svg .heatmap').innerHTML();
+    await app.page.locator('model-form input[name="detuning"]').fill('3.6x');
+    const msg = app.page.locator('model-form [data-field="detuning"]');
     await expect.poll(() => msg.textContent()).toContain("must be a finite number, got '3.6x'");
-    expect(await page.locator('phase-atlas-view .stale').count()).toBe(1);
-    expect(await page.locator('figure-panel.map svg .heatmap').innerHTML()).toBe(svgBefore);
-    await screenshot(page, 'atlas-invalid');
+    expect(await app.page.locator('phase-atlas-view .stale').count()).toBe(1);
+    expect(await app.page.locator('figure-panel.map svg .heatmap').innerHTML()).toBe(svgBefore);
+    await screenshot(app.page, 'atlas-invalid');
     // mu above the detuning is refused with the reason (typed on the modes view: on the
     // atlas the mu field is set by the x axis and greyed out)
-    await page.locator('model-form input[name="detuning"]').fill('3.6');
-    await page.locator('#tab-modes').click();
-    await page.locator('model-form input[name="mu"]').fill('4');
-    await expect.poll(() => page.locator('model-form [data-field="mu"]').textContent()).toContain('photon number is unbounded');
-    await page.locator('model-form input[name="mu"]').fill('1');
-    await expect.poll(() => page.locator('model-form [data-field="mu"]').textContent()).toBe('');
-    await page.locator('#tab-atlas').click();
-    await waitForScan(page, 'done', 90_000);
-    expect(await page.locator('figure-panel.map svg .heatmap').innerHTML()).toBe(svgBefore);
+    await app.page.locator('model-form input[name="detuning"]').fill('3.6');
+    await app.page.locator('#tab-modes').click();
+    await app.page.locator('model-form input[name="mu"]').fill('4');
+    await expect.poll(() => app.page.locator('model-form [data-field="mu"]').textContent()).toContain('photon number is unbounded');
+    await app.page.locator('model-form input[name="mu"]').fill('1');
+    await expect.poll(() => app.page.locator('model-form [data-field="mu"]').textContent()).toBe('');
+    await app.page.locator('#tab-atlas').click();
+    await waitForScan(app.page, 'done', 90_000);
+    expect(await app.page.locator('figure-panel.map svg .heatmap').innerHTML()).toBe(svgBefore);
   });
 
   it('CSV export has the CLI header and one row a point, equal to the CLI map', async () => {
     await open('?view=atlas&atlas.x=mu%3D-1%3A2.9%3A12&atlas.y=rb%3D0.9%3A2.1%3A7');
-    await waitForScan(page, 'done');
-    const { name, text } = await download(page, () => page.locator('phase-atlas-view data-export.map-export button', { hasText: 'CSV' }).click());
+    await waitForScan(app.page, 'done');
+    const { name, text } = await download(app.page, () => app.page.locator('phase-atlas-view data-export.map-export button', { hasText: 'CSV' }).click());
     expect(name).toMatch(/^atlas-phase-map_chain_vdw_[A-Za-z0-9._-]*\.csv$/);
     // the page's CSV starts with a '#' header of its inputs (tests/browser/exports.test.ts); the table follows
     const lines = text.trimEnd().split('\n').filter((l) => !l.startsWith('#'));
-    const command = await page.locator('phase-atlas-view data-export.map-export code.command').textContent();
+    const command = await app.page.locator('phase-atlas-view data-export.map-export code.command').textContent();
     const cli = (await runCliLine(command ?? '')).trimEnd().split('\n');
     expect(lines[0]).toBe(cli[0]);
     expect(lines[0].split(',').slice(0, 7)).toEqual(['ix', 'iy', 'mu', 'rb', 'phase', 'fraction', 'cellSize']);
@@ -182,50 +168,50 @@ describe('phase atlas', () => {
 
   it('the URL round-trips the whole state; the last session is restored on reload', async () => {
     await open();
-    await page.locator('model-form select[name="lattice"]').selectOption('square');
+    await app.page.locator('model-form select[name="lattice"]').selectOption('square');
     // Rb typed on the staircase view (on the atlas the rb axis sets it and the field is greyed out)
-    await page.locator('#tab-staircase').click();
-    await page.locator('model-form input[name="rb"]').fill('1.3');
-    await page.locator('#tab-atlas').click();
-    await page.locator('phase-atlas-view input[name="range-x"]').fill('-1:2:20');
-    await page.locator('phase-atlas-view input[name="line-vdw:2"]').check();
-    const url = page.url();
+    await app.page.locator('#tab-staircase').click();
+    await app.page.locator('model-form input[name="rb"]').fill('1.3');
+    await app.page.locator('#tab-atlas').click();
+    await app.page.locator('phase-atlas-view input[name="range-x"]').fill('-1:2:20');
+    await app.page.locator('phase-atlas-view input[name="line-vdw:2"]').check();
+    const url = app.page.url();
     // a fresh page (no saved session) opened on the link shows the same entries
-    await page.goto(server.url);
-    await page.evaluate(() => localStorage.clear());
-    await page.goto(url);
-    expect(await page.locator('model-form select[name="lattice"]').inputValue()).toBe('square');
-    expect(await page.locator('model-form input[name="rb"]').inputValue()).toBe('1.3');
-    expect(await page.locator('phase-atlas-view input[name="range-x"]').inputValue()).toBe('-1:2:20');
-    expect(await page.locator('phase-atlas-view input[name="line-vdw:2"]').isChecked()).toBe(true);
-    expect(page.url()).toBe(url);
+    await app.page.goto(app.url);
+    await app.page.evaluate(() => localStorage.clear());
+    await app.page.goto(url);
+    expect(await app.page.locator('model-form select[name="lattice"]').inputValue()).toBe('square');
+    expect(await app.page.locator('model-form input[name="rb"]').inputValue()).toBe('1.3');
+    expect(await app.page.locator('phase-atlas-view input[name="range-x"]').inputValue()).toBe('-1:2:20');
+    expect(await app.page.locator('phase-atlas-view input[name="line-vdw:2"]').isChecked()).toBe(true);
+    expect(app.page.url()).toBe(url);
     // the bare address restores the last session
-    await page.goto(server.url);
-    expect(await page.locator('model-form input[name="rb"]').inputValue()).toBe('1.3');
-    expect(page.url()).toBe(url);
+    await app.page.goto(app.url);
+    expect(await app.page.locator('model-form input[name="rb"]').inputValue()).toBe('1.3');
+    expect(app.page.url()).toBe(url);
   });
 });
 
 describe('staircase', () => {
   it('the demo staircase shows its labelled plateaus and their widths', async () => {
     await open('?view=staircase');
-    await page.locator('staircase-view[data-scan="done"]').waitFor({ state: 'attached', timeout: 90_000 });
-    await expect.poll(() => page.locator('figure-panel.staircase svg .band-label').count()).toBeGreaterThan(0);
-    const labels = await page.locator('figure-panel.staircase svg .band-label').allTextContents();
+    await app.page.locator('staircase-view[data-scan="done"]').waitFor({ state: 'attached', timeout: 90_000 });
+    await expect.poll(() => app.page.locator('figure-panel.staircase svg .band-label').count()).toBeGreaterThan(0);
+    const labels = await app.page.locator('figure-panel.staircase svg .band-label').allTextContents();
     // the demo chain (vdw, Rb = 1.5, delta = 3) locks at 1/3 and 1/2 over mu in -1..2.9 (its atlas shows both)
     expect(labels).toContain('1/2');
     expect(labels).toContain('1/3');
-    const widths = await page.locator('staircase-view table.plateaus').first().locator('tbody tr').count();
+    const widths = await app.page.locator('staircase-view table.plateaus').first().locator('tbody tr').count();
     expect(widths).toBeGreaterThanOrEqual(2);
-    await screenshot(page, 'staircase');
+    await screenshot(app.page, 'staircase');
   });
 
   it('its plateaus, edges bisected, equal those of the CLI staircase', async () => {
     await open('?view=staircase&staircase.mu=-1%3A2.9%3A80&staircase.compare=');
-    await page.locator('staircase-view[data-refined="yes"]').waitFor({ state: 'attached', timeout: 90_000 });
-    const { text } = await download(page, () => page.locator('staircase-view data-export.points-export button', { hasText: 'JSON' }).click());
+    await app.page.locator('staircase-view[data-refined="yes"]').waitFor({ state: 'attached', timeout: 90_000 });
+    const { text } = await download(app.page, () => app.page.locator('staircase-view data-export.points-export button', { hasText: 'JSON' }).click());
     const mine = JSON.parse(text).series[0].plateaus as { fraction: string; muLow: number; muHigh: number }[];
-    const command = await page.locator('staircase-view data-export.points-export code.command').textContent();
+    const command = await app.page.locator('staircase-view data-export.points-export code.command').textContent();
     const cli = JSON.parse(await runCliLine(command ?? '')).plateaus as typeof mine;
     expect(mine.map((p) => p.fraction)).toEqual(cli.map((p) => p.fraction));
     // one staircase scan (line, plateaus, bisection) for both; two V8 builds may round a
@@ -241,18 +227,18 @@ describe('modes', () => {
   it('shows the branches, the margin and k* of the CLI spectrum for the same point', async () => {
     // the uniform condensate forced (cell 1) at mu = 0.1, Rb = 1.2 goes soft at k* = pi
     await open('?view=modes&mu=0.1&rb=1.2&modes.cell=1&modes.points=65');
-    await page.locator('modes-view[data-status="complete"]').waitFor({ state: 'attached', timeout: 60_000 });
-    const { text } = await download(page, () => page.locator('modes-view data-export button', { hasText: 'JSON' }).click());
+    await app.page.locator('modes-view[data-status="complete"]').waitFor({ state: 'attached', timeout: 60_000 });
+    const { text } = await download(app.page, () => app.page.locator('modes-view data-export button', { hasText: 'JSON' }).click());
     const mine = JSON.parse(text);
-    const command = await page.locator('modes-view data-export code.command').textContent();
+    const command = await app.page.locator('modes-view data-export code.command').textContent();
     const cli = JSON.parse(await runCliLine(command ?? ''));
     expect(mine.branches.length).toBe(65);
     // same code on the same inputs in two V8 builds: equal to rounding (1e-9 on margins of order 1)
     expect(Math.abs(mine.softMode.margin - cli.softMode.margin)).toBeLessThan(1e-9);
     expect(Math.abs(mine.softMode.k - cli.softMode.k)).toBeLessThan(1e-6);
     expect(mine.softMode.stable).toBe(false);
-    expect(await page.locator('modes-view figure-panel.branches svg path').count()).toBeGreaterThan(0);
-    await screenshot(page, 'modes');
+    expect(await app.page.locator('modes-view figure-panel.branches svg path').count()).toBeGreaterThan(0);
+    await screenshot(app.page, 'modes');
   });
 });
 
@@ -260,9 +246,9 @@ describe('correlated check', () => {
   /** Run the view's method and return the page's JSON and the CLI's JSON for the offered command. */
   async function pageAndCli(query: string) {
     await open(`?view=correlated&${query}`);
-    await page.locator('correlated-view[data-status="complete"]').waitFor({ state: 'attached', timeout: 120_000 });
-    const { text } = await download(page, () => page.locator('correlated-view data-export button', { hasText: 'JSON' }).click());
-    const command = await page.locator('correlated-view data-export code.command').textContent();
+    await app.page.locator('correlated-view[data-status="complete"]').waitFor({ state: 'attached', timeout: 120_000 });
+    const { text } = await download(app.page, () => app.page.locator('correlated-view data-export button', { hasText: 'JSON' }).click());
+    const command = await app.page.locator('correlated-view data-export code.command').textContent();
     return { mine: JSON.parse(text), cli: JSON.parse(await runCliLine(command ?? '')) };
   }
 
@@ -275,8 +261,8 @@ describe('correlated check', () => {
     expect(Math.abs(mine.alpha - cli.alpha)).toBeLessThan(1e-9);
     expect(mine.siteDensities.length).toBe(10);
     mine.siteDensities.forEach((d: number, i: number) => expect(Math.abs(d - cli.siteDensities[i])).toBeLessThan(1e-9));
-    expect(await page.locator('correlated-view figure-panel.sk svg .error-bars circle').count()).toBe(mine.structureFactor.length);
-    await screenshot(page, 'correlated-ed');
+    expect(await app.page.locator('correlated-view figure-panel.sk svg .error-bars circle').count()).toBe(mine.structureFactor.length);
+    await screenshot(app.page, 'correlated-ed');
   });
 
   it('VMC finishes and agrees with the CLI for the same seed and chain count', async () => {
@@ -292,8 +278,8 @@ describe('correlated check', () => {
     expectRel(mine.density.value, cli.density.value, 1e-12);
     expect(mine.acceptance).toBe(cli.acceptance);
     expect(mine.trace.length).toBe(30);
-    expect(await page.locator('correlated-view figure-panel.trace svg .error-bars circle').count()).toBe(30);
-    await screenshot(page, 'correlated-vmc');
+    expect(await app.page.locator('correlated-view figure-panel.trace svg .error-bars circle').count()).toBe(30);
+    await screenshot(app.page, 'correlated-vmc');
   });
 });
 
@@ -304,25 +290,25 @@ describe('correlated check on an uploaded array', () => {
     const csv = join(dir, 'zigzag.csv');
     await writeFile(csv, 'x,y\n0,0\n4,2\n8,0\n12,2\n16,0\n20,2\n');
     await open('?view=correlated&correlated.method=ed&correlated.cluster=array&correlated.alpha=0.2');
-    await page.locator('correlated-view input[name="correlated-spacing"]').fill('4');
-    await page.locator('correlated-view input[type="file"]').setInputFiles(csv);
-    await page.locator('correlated-view[data-status="complete"]').waitFor({ state: 'attached', timeout: 60_000 });
-    const circles = await page.locator('correlated-view figure-panel.cluster svg .dots circle').count();
+    await app.page.locator('correlated-view input[name="correlated-spacing"]').fill('4');
+    await app.page.locator('correlated-view input[type="file"]').setInputFiles(csv);
+    await app.page.locator('correlated-view[data-status="complete"]').waitFor({ state: 'attached', timeout: 60_000 });
+    const circles = await app.page.locator('correlated-view figure-panel.cluster svg .dots circle').count();
     expect(circles).toBe(6);
     // drawn to scale: neighbouring sites 1.118 a apart (sqrt(1 + 0.5^2)), the axis spans 5 a
-    const xs = await page.locator('correlated-view figure-panel.cluster svg .dots circle').evaluateAll((cs) => cs.map((c) => Number(c.getAttribute('cx'))));
-    const ys = await page.locator('correlated-view figure-panel.cluster svg .dots circle').evaluateAll((cs) => cs.map((c) => Number(c.getAttribute('cy'))));
+    const xs = await app.page.locator('correlated-view figure-panel.cluster svg .dots circle').evaluateAll((cs) => cs.map((c) => Number(c.getAttribute('cx'))));
+    const ys = await app.page.locator('correlated-view figure-panel.cluster svg .dots circle').evaluateAll((cs) => cs.map((c) => Number(c.getAttribute('cy'))));
     const dx = xs[1] - xs[0], dy = ys[1] - ys[0];
     // equal scales on both axes: the pixel step is 2:1 like the data step (0.5 a up per 1 a along), to 0.02 px rounding
     expect(Math.abs(Math.abs(dx) - 2 * Math.abs(dy))).toBeLessThan(0.05);
     // the zig-zag (rows 0.5 a apart) is cut from no lattice of spacing a: no mean-field column
     // against the form's chain (issue 11 item 8)
-    expect(await page.locator('correlated-view table.comparison thead').textContent()).toContain('no lattice of spacing a');
-    const { text } = await download(page, () => page.locator('correlated-view data-export button', { hasText: 'JSON' }).click());
+    expect(await app.page.locator('correlated-view table.comparison thead').textContent()).toContain('no lattice of spacing a');
+    const { text } = await download(app.page, () => app.page.locator('correlated-view data-export button', { hasText: 'JSON' }).click());
     const mine = JSON.parse(text);
-    const command = (await page.locator('correlated-view data-export code.command').textContent()) ?? '';
+    const command = (await app.page.locator('correlated-view data-export code.command').textContent()) ?? '';
     expect(command).toContain('--sites sites.csv');
-    const saved = await download(page, () => page.locator('correlated-view button', { hasText: 'Save sites.csv' }).click());
+    const saved = await download(app.page, () => app.page.locator('correlated-view button', { hasText: 'Save sites.csv' }).click());
     const savedPath = join(dir, 'sites.csv');
     await writeFile(savedPath, saved.text);
     const cli = JSON.parse(await runCliLine(command.replace('--sites sites.csv', `--sites ${savedPath}`)));
@@ -330,7 +316,7 @@ describe('correlated check on an uploaded array', () => {
     // the same Lanczos on the same six sites: equal to rounding (1e-12)
     expect(Math.abs(mine.energyPerSite - cli.energyPerSite)).toBeLessThan(1e-12);
     await rm(dir, { recursive: true, force: true });
-    await screenshot(page, 'correlated-array');
+    await screenshot(app.page, 'correlated-array');
   });
 });
 
@@ -339,35 +325,35 @@ describe('array planner', () => {
     await open('?view=planner');
     // demo lab numbers: g = 0.5 MHz sqrt(200) = 7.071 MHz; Rb = (140e3 / (2 g))^(1/6) um over a = 4 um
     const g = 0.5 * Math.sqrt(200), rbA = Math.pow(140e3 / (2 * g), 1 / 6) / 4;
-    expect(Number(await page.locator('array-planner-view .g-mhz').textContent())).toBeCloseTo(g, 3);
-    expect(Number(await page.locator('array-planner-view .rb-a').textContent())).toBeCloseTo(rbA, 3);
-    const verdict = page.locator('array-planner-view .verdict');
+    expect(Number(await app.page.locator('array-planner-view .g-mhz').textContent())).toBeCloseTo(g, 3);
+    expect(Number(await app.page.locator('array-planner-view .rb-a').textContent())).toBeCloseTo(rbA, 3);
+    const verdict = app.page.locator('array-planner-view .verdict');
     await expect.poll(async () => (await verdict.textContent())?.replace(/\s+/g, ' '), { timeout: 30_000 })
       .toMatch(/ground state is a .* g \(.* MHz in \u03bc\) from the nearest phase boundary/);
-    await screenshot(page, 'planner');
+    await screenshot(app.page, 'planner');
   });
 });
 
 describe('whole page', () => {
   it('fits a narrow window and 1280 x 800 without sideways scrolling, every view', async () => {
     for (const [w, h] of [[420, 900], [1280, 800]]) {
-      await page.setViewportSize({ width: w, height: h });
+      await app.page.setViewportSize({ width: w, height: h });
       for (const view of ['atlas', 'staircase', 'modes', 'correlated', 'planner']) {
         await open(`?view=${view}`);
-        await page.locator('atlas-app').waitFor();
-        await page.waitForTimeout(300);
-        const scroll = await page.evaluate(() => document.documentElement.scrollWidth);
+        await app.page.locator('atlas-app').waitFor();
+        await app.page.waitForTimeout(300);
+        const scroll = await app.page.evaluate(() => document.documentElement.scrollWidth);
         expect(scroll, `${view} at ${w} px`).toBeLessThanOrEqual(w);
       }
       if (w === 420) {
         await open('?view=atlas');
-        await waitForScan(page, 'done', 90_000);
-        await screenshot(page, 'atlas-narrow');
+        await waitForScan(app.page, 'done', 90_000);
+        await screenshot(app.page, 'atlas-narrow');
       }
     }
   });
 
   it('no console errors', () => {
-    expect(browser.errors).toEqual([]);
+    expect(app.browser.errors).toEqual([]);
   });
 });

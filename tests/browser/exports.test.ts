@@ -6,19 +6,15 @@
  * sized in inches; the map's CSV starts with a '#' header of the inputs and its table is
  * the CLI's (src/cli) for the same command; file names carry the view and inputs.
  */
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import type { Page } from 'playwright-core';
+import { describe, it, expect, beforeAll } from 'vitest';
 import { mkdir, readFile, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import { OUTPUT, buildApp } from './harness/build-app.ts';
-import { serveStatic, type StaticServer } from './harness/static-server.ts';
-import { launchChromium, type Browser } from './harness/launch-chromium.ts';
+import { OUTPUT } from './harness/build-app.ts';
+import { useApp } from './harness/app-session.ts';
 import { download, runCliLine, waitForScan } from './harness/page-tools.ts';
 import { readPngSize } from '../../src/ui/export/png-density.ts';
 
-let server: StaticServer;
-let browser: Browser;
-let page: Page;
+const app = useApp('dist-exports');
 
 /** A small map (12 x 7 points) of the demo model. */
 const SMALL_MAP = '?view=atlas&atlas.x=mu%3D-1%3A2.9%3A12&atlas.y=rb%3D0.9%3A2.1%3A7';
@@ -26,27 +22,18 @@ const SMALL_MAP = '?view=atlas&atlas.x=mu%3D-1%3A2.9%3A12&atlas.y=rb%3D0.9%3A2.1
 const PORTABLE = /^[A-Za-z0-9._-]+$/;
 
 beforeAll(async () => {
-  const dist = await buildApp();
-  server = await serveStatic(dist);
-  browser = await launchChromium({ width: 1280, height: 800 });
-  page = browser.page;
-  await page.goto(server.url);
-  await page.evaluate(() => localStorage.clear());
-  await page.goto(server.url + SMALL_MAP);
-  await waitForScan(page, 'done', 90_000);
+  await app.page.goto(app.url);
+  await app.page.evaluate(() => localStorage.clear());
+  await app.page.goto(app.url + SMALL_MAP);
+  await waitForScan(app.page, 'done', 90_000);
 }, 240_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
 
 /** Where the saved files are kept for a look (test-output/exports). */
 const SAVED = join(OUTPUT, 'exports');
 
 /** Click a button and read back the downloaded file's bytes and suggested name (a copy goes to SAVED). */
 async function downloadBytes(click: () => Promise<void>): Promise<{ name: string; bytes: Buffer }> {
-  const [d] = await Promise.all([page.waitForEvent('download', { timeout: 30_000 }), click()]);
+  const [d] = await Promise.all([app.page.waitForEvent('download', { timeout: 30_000 }), click()]);
   const bytes = await readFile(await d.path());
   await mkdir(SAVED, { recursive: true });
   await writeFile(join(SAVED, d.suggestedFilename()), bytes);
@@ -55,7 +42,7 @@ async function downloadBytes(click: () => Promise<void>): Promise<{ name: string
 
 describe('exports of the phase map', () => {
   it('saves a vector PDF: %PDF first, %%EOF last, the axis label as text, no image', async () => {
-    const { name, bytes } = await downloadBytes(() => page.locator('figure-panel.map button', { hasText: 'PDF' }).click());
+    const { name, bytes } = await downloadBytes(() => app.page.locator('figure-panel.map button', { hasText: 'PDF' }).click());
     expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');
     expect(bytes.toString('latin1').trimEnd().endsWith('%%EOF')).toBe(true);
     const text = bytes.toString('latin1');
@@ -67,7 +54,7 @@ describe('exports of the phase map', () => {
   });
 
   it('the map CSV starts with a # header of the inputs; after it, the table the CLI writes', async () => {
-    const { name, text } = await download(page, () => page.locator('phase-atlas-view data-export.map-export button', { hasText: 'CSV' }).click());
+    const { name, text } = await download(app.page, () => app.page.locator('phase-atlas-view data-export.map-export button', { hasText: 'CSV' }).click());
     expect(name).toBe('atlas-phase-map_chain_vdw_Rb0.9..2.1_delta3_mu-1..2.9_T0.csv');
     const lines = text.trimEnd().split('\n');
     expect(lines[0].startsWith('#')).toBe(true);
@@ -76,7 +63,7 @@ describe('exports of the phase map', () => {
     const body = lines.filter((l) => !l.startsWith('#'));
     // pandas' comment='#' cuts a line at any '#': none may stand in the data
     for (const l of body) expect(l).not.toContain('#');
-    const command = (await page.locator('phase-atlas-view data-export.map-export code.command').textContent()) ?? '';
+    const command = (await app.page.locator('phase-atlas-view data-export.map-export code.command').textContent()) ?? '';
     const cli = (await runCliLine(command)).trimEnd().split('\n').filter((l) => !l.startsWith('#'));
     expect(body[0]).toBe(cli[0]);
     expect(body.length).toBe(1 + 12 * 7);
@@ -84,7 +71,7 @@ describe('exports of the phase map', () => {
   });
 
   it('PNG at the single-column preset and 300 dpi: 1020 px wide, 300 dpi in pHYs; SVG sized 3.4 in', async () => {
-    const panel = page.locator('figure-panel.map');
+    const panel = app.page.locator('figure-panel.map');
     await panel.locator('button.size-toggle').click();
     await panel.locator('select[name="export-size"]').selectOption('single');
     await panel.locator('select[name="export-dpi"]').selectOption('300');
@@ -96,7 +83,7 @@ describe('exports of the phase map', () => {
     expect(png.width).toBe(1020);
     // 300 dpi = 300 / 0.0254 m = 11811 px per metre (unit 1: metre)
     expect(png.phys).toEqual([11811, 11811, 1]);
-    const svg = await download(page, () => panel.locator('button', { hasText: 'SVG' }).click());
+    const svg = await download(app.page, () => panel.locator('button', { hasText: 'SVG' }).click());
     expect(svg.text).toMatch(/<svg [^>]*width="3\.4in"/);
     // laid out again at 3.4 in x 96 px = 326.4 px (CSS Values 3), so its 12 px text prints at 9 pt, as the size note says
     expect(svg.text).toMatch(/<svg [^>]*viewBox="0 0 326\.4 /);
@@ -114,9 +101,9 @@ describe('exports of the phase map', () => {
       { view: 'staircase', query: '?view=staircase&staircase.mu=-1%3A2.9%3A120', ready: 'staircase-view[data-scan="done"]', figures: 1 },
     ];
     for (const v of views) {
-      await page.goto(server.url + v.query);
-      await page.locator(v.ready).waitFor({ state: 'attached', timeout: 90_000 });
-      const buttons = page.locator(`${v.view}-view figure-panel button`, { hasText: 'PDF' });
+      await app.page.goto(app.url + v.query);
+      await app.page.locator(v.ready).waitFor({ state: 'attached', timeout: 90_000 });
+      const buttons = app.page.locator(`${v.view}-view figure-panel button`, { hasText: 'PDF' });
       expect(await buttons.count()).toBeGreaterThanOrEqual(v.figures);
       for (let i = 0; i < await buttons.count(); i++) {
         const { name, bytes } = await downloadBytes(() => buttons.nth(i).click());
@@ -128,6 +115,6 @@ describe('exports of the phase map', () => {
   });
 
   it('no console errors', () => {
-    expect(browser.errors).toEqual([]);
+    expect(app.browser.errors).toEqual([]);
   });
 });

@@ -5,38 +5,24 @@
  * region 0 < mu < 2 V1 far from the cavity, so every point there sits at the limit; the
  * offer raises Mmax, the new map runs, and the crystal (period 2 < 4) is then off the limit.
  */
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import { join } from 'node:path';
-import { buildApp, OUTPUT } from './harness/build-app.ts';
-import { serveStatic, type StaticServer } from './harness/static-server.ts';
-import { launchChromium, type Browser } from './harness/launch-chromium.ts';
+import { describe, it, expect } from 'vitest';
+import { useApp } from './harness/app-session.ts';
 import { waitForScan } from './harness/page-tools.ts';
 
-let server: StaticServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await serveStatic(await buildApp(join(OUTPUT, 'dist-limit')));
-  browser = await launchChromium({ width: 1280, height: 800 });
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const app = useApp('dist-limit');
 
 describe('search-limit offer', () => {
   it('points at Mmax are counted and the offer raises Mmax', async () => {
-    const page = browser.page;
+    const page = app.page;
     const errors: string[] = [];
     page.on('console', (m) => { if (m.type() === 'error') errors.push(m.text()); });
-    await page.goto(server.url);
+    await page.goto(app.url);
     await page.evaluate(() => localStorage.clear());
     const q = new URLSearchParams({
       view: 'atlas', lattice: 'chain', interaction: 'nn', strength: 'v1', v1: '1', detuning: '40', 'max-cell': '2',
       'atlas.x': 'mu=-0.5..2.5 x16', 'atlas.y': 'detuning=30..40 x4',
     });
-    await page.goto(`${server.url}?${q}`);
+    await page.goto(`${app.url}?${q}`);
     await waitForScan(page, 'done', 120_000);
     const offer = page.locator('phase-atlas-view .limit-offer');
     await offer.waitFor({ state: 'visible', timeout: 30_000 });
