@@ -195,7 +195,8 @@ export class WorkerPool<E> {
       let at = this.queue.length;
       while (at > 0 && this.queue[at - 1].priority < priority) at--;
       const jobs = tasks.map((_, i) => ({ run, taskIndex: i, priority }));
-      this.queue = at === this.queue.length ? this.queue.concat(jobs) : [...this.queue.slice(0, at), ...jobs, ...this.queue.slice(at)];
+      if (at === this.queue.length) for (const j of jobs) this.queue.push(j); // the common case: appended in place
+      else this.queue = [...this.queue.slice(0, at), ...jobs, ...this.queue.slice(at)];
       this.pump();
     });
   }
