@@ -21,7 +21,8 @@ export const SOFT_RANGES: { key: string; label: string; stroke: string; dash?: s
   { key: 'vdw:1', label: 'vdw r\u22641', stroke: '#b3124e', dash: '7 3' },
   { key: 'vdw:2', label: 'vdw r\u22642', stroke: '#0c6e4f', dash: '4 2 1 2' },
   { key: 'vdw:3', label: 'vdw r\u22643', stroke: '#5a2ca0', dash: '9 2 2 2' },
-  { key: 'vdw:inf', label: 'vdw full', stroke: '#101820' },
+  // teal, not ink: a solid near-black line is a first-order boundary on the map (figures/boundary-lines.ts)
+  { key: 'vdw:inf', label: 'vdw full', stroke: '#0e7490' },
   { key: 'dipolar', label: 'dipolar', stroke: '#8a4b00', dash: '1 2' },
 ];
 

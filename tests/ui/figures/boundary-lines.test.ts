@@ -10,6 +10,8 @@ import type { Boundary } from '../../../src/core/scan/boundaries.ts';
 import type { Frame } from '../../../src/ui/plot/frame.ts';
 import { px } from '../../../src/ui/plot/svg-markup.ts';
 import { FIRST_ORDER_STYLE, APPROXIMATE_STYLE } from '../../../src/ui/figures/boundary-lines.ts';
+import { SOFT_RANGES } from '../../../src/ui/controllers/soft-lines.ts';
+import { contrastRatio } from '../plot/colour-science.ts';
 
 const wave = (M: number) => ({
   phase: 'density-wave', fraction: `1/${M}`, cellSize: M, sublatticeDensities: [1, ...Array(M - 1).fill(0)],
@@ -81,5 +83,19 @@ describe('boundary lines on the phase map', () => {
     const none = phaseMapFigure(input([]));
     expect(none.svg).not.toContain('polylines boundaries');
     expect(none.svg).not.toContain('stroke-linecap="square"');
+  });
+});
+
+describe('soft-mode lines do not look like boundary lines', () => {
+  // A line's meaning is told by its style (common practice, no source): a soft-mode line
+  // drawn solid must differ in lightness from the solid first-order boundary by at least
+  // WCAG 2.1's 3:1 non-text contrast (W3C Recommendation 2018, SC 1.4.11; lightness survives
+  // every colour-vision deficiency), and a dashed one must not use the approximate
+  // boundary's dash.
+  it('every range style differs from both boundary styles', () => {
+    for (const s of SOFT_RANGES) {
+      if (!s.dash) expect(contrastRatio(s.stroke, FIRST_ORDER_STYLE.stroke), s.label).toBeGreaterThanOrEqual(3);
+      else expect(s.dash, s.label).not.toBe(APPROXIMATE_STYLE.dash);
+    }
   });
 });
