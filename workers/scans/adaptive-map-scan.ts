@@ -18,7 +18,7 @@ import { gridPoint, gridShape, pointSeed, rowCuts, spreadRows, type ScanPlan, ty
 import { applyAxis, type Axis } from '../../src/core/scan/axes.ts';
 import { affineCoordinate, axisValue, certificationBlocker } from '../../src/core/scan/affine-axes.ts';
 import { crystalOf, type Crystal } from '../../src/core/scan/crystal.ts';
-import { bandRects, coarseColumns, coarseRows, corners, refineLevelBy, refineUniformLevel, segmentCrystal, subdivide, uniformNote, UNIFORM_STEP, type RegionCell } from '../../src/core/scan/refinement.ts';
+import { bandRects, coarseColumns, coarseRows, corners, refineLevel, refineUniformLevel, segmentCrystal, subdivide, uniformNote, UNIFORM_STEP, type RegionCell } from '../../src/core/scan/refinement.ts';
 import {
   affineCrossing, chainBoundaries, crossing, crystalOmega, phaseName, type Crossing,
 } from '../../src/core/scan/boundaries.ts';
@@ -38,7 +38,7 @@ import { shardSegments } from '../../src/core/scan/shards.ts';
 import { lowest, rectPolygon, region, tied } from '../../src/core/scan/tie-rects.ts';
 import type { Rect } from '../../src/core/scan/refinement.ts';
 
-/** Cold points per worker task (small: a refinement level ends when its slowest task does). */
+/** Least cold points per worker task (tasks stay small: a refinement level ends when its slowest task does). */
 const COLD_TASK = 2;
 
 /**
@@ -197,7 +197,7 @@ async function runAdaptive(pool: WorkerPool<Engine>, req: MapScanRequest, o: Sca
         continue;
       }
       if (ties) rects = await ties.certify(rects, (x, y) => classAt(x, y) ?? null, certified);
-      const lvl = refineLevelBy(rects, (x, y) => classAt(x, y) ?? null);
+      const lvl = refineLevel(rects, (x, y) => classAt(x, y) ?? null);
       for (const { rect, crystal } of lvl.certified) {
         for (let y = rect.y0; y <= rect.y1; y++) for (let x = rect.x0; x <= rect.x1; x++) certified.set(y * nx + x, crystal);
       }

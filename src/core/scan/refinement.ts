@@ -14,7 +14,7 @@
  */
 import type { SolveResult } from '../meanfield/ground-state.ts';
 import type { MeanFieldState } from '../meanfield/state.ts';
-import { crystalOf, type Crystal } from './crystal.ts';
+import type { Crystal } from './crystal.ts';
 import { rowCuts, type ScanPlan } from './grid.ts';
 
 /** Rows of a band: refinement works on blocks of this many rows (plus the shared last one). */
@@ -60,15 +60,11 @@ export interface RefineLevel {
 }
 
 /**
- * One refinement level: classify each rectangle by its corner states (state(ix, iy), all
- * solved before) and split those neither certified nor leaves.
+ * One refinement level: classify each rectangle by its corners' crystals (crystalAt: the
+ * crystal of a solved or certified corner, null when it is not a crystal or not known) and
+ * split those neither certified nor leaves.
  */
-export function refineLevel(rects: readonly Rect[], state: (ix: number, iy: number) => SolveResult | undefined): RefineLevel {
-  return refineLevelBy(rects, (x, y) => crystalOf(state(x, y)));
-}
-
-/** refineLevel by the corners' crystals (null: not a crystal, or not known). */
-export function refineLevelBy(rects: readonly Rect[], crystalAt: (ix: number, iy: number) => Crystal | null): RefineLevel {
+export function refineLevel(rects: readonly Rect[], crystalAt: (ix: number, iy: number) => Crystal | null): RefineLevel {
   const lvl = levelBy(rects, crystalAt);
   return { certified: lvl.settled.map(({ rect, value }) => ({ rect, crystal: value })), children: lvl.children };
 }

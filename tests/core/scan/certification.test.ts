@@ -74,7 +74,7 @@ describe('refinement and boundaries', () => {
 
   it('certifies a rectangle of one crystal and splits one whose corners differ', () => {
     const a = solveGroundState(chain(1.5, 1.3)), b = solveGroundState(chain(-0.8, 1.3)); // 1/2 wave, empty
-    const lvl = refineLevel([{ x0: 0, x1: 4, y0: 0, y1: 4 }, { x0: 4, x1: 8, y0: 0, y1: 4 }], (x) => (x <= 4 ? a : b));
+    const lvl = refineLevel([{ x0: 0, x1: 4, y0: 0, y1: 4 }, { x0: 4, x1: 8, y0: 0, y1: 4 }], (x) => crystalOf(x <= 4 ? a : b));
     expect(lvl.certified.map((c) => c.rect)).toEqual([{ x0: 0, x1: 4, y0: 0, y1: 4 }]);
     expect(lvl.children).toHaveLength(4);
   });
